@@ -1,0 +1,33 @@
+import Link from 'next/link';
+import { describeInvitation } from '@/lib/services/members';
+import { ROLE_LABELS } from '@/lib/auth/roles';
+import { AcceptInvitationForm } from '@/components/forms/accept-invitation-form';
+
+export const metadata = { title: 'Invitation' };
+
+export default async function InvitationPage({ params }: { params: Promise<{ token: string }> }) {
+  const { token } = await params;
+  const invitation = await describeInvitation(token);
+  if (!invitation) {
+    return (
+      <>
+        <h1 className="text-xl font-semibold">This invitation cannot be used</h1>
+        <p className="mt-2 text-sm text-ink-soft">
+          It has expired, was revoked, or was already accepted. Ask an owner for a new one.
+        </p>
+        <Link href="/sign-in" className="mt-4 inline-block text-cost underline">
+          Sign in
+        </Link>
+      </>
+    );
+  }
+  return (
+    <>
+      <h1 className="text-xl font-semibold">Join {invitation.organizationName}</h1>
+      <p className="mb-4 mt-1 text-sm text-ink-soft">
+        {invitation.email} is invited as <strong>{ROLE_LABELS[invitation.role]}</strong>.
+      </p>
+      <AcceptInvitationForm token={token} email={invitation.email} hasAccount={invitation.hasAccount} />
+    </>
+  );
+}

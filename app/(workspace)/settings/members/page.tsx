@@ -1,0 +1,17 @@
+import { requirePageActor } from '@/lib/auth/guard';
+import { MembersPanel } from '@/components/members/members-panel';
+
+export const metadata = { title: 'Members' };
+
+export default async function MembersPage() {
+  const actor = await requirePageActor('members:manage', '/settings/members');
+  return (
+    <div className="max-w-4xl space-y-4">
+      <h1 className="text-2xl font-semibold">Members and invitations</h1>
+      <p className="text-sm text-ink-soft">
+        Owners and estimators take a paid seat; sponsors and billing members are free.
+      </p>
+      <MembersPanel selfUserId={actor.userId} />
+    </div>
+  );
+}

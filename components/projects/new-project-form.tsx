@@ -1,0 +1,98 @@
+'use client';
+
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useRouter } from 'next/navigation';
+import { z } from 'zod';
+import { projectSchema, STAGES } from '@/lib/validation/project';
+import { Field, Select, TextInput } from '@/components/ui/field';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { ApiError, callApi } from '@/components/forms/api';
+import type { ProjectView } from '@/lib/services/projects';
+
+type Values = z.input<typeof projectSchema>;
+
+export function NewProjectForm({ onDone }: { onDone?: () => void }) {
+  const router = useRouter();
+  const [failure, setFailure] = useState<string | null>(null);
+  const { register, handleSubmit, formState, setError } = useForm<Values>({
+    resolver: zodResolver(projectSchema),
+    defaultValues: {
+      currency: 'EUR',
+      estimateClass: 4,
+      stage: 'Concept',
+      baseDate: new Date().toISOString().slice(0, 10),
+    },
+  });
+  const e = formState.errors;
+
+  async function onSubmit(values: Values) {
+    setFailure(null);
+    try {
+      const { project } = await callApi<{ project: ProjectView }>('/api/projects', { body: values });
+      onDone?.();
+      router.push(`/projects/${project.id}`);
+      router.refresh();
+    } catch (err) {
+      if (!(err instanceof ApiError)) throw err;
+      for (const issue of err.failure.issues)
+        setError(issue.path as keyof Values, { message: issue.message });
+      setFailure(err.failure.message);
+    }
+  }
+
+  return (
+    <form
+      onSubmit={handleSubmit(onSubmit)}
+      className="grid grid-cols-2 gap-3"
+      noValidate
+      aria-label="New project"
+    >
+      {failure ? (
+        <div className="col-span-2">
+          <Notice tone="invalid">{failure}</Notice>
+        </div>
+      ) : null}
+      <Field id="p-name" label="Name" error={e.name?.message}>
+        <TextInput id="p-name" invalid={!!e.name} {...register('name')} />
+      </Field>
+      <Field id="p-code" label="Code" error={e.code?.message} hint="Short and unique, e.g. RIV-02">
+        <TextInput id="p-code" invalid={!!e.code} {...register('code')} />
+      </Field>
+      <Field id="p-currency" label="Currency" error={e.currency?.message}>
+        <TextInput id="p-currency" maxLength={3} invalid={!!e.currency} {...register('currency')} />
+      </Field>
+      <Field id="p-class" label="Estimate class (1–5)" error={e.estimateClass?.message}>
+        <Select id="p-class" invalid={!!e.estimateClass} {...register('estimateClass')}>
+          {[5, 4, 3, 2, 1].map((c) => (
+            <option key={c} value={c}>
+              Class {c}
+            </option>
+          ))}
+        </Select>
+      </Field>
+      <Field id="p-stage" label="Stage" error={e.stage?.message}>
+        <Select id="p-stage" invalid={!!e.stage} {...register('stage')}>
+          {STAGES.map((s) => (
+            <option key={s}>{s}</option>
+          ))}
+        </Select>
+      </Field>
+      <Field id="p-date" label="Base date" error={e.baseDate?.message}>
+        <TextInput id="p-date" type="date" invalid={!!e.baseDate} {...register('baseDate')} />
+      </Field>
+      <div className="col-span-2">
+        <Field id="p-desc" label="Description" error={e.description?.message}>
+          <TextInput id="p-desc" {...register('description')} />
+        </Field>
+      </div>
+      <div className="col-span-2">
+        <Button type="submit" disabled={formState.isSubmitting}>
+          {formState.isSubmitting ? 'Creating…' : 'Create project'}
+        </Button>
+      </div>
+    </form>
+  );
+}

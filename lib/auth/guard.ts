@@ -1,0 +1,30 @@
+import { getServerSession } from 'next-auth';
+import { redirect } from 'next/navigation';
+import { authOptions } from './options';
+import { can, type Action } from './roles';
+import type { Actor } from './actor';
+import { forbidden, unauthorized } from '@/lib/errors';
+import { loadActor } from '@/lib/services/accounts';
+
+/** The signed-in actor with their current role, or null when signed out or no longer a member. */
+export async function currentActor(): Promise<Actor | null> {
+  const session = await getServerSession(authOptions);
+  if (!session?.userId || !session.organizationId) return null;
+  return loadActor(session.userId, session.organizationId);
+}
+
+/** For route handlers and server actions: 401 when signed out, 403 when the role may not. */
+export async function requireActor(action?: Action): Promise<Actor> {
+  const actor = await currentActor();
+  if (!actor) throw unauthorized();
+  if (action && !can(actor.role, action)) throw forbidden();
+  return actor;
+}
+
+/** For pages: signed out goes to sign-in, a role that may not goes to the forbidden page. */
+export async function requirePageActor(action?: Action, returnTo?: string): Promise<Actor> {
+  const actor = await currentActor();
+  if (!actor) redirect(returnTo ? `/sign-in?callbackUrl=${encodeURIComponent(returnTo)}` : '/sign-in');
+  if (action && !can(actor.role, action)) redirect('/forbidden');
+  return actor;
+}

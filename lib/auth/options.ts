@@ -1,0 +1,63 @@
+import type { NextAuthOptions } from 'next-auth';
+import CredentialsProvider from 'next-auth/providers/credentials';
+import { verifyCredentials } from '@/lib/services/accounts';
+import { signInSchema } from '@/lib/validation/auth';
+import type { Role } from './roles';
+import { assertMaySignIn, recordFailedSignIn, recordSuccessfulSignIn } from './sign-in-limit';
+
+function clientAddress(headers: Record<string, string | string[] | undefined> | undefined): string {
+  const forwarded = headers?.['x-forwarded-for'];
+  const first = Array.isArray(forwarded) ? forwarded[0] : forwarded;
+  return first?.split(',')[0]?.trim() || String(headers?.['x-real-ip'] ?? 'local');
+}
+
+export const authOptions: NextAuthOptions = {
+  session: { strategy: 'jwt', maxAge: 12 * 60 * 60 },
+  pages: { signIn: '/sign-in' },
+  providers: [
+    CredentialsProvider({
+      name: 'E-mail and password',
+      credentials: {
+        email: { label: 'E-mail', type: 'email' },
+        password: { label: 'Password', type: 'password' },
+      },
+      async authorize(credentials, req) {
+        const parsed = signInSchema.safeParse(credentials);
+        if (!parsed.success) throw new Error('Enter your e-mail address and password.');
+        const { email, password } = parsed.data;
+        const address = clientAddress(req?.headers);
+        await assertMaySignIn(email, address);
+        const user = await verifyCredentials(email, password);
+        if (!user) {
+          await recordFailedSignIn(email, address);
+          throw new Error('That e-mail and password do not match an account.');
+        }
+        await recordSuccessfulSignIn(email);
+        return {
+          id: String(user.id),
+          email: user.email,
+          name: user.name,
+          organizationId: user.organizationId,
+          role: user.role,
+        };
+      },
+    }),
+  ],
+  callbacks: {
+    async jwt({ token, user }) {
+      if (user) {
+        token.userId = Number(user.id);
+        const signedIn = user as unknown as { organizationId: number; role: Role };
+        token.organizationId = signedIn.organizationId;
+        token.role = signedIn.role;
+      }
+      return token;
+    },
+    async session({ session, token }) {
+      session.userId = token.userId as number;
+      session.organizationId = token.organizationId as number;
+      session.role = token.role as Role;
+      return session;
+    },
+  },
+};

@@ -1,0 +1,44 @@
+import { RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
+
+// Failed sign-ins are counted per e-mail and per client address; either limit
+// blocks further attempts for a while. Successful sign-ins reset the e-mail's count.
+// Kept on globalThis: Next.js may load this module in more than one bundle of one process.
+const store = globalThis as unknown as { outturnSignInLimits?: [RateLimiterMemory, RateLimiterMemory] };
+store.outturnSignInLimits ??= [
+  new RateLimiterMemory({ keyPrefix: 'signin-email', points: 5, duration: 15 * 60 }),
+  new RateLimiterMemory({ keyPrefix: 'signin-ip', points: 50, duration: 15 * 60 }),
+];
+const [perEmail, perAddress] = store.outturnSignInLimits;
+
+export class SignInLimited extends Error {
+  constructor(readonly retryAfterSeconds: number) {
+    const minutes = Math.max(1, Math.ceil(retryAfterSeconds / 60));
+    super(`Too many failed sign-ins. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`);
+  }
+}
+
+async function remaining(limiter: RateLimiterMemory, key: string): Promise<number> {
+  const res = await limiter.get(key);
+  if (res && res.remainingPoints <= 0) return Math.ceil(res.msBeforeNext / 1000);
+  return 0;
+}
+
+/** Throws SignInLimited when either counter is exhausted. */
+export async function assertMaySignIn(email: string, address: string): Promise<void> {
+  const wait = Math.max(await remaining(perEmail, email), await remaining(perAddress, address));
+  if (wait > 0) throw new SignInLimited(wait);
+}
+
+export async function recordFailedSignIn(email: string, address: string): Promise<void> {
+  await Promise.all(
+    [perEmail.consume(email), perAddress.consume(address)].map((p) =>
+      p.catch((e: unknown) => {
+        if (!(e instanceof RateLimiterRes)) throw e;
+      }),
+    ),
+  );
+}
+
+export async function recordSuccessfulSignIn(email: string): Promise<void> {
+  await perEmail.delete(email);
+}

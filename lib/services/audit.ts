@@ -1,0 +1,33 @@
+import type { Transaction } from 'sequelize';
+import { AuditEntry } from '@/models';
+import type { Actor } from '@/lib/auth/actor';
+
+export type AuditChange = {
+  entity: string;
+  entityId: string | number | null;
+  action: 'create' | 'update' | 'delete' | 'import' | string;
+  before: unknown;
+  after: unknown;
+  projectId?: number | null;
+};
+
+/** Appends one entry to the audit trail inside the caller's transaction. */
+export async function recordAudit(
+  actor: Actor,
+  change: AuditChange,
+  transaction?: Transaction,
+): Promise<void> {
+  await AuditEntry.create(
+    {
+      organizationId: actor.organizationId,
+      projectId: change.projectId ?? null,
+      userId: actor.userId,
+      entity: change.entity,
+      entityId: change.entityId === null ? null : String(change.entityId),
+      action: change.action,
+      before: change.before ?? null,
+      after: change.after ?? null,
+    },
+    { transaction },
+  );
+}

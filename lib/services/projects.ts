@@ -1,0 +1,137 @@
+import { Project, sequelize } from '@/models';
+import type { Actor } from '@/lib/auth/actor';
+import { can } from '@/lib/auth/roles';
+import { badRequest, forbidden, notFound } from '@/lib/errors';
+import { parseOrThrow } from '@/lib/validation/parse';
+import { projectSchema } from '@/lib/validation/project';
+import { recordAudit } from './audit';
+
+export type ProjectView = {
+  id: number;
+  name: string;
+  code: string;
+  currency: string;
+  estimateClass: number;
+  stage: string;
+  baseDate: string;
+  description: string | null;
+  archived: boolean;
+  version: number;
+};
+
+export function toProjectView(p: Project): ProjectView {
+  return {
+    id: p.id,
+    name: p.name,
+    code: p.code,
+    currency: p.currency,
+    estimateClass: p.estimateClass,
+    stage: p.stage,
+    baseDate: p.baseDate,
+    description: p.description ?? null,
+    archived: Boolean(p.archivedAt),
+    version: p.version,
+  };
+}
+
+function assertMay(actor: Actor, action: 'project:read' | 'project:write') {
+  if (!can(actor.role, action)) throw forbidden();
+}
+
+export async function listProjects(actor: Actor, { includeArchived = false } = {}): Promise<ProjectView[]> {
+  assertMay(actor, 'project:read');
+  const where: Record<string, unknown> = { organizationId: actor.organizationId };
+  if (!includeArchived) where.archivedAt = null;
+  const rows = await Project.findAll({ where, order: [['code', 'ASC']] });
+  return rows.map(toProjectView);
+}
+
+/** A project of the actor's organisation; any other id is "not found", never its data. */
+export async function findProject(actor: Actor, projectId: number): Promise<Project> {
+  assertMay(actor, 'project:read');
+  const project = Number.isInteger(projectId)
+    ? await Project.findOne({ where: { id: projectId, organizationId: actor.organizationId } })
+    : null;
+  if (!project) throw notFound('Project');
+  return project;
+}
+
+export async function getProject(actor: Actor, projectId: number): Promise<ProjectView> {
+  return toProjectView(await findProject(actor, projectId));
+}
+
+async function assertCodeFree(actor: Actor, code: string, exceptId?: number) {
+  const clash = await Project.findOne({ where: { organizationId: actor.organizationId, code } });
+  if (clash && clash.id !== exceptId) {
+    throw badRequest(`Project code ${code} is already used.`, [
+      { path: 'code', message: 'Already used by another project.' },
+    ]);
+  }
+}
+
+export async function createProject(actor: Actor, input: unknown): Promise<ProjectView> {
+  assertMay(actor, 'project:write');
+  const data = parseOrThrow(projectSchema, input);
+  await assertCodeFree(actor, data.code);
+  return sequelize.transaction(async (transaction) => {
+    const project = await Project.create({ ...data, organizationId: actor.organizationId }, { transaction });
+    await recordAudit(
+      actor,
+      {
+        entity: 'project',
+        entityId: project.id,
+        projectId: project.id,
+        action: 'create',
+        before: null,
+        after: data,
+      },
+      transaction,
+    );
+    return toProjectView(project);
+  });
+}
+
+export async function updateProject(actor: Actor, projectId: number, input: unknown): Promise<ProjectView> {
+  assertMay(actor, 'project:write');
+  const data = parseOrThrow(projectSchema, input);
+  const project = await findProject(actor, projectId);
+  await assertCodeFree(actor, data.code, project.id);
+  return sequelize.transaction(async (transaction) => {
+    const before = toProjectView(project);
+    await project.update(data, { transaction });
+    await recordAudit(
+      actor,
+      {
+        entity: 'project',
+        entityId: project.id,
+        projectId: project.id,
+        action: 'update',
+        before,
+        after: data,
+      },
+      transaction,
+    );
+    return toProjectView(project);
+  });
+}
+
+export async function setArchived(actor: Actor, projectId: number, archived: boolean): Promise<ProjectView> {
+  assertMay(actor, 'project:write');
+  const project = await findProject(actor, projectId);
+  return sequelize.transaction(async (transaction) => {
+    await project.update({ archivedAt: archived ? new Date() : null }, { transaction });
+    await recordAudit(
+      actor,
+      {
+        entity: 'project',
+        entityId: project.id,
+        projectId: project.id,
+        action: archived ? 'archive' : 'restore',
+        before: null,
+        after: null,
+      },
+      transaction,
+    );
+    return toProjectView(project);
+  });
+}

@@ -1,0 +1,46 @@
+import { z } from 'zod';
+import { ROLES } from '@/lib/auth/roles';
+
+export const emailSchema = z
+  .string()
+  .trim()
+  .toLowerCase()
+  .pipe(z.email({ message: 'Enter a valid e-mail address, like name@company.com.' }));
+
+export const passwordSchema = z
+  .string()
+  .min(10, { message: 'Use at least 10 characters for the password.' })
+  .max(200, { message: 'Use at most 200 characters for the password.' });
+
+export const personNameSchema = z
+  .string()
+  .trim()
+  .min(1, { message: 'Enter your name.' })
+  .max(120, { message: 'Keep the name under 120 characters.' });
+
+export const signUpSchema = z.object({
+  name: personNameSchema,
+  organizationName: z
+    .string()
+    .trim()
+    .min(2, { message: 'Enter the organisation name (at least 2 characters).' })
+    .max(120, { message: 'Keep the organisation name under 120 characters.' }),
+  email: emailSchema,
+  password: passwordSchema,
+});
+export type SignUpInput = z.infer<typeof signUpSchema>;
+
+export const signInSchema = z.object({
+  email: emailSchema,
+  password: z.string().min(1, { message: 'Enter your password.' }),
+});
+
+export const roleSchema = z.enum(ROLES, { message: 'Choose one of: owner, estimator, sponsor, billing.' });
+
+export const inviteSchema = z.object({ email: emailSchema, role: roleSchema });
+export const changeRoleSchema = z.object({ role: roleSchema });
+
+export const acceptInvitationSchema = z.object({
+  name: personNameSchema.optional(),
+  password: passwordSchema,
+});

@@ -1,0 +1,36 @@
+import { z } from 'zod';
+
+export const ESTIMATE_CLASSES = [1, 2, 3, 4, 5] as const;
+export const STAGES = [
+  'Concept',
+  'Feasibility',
+  'Preliminary design',
+  'Detailed design',
+  'Tender',
+  'Delivery',
+] as const;
+
+export const projectSchema = z.object({
+  name: z.string().trim().min(2, { message: 'Enter a project name (at least 2 characters).' }).max(160),
+  code: z
+    .string()
+    .trim()
+    .toUpperCase()
+    .regex(/^[A-Z0-9][A-Z0-9._-]{0,31}$/, {
+      message: 'Use 1–32 letters, digits, dots, dashes or underscores.',
+    }),
+  currency: z
+    .string()
+    .trim()
+    .toUpperCase()
+    .regex(/^[A-Z]{3}$/, { message: 'Use a three-letter ISO 4217 currency code, like EUR.' }),
+  estimateClass: z.coerce
+    .number()
+    .int()
+    .min(1, { message: 'Estimate class runs from 1 to 5.' })
+    .max(5, { message: 'Estimate class runs from 1 to 5.' }),
+  stage: z.enum(STAGES, { message: `Choose a stage: ${STAGES.join(', ')}.` }),
+  baseDate: z.iso.date({ message: 'Enter the base date as YYYY-MM-DD.' }),
+  description: z.string().trim().max(4000).optional().nullable(),
+});
+export type ProjectInput = z.infer<typeof projectSchema>;

@@ -1,0 +1,17 @@
+#!/usr/bin/env bash
+# Builds the app for production when no build exists or the sources changed since the last one.
+set -euo pipefail
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+cd "$ROOT"
+export NEXT_TELEMETRY_DISABLED=1
+stamp=".next/.source-hash"
+hash="$( (git ls-files -co --exclude-standard -- app components lib models types public proxy.ts \
+  next.config.mjs tailwind.config.ts postcss.config.mjs tsconfig.json package-lock.json 2>/dev/null || true) \
+  | sort | xargs -r sha1sum 2>/dev/null | sha1sum | cut -d' ' -f1)"
+if [ -f .next/BUILD_ID ] && [ -f "$stamp" ] && [ "$(cat "$stamp")" = "$hash" ]; then
+  echo "Production build is up to date."
+  exit 0
+fi
+echo "Building the app (next build)…"
+node_modules/.bin/next build
+echo "$hash" > "$stamp"

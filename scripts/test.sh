@@ -1,0 +1,50 @@
+#!/usr/bin/env bash
+# npm test: the same set-up as npm start against a fresh test database, then every check:
+# format, lint, types, unit tests, integration tests (real MariaDB, real app server) and
+# end-to-end tests in Debian's Chromium.
+set -euo pipefail
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+cd "$ROOT"
+bash scripts/install.sh --browser
+source scripts/env.sh
+
+export DB_NAME=outturn_test PORT=3100 MAIL_UI_PORT=2581 SMTP_PORT=2526 STRIPE_FAKE_PORT=12112
+export APP_URL="http://localhost:$PORT" NEXTAUTH_URL="http://localhost:$PORT"
+RUN="$ROOT/.data/run"
+mkdir -p "$RUN"
+
+echo "== Static checks"
+node_modules/.bin/prettier --check . --log-level warn
+node_modules/.bin/eslint . --max-warnings 0
+node_modules/.bin/tsc --noEmit
+
+echo "== Unit tests"
+node_modules/.bin/vitest run --project unit
+
+echo "== Test database and services"
+bash scripts/db.sh start
+mariadb --no-defaults --socket="$ROOT/.data/mariadb/mysqld.sock" -uroot -e "DROP DATABASE IF EXISTS \`$DB_NAME\`"
+bash scripts/db.sh start "$DB_NAME" >/dev/null
+RUN="$ROOT/.data/run-test" bash scripts/services.sh start
+bash scripts/migrate.sh
+bash scripts/build.sh
+
+server_pid=""
+cleanup() {
+  [ -n "$server_pid" ] && kill "$server_pid" 2>/dev/null || true
+  RUN="$ROOT/.data/run-test" bash scripts/services.sh stop || true
+}
+trap cleanup EXIT
+node_modules/.bin/next start -p "$PORT" >"$RUN/test-server.log" 2>&1 &
+server_pid=$!
+for _ in $(seq 1 300); do
+  curl -fsS -o /dev/null "$APP_URL/sign-in" 2>/dev/null && break
+  sleep 0.2
+done
+curl -fsS -o /dev/null "$APP_URL/sign-in" || { echo "The app did not start; see $RUN/test-server.log"; exit 1; }
+
+echo "== Integration tests"
+node_modules/.bin/vitest run --project integration
+
+echo "== End-to-end tests"
+node_modules/.bin/playwright test

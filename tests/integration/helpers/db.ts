@@ -1,0 +1,37 @@
+// Direct reads of the test database, to check what a request did or did not write.
+import { QueryTypes, Sequelize } from 'sequelize';
+
+let db: Sequelize | undefined;
+
+function connection() {
+  db ??= new Sequelize({
+    dialect: 'mariadb',
+    host: process.env.DB_HOST ?? '127.0.0.1',
+    port: Number(process.env.DB_PORT ?? 3307),
+    database: process.env.DB_NAME ?? 'outturn_test',
+    username: process.env.DB_USER ?? 'outturn',
+    password: process.env.DB_PASSWORD,
+    logging: false,
+  });
+  return db;
+}
+
+export async function count(table: string, where = '1=1', replacements: unknown[] = []): Promise<number> {
+  const [row] = await connection().query<{ n: number | bigint }>(
+    `SELECT COUNT(*) AS n FROM \`${table}\` WHERE ${where}`,
+    {
+      replacements,
+      type: QueryTypes.SELECT,
+    },
+  );
+  return Number(row.n);
+}
+
+export async function rows<T extends object>(sql: string, replacements: unknown[] = []): Promise<T[]> {
+  return connection().query<T>(sql, { replacements, type: QueryTypes.SELECT });
+}
+
+export async function closeDb() {
+  await db?.close();
+  db = undefined;
+}

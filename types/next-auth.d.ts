@@ -1,0 +1,11 @@
+import 'next-auth';
+import type { Role } from '@/lib/auth/roles';
+
+declare module 'next-auth' {
+  interface Session {
+    userId: number;
+    organizationId: number;
+    /** The role at sign-in; the guard reloads the current one on every request. */
+    role: Role;
+  }
+}

@@ -1,0 +1,34 @@
+import { defineConfig } from 'vitest/config';
+import path from 'node:path';
+
+const alias = { '@': path.resolve(import.meta.dirname) };
+
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    projects: [
+      {
+        resolve: { alias },
+        test: {
+          name: 'unit',
+          include: ['tests/unit/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 60_000,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'integration',
+          include: ['tests/integration/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 60_000,
+          hookTimeout: 60_000,
+          // One MariaDB and one app server: files run one after another.
+          fileParallelism: false,
+          setupFiles: ['tests/integration/setup.ts'],
+        },
+      },
+    ],
+  },
+});
