@@ -4,6 +4,8 @@ const nextConfig = {
   // both must stay plain Node modules rather than be bundled.
   serverExternalPackages: ['sequelize', 'mariadb', 'piscina', 'pdfkit', 'exceljs', 'nodemailer'],
   poweredByHeader: false,
+  // A second test slot builds into its own folder (see scripts/test.sh).
+  distDir: process.env.NEXT_DIST_DIR || '.next',
   // Types are checked once by `tsc --noEmit` in npm test; checking again in every build only doubles the time.
   typescript: { ignoreBuildErrors: true },
 };

@@ -4,11 +4,12 @@ set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$ROOT"
 export NEXT_TELEMETRY_DISABLED=1
-stamp=".next/.source-hash"
+dist="${NEXT_DIST_DIR:-.next}"
+stamp="$dist/.source-hash"
 hash="$( (git ls-files -co --exclude-standard -- app components lib models types public proxy.ts \
   next.config.mjs tailwind.config.ts postcss.config.mjs tsconfig.json package-lock.json 2>/dev/null || true) \
   | sort | xargs -r sha1sum 2>/dev/null | sha1sum | cut -d' ' -f1)"
-if [ -f .next/BUILD_ID ] && [ -f "$stamp" ] && [ "$(cat "$stamp")" = "$hash" ]; then
+if [ -f "$dist/BUILD_ID" ] && [ -f "$stamp" ] && [ "$(cat "$stamp")" = "$hash" ]; then
   echo "Production build is up to date."
   exit 0
 fi

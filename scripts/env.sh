@@ -13,8 +13,13 @@ if [ ! -f "$ROOT/.env" ]; then
   done < "$ROOT/.env.example" > "$ROOT/.env"
   echo "Made .env with generated secrets."
 fi
-set -a
-# shellcheck disable=SC1091
-source "$ROOT/.env"
-set +a
+# Variables already set win over .env, as they do for Next.js and sequelize-cli.
+while IFS= read -r line; do
+  [[ "$line" =~ ^([A-Z_][A-Z0-9_]*)=(.*)$ ]] || continue
+  name="${BASH_REMATCH[1]}"
+  value="${BASH_REMATCH[2]}"
+  value="${value%\"}"
+  value="${value#\"}"
+  [ -n "${!name+x}" ] || export "$name=$value"
+done < "$ROOT/.env"
 export NEXT_TELEMETRY_DISABLED=1

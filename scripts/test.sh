@@ -8,9 +8,18 @@ cd "$ROOT"
 bash scripts/install.sh --browser
 source scripts/env.sh
 
-export DB_NAME=outturn_test PORT=3100 MAIL_UI_PORT=2581 SMTP_PORT=2526 STRIPE_FAKE_PORT=12112
+# OUTTURN_TEST_SLOT=N gives a second copy of the suite its own database, ports and build
+# folder, so that two developers' runs on one machine do not collide. CI uses slot 0.
+slot="${OUTTURN_TEST_SLOT:-0}"
+if [ "$slot" = 0 ]; then
+  export DB_NAME=outturn_test NEXT_DIST_DIR=.next
+else
+  export DB_NAME="outturn_test_$slot" NEXT_DIST_DIR=".next-test-$slot"
+fi
+export PORT=$((3100 + slot * 10)) MAIL_UI_PORT=$((2581 + slot * 10)) SMTP_PORT=$((2526 + slot * 10))
+export STRIPE_FAKE_PORT=$((12112 + slot * 10))
 export APP_URL="http://localhost:$PORT" NEXTAUTH_URL="http://localhost:$PORT"
-RUN="$ROOT/.data/run"
+export RUN="$ROOT/.data/run-test-$slot"
 mkdir -p "$RUN"
 
 echo "== Static checks"
@@ -25,14 +34,14 @@ echo "== Test database and services"
 bash scripts/db.sh start
 mariadb --no-defaults --socket="$ROOT/.data/mariadb/mysqld.sock" -uroot -e "DROP DATABASE IF EXISTS \`$DB_NAME\`"
 bash scripts/db.sh start "$DB_NAME" >/dev/null
-RUN="$ROOT/.data/run-test" bash scripts/services.sh start
+bash scripts/services.sh start
 bash scripts/migrate.sh
 bash scripts/build.sh
 
 server_pid=""
 cleanup() {
   [ -n "$server_pid" ] && kill "$server_pid" 2>/dev/null || true
-  RUN="$ROOT/.data/run-test" bash scripts/services.sh stop || true
+  bash scripts/services.sh stop || true
 }
 trap cleanup EXIT
 node_modules/.bin/next start -p "$PORT" >"$RUN/test-server.log" 2>&1 &

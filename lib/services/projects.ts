@@ -5,6 +5,7 @@ import { badRequest, forbidden, notFound } from '@/lib/errors';
 import { parseOrThrow } from '@/lib/validation/parse';
 import { projectSchema } from '@/lib/validation/project';
 import { recordAudit } from './audit';
+import { assertWritable } from './write-access';
 
 export type ProjectView = {
   id: number;
@@ -72,6 +73,7 @@ async function assertCodeFree(actor: Actor, code: string, exceptId?: number) {
 export async function createProject(actor: Actor, input: unknown): Promise<ProjectView> {
   assertMay(actor, 'project:write');
   const data = parseOrThrow(projectSchema, input);
+  await assertWritable(actor.organizationId);
   await assertCodeFree(actor, data.code);
   return sequelize.transaction(async (transaction) => {
     const project = await Project.create({ ...data, organizationId: actor.organizationId }, { transaction });
@@ -95,6 +97,7 @@ export async function updateProject(actor: Actor, projectId: number, input: unkn
   assertMay(actor, 'project:write');
   const data = parseOrThrow(projectSchema, input);
   const project = await findProject(actor, projectId);
+  await assertWritable(actor.organizationId);
   await assertCodeFree(actor, data.code, project.id);
   return sequelize.transaction(async (transaction) => {
     const before = toProjectView(project);
@@ -118,6 +121,7 @@ export async function updateProject(actor: Actor, projectId: number, input: unkn
 export async function setArchived(actor: Actor, projectId: number, archived: boolean): Promise<ProjectView> {
   assertMay(actor, 'project:write');
   const project = await findProject(actor, projectId);
+  await assertWritable(actor.organizationId);
   return sequelize.transaction(async (transaction) => {
     await project.update({ archivedAt: archived ? new Date() : null }, { transaction });
     await recordAudit(
