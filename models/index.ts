@@ -6,6 +6,10 @@ import { Membership } from './membership';
 import { Invitation } from './invitation';
 import { Project } from './project';
 import { AuditEntry } from './audit-entry';
+import { Activity } from './activity';
+import { CostItem } from './cost-item';
+import { RiskEvent } from './risk-event';
+import { Correlation } from './correlation';
 
 Organization.hasMany(Membership, { foreignKey: 'organizationId', as: 'memberships' });
 Membership.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
@@ -23,4 +27,27 @@ AuditEntry.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 AuditEntry.belongsTo(Project, { foreignKey: 'projectId', as: 'project' });
 AuditEntry.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
 
-export { sequelize, Organization, User, Membership, Invitation, Project, AuditEntry };
+Activity.belongsTo(Project, { foreignKey: 'projectId', as: 'project' });
+CostItem.belongsTo(Project, { foreignKey: 'projectId', as: 'project' });
+RiskEvent.belongsTo(Project, { foreignKey: 'projectId', as: 'project' });
+Correlation.belongsTo(Project, { foreignKey: 'projectId', as: 'project' });
+Project.hasMany(Activity, { foreignKey: 'projectId', as: 'activities' });
+Project.hasMany(CostItem, { foreignKey: 'projectId', as: 'costItems' });
+Project.hasMany(RiskEvent, { foreignKey: 'projectId', as: 'riskEvents' });
+Project.hasMany(Correlation, { foreignKey: 'projectId', as: 'correlations' });
+CostItem.belongsTo(Activity, { foreignKey: 'activityId', as: 'activity' });
+RiskEvent.belongsTo(Activity, { foreignKey: 'activityId', as: 'activity' });
+
+export {
+  Activity,
+  CostItem,
+  RiskEvent,
+  Correlation,
+  sequelize,
+  Organization,
+  User,
+  Membership,
+  Invitation,
+  Project,
+  AuditEntry,
+};
