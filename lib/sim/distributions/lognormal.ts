@@ -1,0 +1,56 @@
+/**
+ * Lognormal distribution: ln X ~ N(μ, σ²), given either by its 10th and 90th percentiles or by
+ * its mean and standard deviation.
+ *
+ *   from (p10, p90):  μ = (ln p10 + ln p90)/2,   σ = (ln p90 − ln p10) / (2 z₀.₉),  z₀.₉ = Φ⁻¹(0.9)
+ *   from (m, s):      σ² = ln(1 + s²/m²),        μ = ln m − σ²/2
+ *   F(x) = Φ((ln x − μ)/σ);  Q(u) = exp(μ + σ Φ⁻¹(u));
+ *   E = exp(μ + σ²/2);  Var = (exp(σ²) − 1) exp(2μ + σ²);  median (the base) = exp(μ).
+ *
+ * Reference: Johnson, Kotz & Balakrishnan (1994), "Continuous Univariate Distributions",
+ * vol. 1, 2nd ed., ch. 14.
+ */
+
+import { normalCdf, normalQuantile } from '../math/normal';
+import { type DistLocation, fail, requireFinite, requireGreater, requirePositive } from './checks';
+import type { Distribution } from './types';
+
+export type LognormalParams = { p10: number; p90: number } | { mean: number; sd: number };
+
+const Z90 = normalQuantile(0.9);
+
+export function createLognormal(p: LognormalParams, at: DistLocation): Distribution {
+  let mu: number;
+  let sigma: number;
+  if ('p10' in p && p.p10 !== undefined) {
+    requireFinite(at, 'p10', p.p10);
+    requireFinite(at, 'p90', p.p90);
+    requirePositive(at, 'p10', p.p10);
+    requireGreater(at, 'p90', p.p90, 'p10', p.p10);
+    mu = (Math.log(p.p10) + Math.log(p.p90)) / 2;
+    sigma = (Math.log(p.p90) - Math.log(p.p10)) / (2 * Z90);
+  } else if ('mean' in p && p.mean !== undefined) {
+    requireFinite(at, 'mean', p.mean);
+    requireFinite(at, 'sd', p.sd);
+    requirePositive(at, 'mean', p.mean);
+    requirePositive(at, 'sd', p.sd);
+    const s2 = Math.log1p((p.sd * p.sd) / (p.mean * p.mean));
+    sigma = Math.sqrt(s2);
+    mu = Math.log(p.mean) - s2 / 2;
+  } else {
+    fail(at, '', 'a lognormal needs either p10 and p90 or mean and sd');
+  }
+  const s2 = sigma * sigma;
+  return {
+    kind: 'lognormal',
+    mean: Math.exp(mu + s2 / 2),
+    variance: Math.expm1(s2) * Math.exp(2 * mu + s2),
+    base: Math.exp(mu),
+    degenerate: false,
+    quantile: (u) => Math.exp(mu + sigma * normalQuantile(u)),
+    cdf: (x) => (x <= 0 ? 0 : normalCdf((Math.log(x) - mu) / sigma)),
+    quantileInto(u, out, n) {
+      for (let i = 0; i < n; i++) out[i] = Math.exp(mu + sigma * normalQuantile(u[i]));
+    },
+  };
+}

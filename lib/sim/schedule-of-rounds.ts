@@ -1,0 +1,46 @@
+// The rounds of a run: one round of the asked iterations, or, with a precision goal, doubling
+// rounds until the P80 interval is narrow enough or the cap is reached. Shared by the
+// in-thread and the pooled runner so both make the same decisions from the same blocks.
+
+import { type BlockOutput, BLOCK_SIZE } from './block';
+import type { Plan } from './compile';
+import type { ResolvedSettings } from './options';
+import { concatTotals } from './rollup';
+import { relativeHalfWidth } from './stats/precision';
+import { percentileIntervalOfSorted, percentileOfSorted } from './stats/summary';
+
+/** Worst relative half-width of the P80 interval over the totals. */
+export function p80Precision(plan: Plan, blocks: BlockOutput[]): number {
+  const ordered = [...blocks].sort((a, b) => a.block - b.block);
+  const totals = [concatTotals(ordered, (b) => b.cost)];
+  if (plan.network) totals.push(concatTotals(ordered, (b) => b.duration));
+  let worst = 0;
+  for (const t of totals) {
+    const sorted = t.sort();
+    worst = Math.max(worst, relativeHalfWidth(percentileOfSorted(sorted, 0.8), percentileIntervalOfSorted(sorted, 0.8)));
+  }
+  return worst;
+}
+
+/** Iterations of the next round, or null when the run is complete. */
+export function nextRound(
+  settings: ResolvedSettings,
+  plan: Plan,
+  done: number,
+  blocks: BlockOutput[],
+  warnings: string[],
+): number | null {
+  if (done === 0) return settings.iterations;
+  const goal = settings.precision;
+  if (!goal) return null;
+  const reached = p80Precision(plan, blocks);
+  if (reached <= goal.relative) return null;
+  if (done >= goal.maxIterations) {
+    warnings.push(
+      `P80 was to be known to ±${(goal.relative * 100).toFixed(2)}% but reached ±${(reached * 100).toFixed(2)}% ` +
+        `at the cap of ${goal.maxIterations} iterations.`,
+    );
+    return null;
+  }
+  return Math.min(goal.maxIterations, Math.max(done * 2, done + BLOCK_SIZE));
+}

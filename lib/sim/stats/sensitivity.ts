@@ -1,0 +1,86 @@
+/**
+ * Tornado data: Spearman's rank correlation of each input with a total, and its share of variance.
+ *
+ * Rank correlation = Pearson correlation of the input's grade with the total's mid-rank. The grade
+ * is the input's value on the probability scale, G = F(X) (for a risk, the mid-distribution value
+ * (F(x⁻) + F(x))/2, which is what average ranks give to ties), known from the sampler without
+ * sorting the input; the total is ranked once (mid-ranks). The grade equals the empirical rank/n up
+ * to O(1/√n), and 12·E[F(X)G(Y)] − 3 is Spearman's coefficient in the population (Kruskal 1958,
+ * JASA 53:814–861, §2.4). Grades are stored to 16 bits (error below 2⁻¹⁶).
+ *
+ * Variance share: squared rank correlations normalised to sum to 1 over the listed inputs, a
+ * first-order attribution that ignores interactions between inputs and is exact for an additive
+ * total of independent inputs on the rank scale.
+ */
+
+import type { BlockOutput } from '../block';
+import type { SensitivityInput } from '../compile';
+import type { SensitivityEntry } from '../types';
+
+const GRADE = 1 / 65536;
+
+/** Rank correlations of every input with each ranked total (null totals are skipped). */
+export function rankCorrelations(
+  inputs: SensitivityInput[],
+  blocks: BlockOutput[],
+  costRanks: Float64Array,
+  durationRanks: Float64Array | null,
+): { cost: Float64Array; duration: Float64Array } {
+  const m = inputs.length;
+  const sg = new Float64Array(m);
+  const sgg = new Float64Array(m);
+  const sgc = new Float64Array(m);
+  const sgd = new Float64Array(m);
+  let offset = 0;
+  for (const b of blocks) {
+    const n = b.n;
+    for (let s = 0; s < m; s++) {
+      const g = b.grades;
+      const base = s * n;
+      let a1 = 0;
+      let a2 = 0;
+      let ac = 0;
+      let ad = 0;
+      for (let i = 0; i < n; i++) {
+        const x = g[base + i] + 0.5;
+        a1 += x;
+        a2 += x * x;
+        ac += x * costRanks[offset + i];
+      }
+      if (durationRanks) for (let i = 0; i < n; i++) ad += (g[base + i] + 0.5) * durationRanks[offset + i];
+      sg[s] += a1 * GRADE;
+      sgg[s] += a2 * GRADE * GRADE;
+      sgc[s] += ac * GRADE;
+      sgd[s] += ad * GRADE;
+    }
+    offset += n;
+  }
+  const n = offset;
+  const corrWith = (ranks: Float64Array | null, cross: Float64Array) => {
+    const out = new Float64Array(m);
+    if (!ranks) return out;
+    let sr = 0;
+    let srr = 0;
+    for (let i = 0; i < n; i++) {
+      sr += ranks[i];
+      srr += ranks[i] * ranks[i];
+    }
+    const vr = srr - (sr * sr) / n;
+    for (let s = 0; s < m; s++) {
+      const vg = sgg[s] - (sg[s] * sg[s]) / n;
+      const cov = cross[s] - (sg[s] * sr) / n;
+      out[s] = vg > 0 && vr > 0 ? cov / Math.sqrt(vg * vr) : 0;
+    }
+    return out;
+  };
+  return { cost: corrWith(costRanks, sgc), duration: corrWith(durationRanks, sgd) };
+}
+
+/** Entries sorted by |rank correlation|, with variance shares ρ²/Σρ². */
+export function tornado(ids: string[], rho: ArrayLike<number>): SensitivityEntry[] {
+  let total = 0;
+  for (let i = 0; i < ids.length; i++) total += rho[i] * rho[i];
+  return ids
+    .map((id, i) => ({ id, rankCorrelation: rho[i], varianceShare: total > 0 ? (rho[i] * rho[i]) / total : 0 }))
+    .sort((x, y) => Math.abs(y.rankCorrelation) - Math.abs(x.rankCorrelation) || (x.id < y.id ? -1 : 1));
+}
