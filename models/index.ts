@@ -10,6 +10,9 @@ import { Activity } from './activity';
 import { CostItem } from './cost-item';
 import { RiskEvent } from './risk-event';
 import { Correlation } from './correlation';
+import { OutboundMessage } from './outbound-message';
+import { NotificationPreference } from './notification-preference';
+import { PasswordResetToken } from './password-reset-token';
 
 Organization.hasMany(Membership, { foreignKey: 'organizationId', as: 'memberships' });
 Membership.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
@@ -38,7 +41,14 @@ Project.hasMany(Correlation, { foreignKey: 'projectId', as: 'correlations' });
 CostItem.belongsTo(Activity, { foreignKey: 'activityId', as: 'activity' });
 RiskEvent.belongsTo(Activity, { foreignKey: 'activityId', as: 'activity' });
 
+OutboundMessage.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+NotificationPreference.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+PasswordResetToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+
 export {
+  OutboundMessage,
+  NotificationPreference,
+  PasswordResetToken,
   Activity,
   CostItem,
   RiskEvent,
