@@ -10,6 +10,9 @@ import { Activity } from './activity';
 import { CostItem } from './cost-item';
 import { RiskEvent } from './risk-event';
 import { Correlation } from './correlation';
+import { Subscription } from './subscription';
+import { Invoice } from './invoice';
+import { WebhookEvent } from './webhook-event';
 import { OutboundMessage } from './outbound-message';
 import { NotificationPreference } from './notification-preference';
 import { PasswordResetToken } from './password-reset-token';
@@ -45,7 +48,16 @@ OutboundMessage.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 NotificationPreference.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 PasswordResetToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 
+Organization.hasOne(Subscription, { foreignKey: 'organizationId', as: 'subscription' });
+Subscription.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
+Organization.hasMany(Invoice, { foreignKey: 'organizationId', as: 'billingInvoices' });
+Invoice.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
+WebhookEvent.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
+
 export {
+  Subscription,
+  Invoice,
+  WebhookEvent,
   OutboundMessage,
   NotificationPreference,
   PasswordResetToken,
