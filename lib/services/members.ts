@@ -1,14 +1,15 @@
 import crypto from 'node:crypto';
 import { Op } from 'sequelize';
-import { Invitation, Membership, User, sequelize } from '@/models';
+import { Invitation, Membership, Organization, User, sequelize } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
-import { can, type Role } from '@/lib/auth/roles';
+import { can, ROLE_LABELS, type Role } from '@/lib/auth/roles';
 import { badRequest, forbidden, notFound } from '@/lib/errors';
 import { parseOrThrow } from '@/lib/validation/parse';
 import { acceptInvitationSchema, changeRoleSchema, inviteSchema } from '@/lib/validation/auth';
 import { hashPassword } from './accounts';
 import { recordAudit } from './audit';
 import { assertSeatAvailable } from './seats';
+import { enqueueMail } from '@/lib/mail';
 
 const INVITATION_DAYS = 7;
 
@@ -172,6 +173,20 @@ export async function invite(actor: Actor, input: unknown): Promise<InvitationVi
         action: 'create',
         before: null,
         after: { email, role },
+      },
+      transaction,
+    );
+    // The mail is queued with the invitation: both are written, or neither.
+    const organization = await Organization.findByPk(actor.organizationId, { transaction });
+    await enqueueMail(
+      'invitation',
+      [{ email }],
+      {
+        organizationName: organization?.name ?? '',
+        invitedByName: actor.name,
+        roleLabel: ROLE_LABELS[role],
+        acceptUrl: invitationLink(invitation.token),
+        expiresAt: invitation.expiresAt,
       },
       transaction,
     );

@@ -12,6 +12,11 @@ export default function SignInPage() {
       <Suspense>
         <SignInForm />
       </Suspense>
+      <p className="mt-3 text-sm">
+        <Link href="/forgot-password" className="text-cost underline">
+          Forgot your password?
+        </Link>
+      </p>
       <p className="mt-4 text-sm text-ink-soft">
         New here?{' '}
         <Link href="/sign-up" className="text-cost underline">

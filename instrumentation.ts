@@ -1,0 +1,11 @@
+// Runs once when the Next.js server starts. The mail sender lives in the server process so
+// that the outbox is delivered wherever the app runs, without a separate worker to deploy.
+export async function register() {
+  if (process.env.NEXT_RUNTIME === 'nodejs') {
+    const { startMailSender } = await import('./lib/mail/sender');
+    startMailSender();
+    // Runs left 'running' by the previous process are marked failed; queued ones start again.
+    const { recoverInterruptedRuns } = await import('./lib/services/runs/recover');
+    await recoverInterruptedRuns().catch((e) => console.error('Interrupted runs not recovered:', e));
+  }
+}
