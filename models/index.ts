@@ -10,6 +10,7 @@ import { Activity } from './activity';
 import { CostItem } from './cost-item';
 import { RiskEvent } from './risk-event';
 import { Correlation } from './correlation';
+import { SimulationRun } from './simulation-run';
 import { Subscription } from './subscription';
 import { Invoice } from './invoice';
 import { WebhookEvent } from './webhook-event';
@@ -54,6 +55,10 @@ Organization.hasMany(Invoice, { foreignKey: 'organizationId', as: 'billingInvoic
 Invoice.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
 WebhookEvent.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
 
+SimulationRun.belongsTo(Project, { foreignKey: 'projectId', as: 'project' });
+SimulationRun.belongsTo(User, { foreignKey: 'startedById', as: 'startedBy' });
+Project.hasMany(SimulationRun, { foreignKey: 'projectId', as: 'runs' });
+
 export {
   Subscription,
   Invoice,
@@ -72,4 +77,5 @@ export {
   Invitation,
   Project,
   AuditEntry,
+  SimulationRun,
 };

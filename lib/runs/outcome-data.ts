@@ -1,0 +1,108 @@
+/**
+ * Shapes a run's result (and its sample of iterations) into the series the outcome charts draw.
+ * Pure functions on plain numbers, shared by the server (summaries) and the charts.
+ */
+
+import type { PercentileKey, SensitivityEntry, TotalSummary } from '@/lib/sim/types';
+import type { ConfidenceLevel } from '@/lib/validation/runs';
+
+export type Point = { x: number; y: number };
+
+export type Histogram = { edges: number[]; counts: number[]; n: number };
+
+/** Equal-width bins over [min, max]; the last bin includes max. */
+export function histogram(values: ArrayLike<number>, bins = 40): Histogram {
+  const n = values.length;
+  if (n === 0) return { edges: [], counts: [], n: 0 };
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let i = 0; i < n; i++) {
+    lo = Math.min(lo, values[i]);
+    hi = Math.max(hi, values[i]);
+  }
+  if (hi === lo) return { edges: [lo, lo], counts: [n], n };
+  const width = (hi - lo) / bins;
+  const counts = new Array<number>(bins).fill(0);
+  for (let i = 0; i < n; i++) counts[Math.min(bins - 1, Math.floor((values[i] - lo) / width))]++;
+  const edges = Array.from({ length: bins + 1 }, (_, k) => lo + k * width);
+  return { edges, counts, n };
+}
+
+/** The empirical distribution function F(x) = share of values ≤ x, thinned to ~maxPoints. */
+export function empiricalCurve(values: ArrayLike<number>, maxPoints = 200): Point[] {
+  const sorted = Float64Array.from(values).sort();
+  const n = sorted.length;
+  if (n === 0) return [];
+  const step = Math.max(1, Math.floor(n / maxPoints));
+  const out: Point[] = [];
+  for (let i = step - 1; i < n; i += step) out.push({ x: sorted[i], y: (i + 1) / n });
+  if (out[out.length - 1].y !== 1) out.push({ x: sorted[n - 1], y: 1 });
+  return [{ x: sorted[0], y: 0 }, ...out];
+}
+
+const CURVE_KEYS: [PercentileKey, number][] = [
+  ['P5', 0.05],
+  ['P10', 0.1],
+  ['P20', 0.2],
+  ['P30', 0.3],
+  ['P40', 0.4],
+  ['P50', 0.5],
+  ['P60', 0.6],
+  ['P70', 0.7],
+  ['P80', 0.8],
+  ['P90', 0.9],
+  ['P95', 0.95],
+];
+
+/** The S-curve through the result's own percentiles (all iterations), from min to max. */
+export function percentileCurve(summary: TotalSummary): Point[] {
+  return [
+    { x: summary.min, y: 0 },
+    ...CURVE_KEYS.map(([k, p]) => ({ x: summary.percentiles[k], y: p })),
+    { x: summary.max, y: 1 },
+  ];
+}
+
+export const TABLE_KEYS: PercentileKey[] = [
+  'P5',
+  'P10',
+  'P20',
+  'P30',
+  'P40',
+  'P50',
+  'P60',
+  'P70',
+  'P80',
+  'P90',
+  'P95',
+];
+
+/** The percentile at a confidence level, and the contingency it implies over the base. */
+export function contingencyAt(summary: TotalSummary, level: ConfidenceLevel) {
+  const value = summary.percentiles[level];
+  return {
+    level,
+    value,
+    contingency: value - summary.base,
+    share: summary.base ? (value - summary.base) / summary.base : null,
+  };
+}
+
+/** The strongest drivers first, by the size of their rank correlation. */
+export function topDrivers(entries: SensitivityEntry[], count = 15): SensitivityEntry[] {
+  return [...entries]
+    .sort((a, b) => Math.abs(b.rankCorrelation) - Math.abs(a.rankCorrelation) || a.id.localeCompare(b.id))
+    .slice(0, count);
+}
+
+/** Share of sample points with cost ≤ costTarget and duration ≤ durationTarget. */
+export function shareWithin(
+  cost: number[],
+  duration: number[],
+  costTarget: number,
+  durationTarget: number,
+): number {
+  let k = 0;
+  for (let i = 0; i < cost.length; i++) if (cost[i] <= costTarget && duration[i] <= durationTarget) k++;
+  return cost.length ? k / cost.length : 0;
+}

@@ -1,0 +1,289 @@
+// The runs of a project: start, read, cancel, and the stored snapshot and result.
+
+import { randomInt } from 'node:crypto';
+import { Op, QueryTypes } from 'sequelize';
+import { SimulationRun, User, sequelize } from '@/models';
+import type { Actor } from '@/lib/auth/actor';
+import { can, type Action } from '@/lib/auth/roles';
+import { badRequest, conflict, forbidden, notFound } from '@/lib/errors';
+import { parseOrThrow } from '@/lib/validation/parse';
+import { MAX_SEED, runSettingsInputSchema, type RunSettings } from '@/lib/validation/runs';
+import { validateModel } from '@/lib/sim';
+import type { Model, SimulationResult } from '@/lib/sim/types';
+import { workingDaysThrough } from '@/lib/runs/working-days';
+import { snapshotHash } from '@/lib/runs/snapshot-hash';
+import { recordAudit } from '../audit';
+import { exportModel } from '../model-file';
+import { findProject } from '../projects';
+import { assertWritable } from '../write-access';
+import { abortActive, dequeue, isActive } from './queue';
+import { schedule } from './runner';
+import type { RunSample } from './sample';
+import { toRunView, type RunView } from './view';
+
+function assertMay(actor: Actor, action: Action) {
+  if (!can(actor.role, action)) throw forbidden();
+}
+
+const LIST_ATTRIBUTES = [
+  'id',
+  'organizationId',
+  'projectId',
+  'startedById',
+  'status',
+  'settings',
+  'progress',
+  'iterationsDone',
+  'failureReason',
+  'inputHash',
+  'summary',
+  'startedAt',
+  'finishedAt',
+  'createdAt',
+  'updatedAt',
+] as const;
+
+const withStarter = { model: User, as: 'startedBy', attributes: ['id', 'name'] };
+
+/** Place of each queued run in its organisation's queue (1 = next to start). */
+async function queuePositions(organizationId: number): Promise<Map<number, number>> {
+  const queued = await SimulationRun.findAll({
+    where: { organizationId, status: 'queued' },
+    attributes: ['id'],
+    order: [['id', 'ASC']],
+  });
+  return new Map(queued.map((r, i) => [r.id, i + 1]));
+}
+
+async function findRun(actor: Actor, projectId: number, runId: number, full = false): Promise<SimulationRun> {
+  const run = Number.isInteger(runId)
+    ? await SimulationRun.findOne({
+        where: { id: runId, projectId, organizationId: actor.organizationId },
+        attributes: full ? undefined : [...LIST_ATTRIBUTES],
+        include: [withStarter],
+      })
+    : null;
+  if (!run) throw notFound('Run');
+  return run;
+}
+
+async function viewOf(run: SimulationRun): Promise<RunView> {
+  const positions = run.status === 'queued' ? await queuePositions(run.organizationId) : new Map();
+  return toRunView(run, positions.get(run.id) ?? null);
+}
+
+/** The settings as stored: the seed drawn when none was given, the finish target in working days. */
+function resolveSettings(input: unknown, baseDate: string): RunSettings {
+  const data = parseOrThrow(runSettingsInputSchema, input ?? {});
+  if (data.finishTarget && data.finishTarget < baseDate) {
+    throw badRequest(`finishTarget: the finish target must be on or after the base date ${baseDate}.`, [
+      { path: 'finishTarget', message: `Must be on or after the project's base date, ${baseDate}.` },
+    ]);
+  }
+  return {
+    iterations: data.iterations,
+    seed: data.seed ?? randomInt(1, MAX_SEED + 1),
+    sampling: data.sampling,
+    riskValues: data.riskValues,
+    confidence: data.confidence,
+    costTarget: data.costTarget ?? null,
+    finishTarget: data.finishTarget ?? null,
+    durationTarget: data.finishTarget ? workingDaysThrough(baseDate, data.finishTarget) : null,
+    precision: data.precision ?? null,
+  };
+}
+
+/** The model file the run will read: the registers, the targets and the run's settings. */
+function snapshotOf(model: Model, settings: RunSettings): Model {
+  const targets: Model['targets'] = {};
+  if (settings.costTarget !== null) targets.cost = settings.costTarget;
+  if (settings.durationTarget !== null) targets.duration = settings.durationTarget;
+  return {
+    ...model,
+    ...(Object.keys(targets).length ? { targets } : {}),
+    settings: { iterations: settings.iterations, seed: settings.seed, sampling: settings.sampling },
+  };
+}
+
+export async function startRun(actor: Actor, projectId: number, input: unknown): Promise<RunView> {
+  assertMay(actor, 'run:start');
+  const project = await findProject(actor, projectId);
+  const settings = resolveSettings(input, project.baseDate);
+  await assertWritable(actor.organizationId);
+  const model = await exportModel(actor, project.id, { riskValues: settings.riskValues });
+  if (model.items.length === 0 && (model.risks ?? []).length === 0 && (model.activities ?? []).length === 0) {
+    throw badRequest('There is nothing to simulate yet: add line items, risk events or activities first.');
+  }
+  const snapshot = snapshotOf(model, settings);
+  const checked = validateModel(snapshot);
+  if (!checked.ok) {
+    const shown = checked.issues.slice(0, 5).map((i) => `${i.path}: ${i.message}`);
+    const more = checked.issues.length > 5 ? ` (and ${checked.issues.length - 5} more)` : '';
+    throw badRequest(`The registers cannot be simulated yet. ${shown.join('; ')}${more}`, checked.issues);
+  }
+  const run = await sequelize.transaction(async (transaction) => {
+    const created = await SimulationRun.create(
+      {
+        organizationId: actor.organizationId,
+        projectId: project.id,
+        startedById: actor.userId,
+        settings,
+        inputSnapshot: JSON.stringify(snapshot),
+        inputHash: snapshotHash(snapshot),
+      },
+      { transaction },
+    );
+    await recordAudit(
+      actor,
+      {
+        entity: 'run',
+        entityId: created.id,
+        projectId: project.id,
+        action: 'start',
+        before: null,
+        after: settings,
+      },
+      transaction,
+    );
+    return created;
+  });
+  schedule({ runId: run.id, organizationId: actor.organizationId });
+  return viewOf(await findRun(actor, project.id, run.id));
+}
+
+export async function listRuns(actor: Actor, projectId: number, { limit = 100 } = {}): Promise<RunView[]> {
+  assertMay(actor, 'run:read');
+  const project = await findProject(actor, projectId);
+  const [runs, positions] = await Promise.all([
+    SimulationRun.findAll({
+      where: { projectId: project.id, organizationId: actor.organizationId },
+      attributes: [...LIST_ATTRIBUTES],
+      include: [withStarter],
+      order: [['id', 'DESC']],
+      limit,
+    }),
+    queuePositions(actor.organizationId),
+  ]);
+  return runs.map((r) => toRunView(r, positions.get(r.id) ?? null));
+}
+
+export async function getRun(actor: Actor, projectId: number, runId: number): Promise<RunView> {
+  assertMay(actor, 'run:read');
+  const project = await findProject(actor, projectId);
+  return viewOf(await findRun(actor, project.id, runId));
+}
+
+export type RunOutcome = {
+  run: RunView;
+  result: SimulationResult;
+  sample: RunSample | null;
+  snapshot: Model;
+};
+
+/** The stored result of a run that succeeded (409 while it has none). */
+export async function getRunOutcome(actor: Actor, projectId: number, runId: number): Promise<RunOutcome> {
+  assertMay(actor, 'run:read');
+  const project = await findProject(actor, projectId);
+  const run = await findRun(actor, project.id, runId, true);
+  if (run.status !== 'succeeded' || !run.result) {
+    throw conflict(`Run ${run.id} has no result: it is ${run.status}.`, { status: run.status });
+  }
+  return {
+    run: await viewOf(run),
+    result: JSON.parse(run.result) as SimulationResult,
+    sample: run.resultSample ? (JSON.parse(run.resultSample) as RunSample) : null,
+    snapshot: JSON.parse(run.inputSnapshot) as Model,
+  };
+}
+
+/** The model file a run read, exactly as stored, for download and for reproducing the run. */
+export async function getRunSnapshot(
+  actor: Actor,
+  projectId: number,
+  runId: number,
+): Promise<{ run: RunView; snapshot: Model; projectCode: string }> {
+  assertMay(actor, 'run:read');
+  const project = await findProject(actor, projectId);
+  const run = await findRun(actor, project.id, runId, true);
+  return {
+    run: await viewOf(run),
+    snapshot: JSON.parse(run.inputSnapshot) as Model,
+    projectCode: project.code,
+  };
+}
+
+export async function cancelRun(actor: Actor, projectId: number, runId: number): Promise<RunView> {
+  assertMay(actor, 'run:cancel');
+  const project = await findProject(actor, projectId);
+  const run = await findRun(actor, project.id, runId);
+  await assertWritable(actor.organizationId);
+  if (run.status !== 'queued' && run.status !== 'running') {
+    throw conflict(`Run ${run.id} is already ${run.status}; only a queued or running run can be cancelled.`, {
+      status: run.status,
+    });
+  }
+  dequeue(run.id);
+  if (isActive(run.id)) await abortActive(run.id);
+  await sequelize.transaction(async (transaction) => {
+    // A queued run, or one this process no longer executes, is cancelled here; an active one
+    // was marked by its runner when the engine stopped.
+    await SimulationRun.update(
+      { status: 'cancelled', finishedAt: new Date() },
+      { where: { id: run.id, status: { [Op.in]: ['queued', 'running'] } }, transaction },
+    );
+    await recordAudit(
+      actor,
+      {
+        entity: 'run',
+        entityId: run.id,
+        projectId: project.id,
+        action: 'cancel',
+        before: run.status,
+        after: 'cancelled',
+      },
+      transaction,
+    );
+  });
+  return viewOf(await findRun(actor, project.id, run.id));
+}
+
+export type LatestRunSummary = {
+  runId: number;
+  finishedAt: string | null;
+  costP50: number;
+  costP80: number;
+  durationP50: number | null;
+  durationP80: number | null;
+};
+
+/** The latest successful run of each project (for the projects list); absent when none. */
+export async function latestRunSummaries(
+  actor: Actor,
+  projectIds: number[],
+): Promise<Record<number, LatestRunSummary>> {
+  if (!can(actor.role, 'run:read') || projectIds.length === 0) return {};
+  const latest = await sequelize.query<{ id: number }>(
+    `SELECT MAX(id) AS id FROM SimulationRuns
+      WHERE organizationId = ? AND status = 'succeeded' AND projectId IN (?)
+      GROUP BY projectId`,
+    { replacements: [actor.organizationId, projectIds], type: QueryTypes.SELECT },
+  );
+  if (latest.length === 0) return {};
+  const runs = await SimulationRun.findAll({
+    where: { id: latest.map((r) => Number(r.id)), organizationId: actor.organizationId },
+    attributes: ['id', 'projectId', 'summary', 'finishedAt'],
+  });
+  const out: Record<number, LatestRunSummary> = {};
+  for (const r of runs) {
+    if (!r.summary) continue;
+    out[r.projectId] = {
+      runId: r.id,
+      finishedAt: r.finishedAt ? new Date(r.finishedAt).toISOString() : null,
+      costP50: r.summary.cost.P50,
+      costP80: r.summary.cost.P80,
+      durationP50: r.summary.duration?.P50 ?? null,
+      durationP80: r.summary.duration?.P80 ?? null,
+    };
+  }
+  return out;
+}

@@ -1,0 +1,82 @@
+import { describe, expect, it } from 'vitest';
+import {
+  contingencyAt,
+  empiricalCurve,
+  histogram,
+  percentileCurve,
+  shareWithin,
+  topDrivers,
+} from '@/lib/runs/outcome-data';
+import type { TotalSummary } from '@/lib/sim/types';
+
+describe('chart data shaping', () => {
+  it('bins values into equal-width bins that hold every value once', () => {
+    const values = [0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10];
+    const h = histogram(values, 5);
+    expect(h.edges).toEqual([0, 2, 4, 6, 8, 10]);
+    // [0,2) [2,4) [4,6) [6,8) [8,10]: the maximum falls in the last bin.
+    expect(h.counts).toEqual([2, 2, 2, 2, 3]);
+    expect(h.counts.reduce((a, b) => a + b, 0)).toBe(values.length);
+  });
+
+  it('draws the empirical S-curve from 0 to 1, rising', () => {
+    const values = Array.from({ length: 1000 }, (_, i) => (i * 7919) % 1000);
+    const curve = empiricalCurve(values, 100);
+    expect(curve[0]).toEqual({ x: 0, y: 0 });
+    expect(curve[curve.length - 1]).toEqual({ x: 999, y: 1 });
+    for (let i = 1; i < curve.length; i++) {
+      expect(curve[i].x).toBeGreaterThanOrEqual(curve[i - 1].x);
+      expect(curve[i].y).toBeGreaterThan(curve[i - 1].y);
+    }
+    // F(x) of 0…999 is (x + 1)/1000 at each sampled point.
+    for (const p of curve.slice(1)) expect(p.y).toBeCloseTo((p.x + 1) / 1000, 12);
+  });
+
+  const summary = {
+    base: 100,
+    mean: 0,
+    sd: 0,
+    min: 80,
+    max: 200,
+    percentiles: {
+      P5: 90,
+      P10: 95,
+      P20: 100,
+      P30: 105,
+      P40: 110,
+      P50: 115,
+      P60: 120,
+      P70: 126,
+      P80: 133,
+      P90: 145,
+      P95: 160,
+    },
+    percentileCI95: { P10: [94, 96], P50: [114, 116], P80: [132, 134], P90: [144, 146] },
+    contingency: { P50: 15, P80: 33, P90: 45 },
+  } as TotalSummary;
+
+  it('takes contingency as the percentile over the base, at each confidence level', () => {
+    expect(contingencyAt(summary, 'P80')).toEqual({ level: 'P80', value: 133, contingency: 33, share: 0.33 });
+    expect(contingencyAt(summary, 'P70').contingency).toBe(26);
+    expect(percentileCurve(summary).map((p) => p.y)).toEqual([
+      0, 0.05, 0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.7, 0.8, 0.9, 0.95, 1,
+    ]);
+  });
+
+  it('keeps the 15 strongest drivers by absolute rank correlation', () => {
+    const entries = Array.from({ length: 20 }, (_, i) => ({
+      id: `C${i}`,
+      rankCorrelation: (i % 2 ? -1 : 1) * i * 0.01,
+      varianceShare: 0,
+    }));
+    const top = topDrivers(entries);
+    expect(top).toHaveLength(15);
+    expect(top[0].id).toBe('C19');
+    expect(top[0].rankCorrelation).toBeCloseTo(-0.19, 12);
+    expect(top.map((t) => t.id)).not.toContain('C4');
+  });
+
+  it('counts the share of points within both targets', () => {
+    expect(shareWithin([1, 2, 3, 4], [10, 30, 20, 40], 3, 25)).toBe(0.5);
+  });
+});
