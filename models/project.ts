@@ -19,6 +19,8 @@ export class Project extends Model<InferAttributes<Project>, InferCreationAttrib
   declare stage: string;
   declare baseDate: string;
   declare description: CreationOptional<string | null>;
+  declare assumptions: CreationOptional<string | null>;
+  declare exclusions: CreationOptional<string | null>;
   declare archivedAt: CreationOptional<Date | null>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
@@ -35,6 +37,8 @@ Project.init(
     stage: { type: DataTypes.STRING(40), allowNull: false, defaultValue: 'Concept' },
     baseDate: { type: DataTypes.DATEONLY, allowNull: false },
     description: { type: DataTypes.TEXT, allowNull: true },
+    assumptions: { type: DataTypes.TEXT, allowNull: true },
+    exclusions: { type: DataTypes.TEXT, allowNull: true },
     archivedAt: { type: DataTypes.DATE, allowNull: true },
     version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
     createdAt: DataTypes.DATE,

@@ -1,0 +1,134 @@
+/**
+ * Geometry of the brief's two charts (S-curve and tornado) in plain coordinates, shared by
+ * the SVG on the page and the vector drawing in the PDF so that both show the same picture.
+ * y grows downwards, as in SVG and PDF page space.
+ */
+
+export type Box = { x: number; y: number; width: number; height: number };
+export type Tick = { value: number; at: number };
+
+/**
+ * About `count` round tick values covering [min, max]: steps of 1, 2 or 5 × 10^k, the usual
+ * "nice numbers" choice (Heckbert, "Nice numbers for graph labels", Graphics Gems, 1990).
+ */
+export function niceTicks(min: number, max: number, count = 5): number[] {
+  if (!Number.isFinite(min) || !Number.isFinite(max)) return [];
+  if (max < min) [min, max] = [max, min];
+  if (max === min) {
+    const pad = Math.abs(min) * 0.05 || 1;
+    min -= pad;
+    max += pad;
+  }
+  const raw = (max - min) / Math.max(1, count);
+  const magnitude = 10 ** Math.floor(Math.log10(raw));
+  const step = [1, 2, 5, 10].map((m) => m * magnitude).find((s) => s >= raw) ?? 10 * magnitude;
+  const first = Math.floor(min / step) * step;
+  const ticks: number[] = [];
+  for (let v = first; v <= max + step * 1e-9; v += step) ticks.push(Number(v.toPrecision(12)));
+  if (ticks[ticks.length - 1] < max) ticks.push(Number((ticks[ticks.length - 1] + step).toPrecision(12)));
+  return ticks;
+}
+
+/** A linear map from [d0, d1] onto [r0, r1]. */
+export function linearScale(d0: number, d1: number, r0: number, r1: number) {
+  const span = d1 - d0 || 1;
+  return (v: number) => r0 + ((v - d0) / span) * (r1 - r0);
+}
+
+export type SCurveGeometry = {
+  /** The plotting area inside the box (axes run along its left and bottom edges). */
+  plot: Box;
+  line: { x: number; y: number }[];
+  xTicks: Tick[];
+  yTicks: Tick[];
+  /** Vertical guides at chosen values (e.g. base, P80, the target), clipped to the plot. */
+  markers: { label: string; value: number; at: number }[];
+};
+
+/**
+ * The cumulative curve: x the amount, y the share of outcomes at or below it (0–1).
+ * `margin` leaves room for tick labels on the left and below.
+ */
+export function sCurveGeometry(
+  points: { x: number; y: number }[],
+  box: Box,
+  markers: { label: string; value: number }[] = [],
+  margin = { left: 44, bottom: 22, top: 8, right: 10 },
+): SCurveGeometry {
+  const plot: Box = {
+    x: box.x + margin.left,
+    y: box.y + margin.top,
+    width: box.width - margin.left - margin.right,
+    height: box.height - margin.top - margin.bottom,
+  };
+  const xs = [...points.map((p) => p.x), ...markers.map((m) => m.value)].filter(Number.isFinite);
+  const ticks = niceTicks(Math.min(...xs), Math.max(...xs), 5);
+  const x0 = ticks[0] ?? 0;
+  const x1 = ticks[ticks.length - 1] ?? 1;
+  const sx = linearScale(x0, x1, plot.x, plot.x + plot.width);
+  const sy = linearScale(0, 1, plot.y + plot.height, plot.y);
+  return {
+    plot,
+    line: points.map((p) => ({ x: sx(p.x), y: sy(p.y) })),
+    xTicks: ticks.map((value) => ({ value, at: sx(value) })),
+    yTicks: [0, 0.2, 0.4, 0.6, 0.8, 1].map((value) => ({ value, at: sy(value) })),
+    markers: markers.filter((m) => m.value >= x0 && m.value <= x1).map((m) => ({ ...m, at: sx(m.value) })),
+  };
+}
+
+export type TornadoBar = {
+  label: string;
+  value: number;
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+};
+
+export type TornadoGeometry = {
+  plot: Box;
+  /** x of the zero line. */
+  zero: number;
+  bars: TornadoBar[];
+  ticks: Tick[];
+};
+
+/**
+ * Horizontal bars from a zero line, one row per driver in the given order; the axis is
+ * symmetric and runs to the largest |value| rounded up to a tenth (values are rank
+ * correlations in [−1, 1]). `labelWidth` leaves room for the names on the left.
+ */
+export function tornadoGeometry(
+  drivers: { label: string; value: number }[],
+  box: Box,
+  labelWidth = 150,
+  bottom = 20,
+): TornadoGeometry {
+  const plot: Box = {
+    x: box.x + labelWidth,
+    y: box.y,
+    width: box.width - labelWidth - 8,
+    height: box.height - bottom,
+  };
+  const largest = Math.max(0.1, ...drivers.map((d) => Math.abs(d.value)));
+  const limit = Math.min(1, Math.ceil(largest * 10 - 1e-9) / 10);
+  const sx = linearScale(-limit, limit, plot.x, plot.x + plot.width);
+  const zero = sx(0);
+  const row = drivers.length ? plot.height / drivers.length : 0;
+  const bars = drivers.map((d, i) => {
+    const end = sx(Math.max(-limit, Math.min(limit, d.value)));
+    return {
+      label: d.label,
+      value: d.value,
+      x: Math.min(zero, end),
+      y: plot.y + i * row + row * 0.15,
+      width: Math.abs(end - zero),
+      height: row * 0.7,
+    };
+  });
+  const ticks = [-limit, -limit / 2, 0, limit / 2, limit].map((value) => ({
+    value: Number(value.toPrecision(6)),
+    at: sx(value),
+  }));
+  return { plot, zero, bars, ticks };
+}

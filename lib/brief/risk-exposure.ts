@@ -1,0 +1,48 @@
+/**
+ * The risk events of a run's input, ranked by expected cost: probability × mean cost impact.
+ *
+ *   E[cost of risk i] = p_i · E[impact_i]
+ *
+ * (the expected value of a Bernoulli(p) occurrence times an independent impact). Read from the
+ * run's input snapshot, not the live register, so that the brief matches the run it reports.
+ */
+import { createDistribution } from '@/lib/sim/distributions';
+import type { DistSpec, Model } from '@/lib/sim/types';
+
+export type RiskExposure = {
+  id: string;
+  name: string;
+  probability: number;
+  /** Mean cost if the event occurs (0 when it has no cost impact). */
+  meanCost: number;
+  /** probability × meanCost. */
+  expectedCost: number;
+  /** Mean delay in working days if it occurs, when it has a delay impact. */
+  meanDelay: number | null;
+};
+
+function meanOf(spec: DistSpec | undefined, where: string, field: string): number | null {
+  if (!spec) return null;
+  return createDistribution(spec, { where, field }).mean;
+}
+
+/** Every risk of the model with its expected cost, the largest first (ties by id). */
+export function riskExposures(model: Pick<Model, 'risks'>): RiskExposure[] {
+  return (model.risks ?? [])
+    .map((r) => {
+      const meanCost = meanOf(r.cost, `risks.${r.id}`, 'cost') ?? 0;
+      return {
+        id: r.id,
+        name: r.name ?? r.id,
+        probability: r.probability,
+        meanCost,
+        expectedCost: r.probability * meanCost,
+        meanDelay: meanOf(r.delay, `risks.${r.id}`, 'delay'),
+      };
+    })
+    .sort((a, b) => b.expectedCost - a.expectedCost || a.id.localeCompare(b.id));
+}
+
+export function topRiskExposures(model: Pick<Model, 'risks'>, count = 8): RiskExposure[] {
+  return riskExposures(model).slice(0, count);
+}

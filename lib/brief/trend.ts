@@ -1,0 +1,57 @@
+/**
+ * The approved baselines of a project in date order, as the trend chart and its table read
+ * them. Contingency is measured at P80 for every baseline (P80 − base), so that the drawdown
+ * compares like with like even when runs were started to fund at different levels.
+ */
+import type { SimulationResult } from '@/lib/sim/types';
+
+export type BaselineSource = {
+  approvalId: number;
+  runId: number;
+  decidedAt: string;
+  stage: string;
+  estimateClass: number;
+  sponsorName: string;
+  result: Pick<SimulationResult, 'cost'>;
+};
+
+export type TrendRow = {
+  approvalId: number;
+  runId: number;
+  decidedAt: string;
+  stage: string;
+  estimateClass: number;
+  sponsorName: string;
+  base: number;
+  p50: number;
+  p80: number;
+  contingencyP80: number;
+  /** Change of the P80 contingency since the previous baseline (null for the first). */
+  contingencyChange: number | null;
+};
+
+export function trendRows(baselines: BaselineSource[]): TrendRow[] {
+  const ordered = [...baselines].sort(
+    (a, b) => a.decidedAt.localeCompare(b.decidedAt) || a.approvalId - b.approvalId,
+  );
+  let previous: number | null = null;
+  return ordered.map((b) => {
+    const { base, percentiles } = b.result.cost;
+    const contingencyP80 = percentiles.P80 - base;
+    const row: TrendRow = {
+      approvalId: b.approvalId,
+      runId: b.runId,
+      decidedAt: b.decidedAt,
+      stage: b.stage,
+      estimateClass: b.estimateClass,
+      sponsorName: b.sponsorName,
+      base,
+      p50: percentiles.P50,
+      p80: percentiles.P80,
+      contingencyP80,
+      contingencyChange: previous === null ? null : contingencyP80 - previous,
+    };
+    previous = contingencyP80;
+    return row;
+  });
+}

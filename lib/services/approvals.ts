@@ -1,0 +1,210 @@
+/**
+ * Sponsors' decisions on runs: approve a run as the project's baseline, or return it with a
+ * comment. A decision is written once and never changed: there is no update, and a second
+ * decision on the same run is refused (409), by this check and by the table's unique key.
+ */
+import { UniqueConstraintError } from 'sequelize';
+import { z } from 'zod';
+import { Approval, SimulationRun, sequelize } from '@/models';
+import { DECISIONS, type Decision } from '@/models/approval';
+import type { Actor } from '@/lib/auth/actor';
+import { can } from '@/lib/auth/roles';
+import { conflict, forbidden, notFound } from '@/lib/errors';
+import { parseOrThrow } from '@/lib/validation/parse';
+import { notifyDecision, recipientsWithRole } from '@/lib/mail';
+import { moneyWithInterval } from '@/lib/brief/format';
+import { trendRows, type TrendRow } from '@/lib/brief/trend';
+import type { SimulationResult } from '@/lib/sim/types';
+import { recordAudit } from './audit';
+import { findProject } from './projects';
+
+export const COMMENT_MAX_LENGTH = 4000;
+
+export type DecisionView = {
+  id: number;
+  runId: number;
+  decision: Decision;
+  comment: string;
+  sponsorName: string;
+  stage: string;
+  estimateClass: number;
+  decidedAt: string;
+};
+
+export function toDecisionView(a: Approval): DecisionView {
+  return {
+    id: a.id,
+    runId: a.runId,
+    decision: a.decision,
+    comment: a.comment,
+    sponsorName: a.sponsorName,
+    stage: a.stage,
+    estimateClass: a.estimateClass,
+    decidedAt: new Date(a.createdAt).toISOString(),
+  };
+}
+
+export const decisionSchema = z
+  .object({
+    runId: z.number({ message: 'Say which run (runId) the decision is on.' }).int().positive(),
+    decision: z.enum(DECISIONS, { message: 'The decision is "approved" or "returned".' }),
+    comment: z
+      .string({ message: 'The comment must be text.' })
+      .max(COMMENT_MAX_LENGTH, {
+        message: `The comment may be at most ${COMMENT_MAX_LENGTH.toLocaleString('en')} characters.`,
+      })
+      .optional()
+      .default('')
+      .transform((v) => v.trim()),
+  })
+  .superRefine((d, ctx) => {
+    // The estimators need to know what to rework: a return without a reason helps nobody.
+    if (d.decision === 'returned' && !d.comment)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['comment'],
+        message: 'Say why the run is returned, so that it can be reworked.',
+      });
+  });
+
+function assertMayRead(actor: Actor) {
+  if (!can(actor.role, 'project:read')) throw forbidden();
+}
+
+/** A project's decisions, newest first. */
+export async function listDecisions(actor: Actor, projectId: number): Promise<DecisionView[]> {
+  assertMayRead(actor);
+  const project = await findProject(actor, projectId);
+  const rows = await Approval.findAll({
+    where: { projectId: project.id, organizationId: actor.organizationId },
+    order: [
+      ['createdAt', 'DESC'],
+      ['id', 'DESC'],
+    ],
+  });
+  return rows.map(toDecisionView);
+}
+
+export async function getDecision(
+  actor: Actor,
+  projectId: number,
+  decisionId: number,
+): Promise<DecisionView> {
+  assertMayRead(actor);
+  const project = await findProject(actor, projectId);
+  const row = await Approval.findOne({
+    where: { id: decisionId, projectId: project.id, organizationId: actor.organizationId },
+  });
+  if (!row) throw notFound('Decision');
+  return toDecisionView(row);
+}
+
+/** The decision on one run, or null while it awaits one. */
+export async function decisionOnRun(
+  actor: Actor,
+  projectId: number,
+  runId: number,
+): Promise<DecisionView | null> {
+  assertMayRead(actor);
+  const row = await Approval.findOne({ where: { runId, projectId, organizationId: actor.organizationId } });
+  return row ? toDecisionView(row) : null;
+}
+
+/** Records a sponsor's decision on a succeeded run and tells the project's estimators. */
+export async function decideOnRun(actor: Actor, projectId: number, input: unknown): Promise<DecisionView> {
+  if (!can(actor.role, 'baseline:decide')) throw forbidden('Only sponsors and owners decide on a baseline.');
+  const data = parseOrThrow(decisionSchema, input);
+  const project = await findProject(actor, projectId);
+  const run = await SimulationRun.findOne({
+    where: { id: data.runId, projectId: project.id, organizationId: actor.organizationId },
+    attributes: ['id', 'status', 'result'],
+  });
+  if (!run) throw notFound('Run');
+  if (run.status !== 'succeeded' || !run.result)
+    throw conflict(`Run ${run.id} is ${run.status}: only a run that succeeded can be decided on.`);
+  const earlier = await Approval.findOne({ where: { runId: run.id }, attributes: ['id'] });
+  if (earlier) throw conflict(`Run ${run.id} already has a decision; a decision cannot be changed.`);
+
+  const result = JSON.parse(run.result) as SimulationResult;
+  try {
+    return await sequelize.transaction(async (transaction) => {
+      const approval = await Approval.create(
+        {
+          organizationId: actor.organizationId,
+          projectId: project.id,
+          runId: run.id,
+          sponsorId: actor.userId,
+          sponsorName: actor.name,
+          decision: data.decision,
+          comment: data.comment,
+          stage: project.stage,
+          estimateClass: project.estimateClass,
+        },
+        { transaction },
+      );
+      const view = toDecisionView(approval);
+      await recordAudit(
+        actor,
+        {
+          entity: 'approval',
+          entityId: approval.id,
+          projectId: project.id,
+          action: data.decision,
+          before: null,
+          after: view,
+        },
+        transaction,
+      );
+      // Queued in the same transaction: the mail goes if, and only if, the decision is kept.
+      await notifyDecision(
+        {
+          projectId: project.id,
+          projectName: project.name,
+          runId: run.id,
+          decision: data.decision,
+          comment: data.comment,
+          decidedByName: actor.name,
+          p80Text: moneyWithInterval(
+            result.cost.percentiles.P80,
+            result.cost.percentileCI95.P80,
+            project.currency,
+          ),
+          estimators: await recipientsWithRole(actor.organizationId, ['estimator'], transaction),
+        },
+        transaction,
+      );
+      return view;
+    });
+  } catch (error) {
+    if (error instanceof UniqueConstraintError)
+      throw conflict(`Run ${run.id} already has a decision; a decision cannot be changed.`);
+    throw error;
+  }
+}
+
+/** The approved baselines in date order with their figures, for the trend. */
+export async function listBaselines(actor: Actor, projectId: number): Promise<TrendRow[]> {
+  assertMayRead(actor);
+  const project = await findProject(actor, projectId);
+  const approvals = await Approval.findAll({
+    where: { projectId: project.id, organizationId: actor.organizationId, decision: 'approved' },
+    include: [{ model: SimulationRun, as: 'run', attributes: ['id', 'result'] }],
+    order: [
+      ['createdAt', 'ASC'],
+      ['id', 'ASC'],
+    ],
+  });
+  return trendRows(
+    approvals
+      .filter((a) => a.run?.result)
+      .map((a) => ({
+        approvalId: a.id,
+        runId: a.runId,
+        decidedAt: new Date(a.createdAt).toISOString(),
+        stage: a.stage,
+        estimateClass: a.estimateClass,
+        sponsorName: a.sponsorName,
+        result: JSON.parse(a.run!.result!) as SimulationResult,
+      })),
+  );
+}

@@ -1,0 +1,115 @@
+/**
+ * The brief of a run: one read that gathers the run's stored result and input snapshot, the
+ * project's notes and the decision, and one write that puts the brief before the sponsors.
+ */
+import { AuditEntry, User, sequelize } from '@/models';
+import type { Actor } from '@/lib/auth/actor';
+import { can } from '@/lib/auth/roles';
+import { conflict, forbidden } from '@/lib/errors';
+import { notifyBriefReady, recipientsWithRole } from '@/lib/mail';
+import { buildBrief, percentileOf, type BriefData } from '@/lib/brief/build';
+import { moneyWithInterval } from '@/lib/brief/format';
+import { decisionOnRun } from './approvals';
+import { recordAudit } from './audit';
+import { findProject } from './projects';
+import { getRunOutcome } from './runs';
+
+const SENT_ACTION = 'request-decision';
+
+/** When the brief was last put before the sponsors, and by whom (from the audit trail). */
+async function lastSent(actor: Actor, projectId: number, runId: number) {
+  const entry = await AuditEntry.findOne({
+    where: {
+      organizationId: actor.organizationId,
+      projectId,
+      entity: 'brief',
+      entityId: String(runId),
+      action: SENT_ACTION,
+    },
+    include: [{ model: User, as: 'user', attributes: ['name'] }],
+    order: [['id', 'DESC']],
+  });
+  if (!entry) return null;
+  const user = (entry as AuditEntry & { user?: { name: string } }).user;
+  return { at: new Date(entry.createdAt).toISOString(), byName: user?.name ?? 'A former member' };
+}
+
+export async function getBrief(actor: Actor, projectId: number, runId: number): Promise<BriefData> {
+  if (!can(actor.role, 'brief:read')) throw forbidden();
+  const project = await findProject(actor, projectId);
+  const outcome = await getRunOutcome(actor, project.id, runId);
+  const [decision, sentForDecision] = await Promise.all([
+    decisionOnRun(actor, project.id, runId),
+    lastSent(actor, project.id, runId),
+  ]);
+  return buildBrief({
+    project: {
+      id: project.id,
+      name: project.name,
+      code: project.code,
+      currency: project.currency,
+      stage: project.stage,
+      estimateClass: project.estimateClass,
+      assumptions: project.assumptions ?? null,
+      exclusions: project.exclusions ?? null,
+    },
+    run: {
+      id: outcome.run.id,
+      inputHash: outcome.run.inputHash,
+      startedByName: outcome.run.startedBy?.name ?? null,
+      startedAt: outcome.run.startedAt ?? outcome.run.createdAt,
+      finishedAt: outcome.run.finishedAt,
+      confidence: outcome.run.settings?.confidence ?? null,
+      finishTarget: outcome.run.settings?.finishTarget ?? null,
+    },
+    result: outcome.result,
+    snapshot: outcome.snapshot,
+    decision,
+    sentForDecision,
+  });
+}
+
+/**
+ * Tells the organisation's sponsors that the brief awaits their decision. Refused once the
+ * run has a decision, and when there is no sponsor to tell.
+ */
+export async function sendBriefToSponsors(
+  actor: Actor,
+  projectId: number,
+  runId: number,
+): Promise<{ sponsors: number; sentAt: string }> {
+  if (!can(actor.role, 'project:write')) throw forbidden('Estimators and owners put a brief forward.');
+  const brief = await getBrief(actor, projectId, runId);
+  if (brief.decision)
+    throw conflict(`Run ${runId} was already ${brief.decision.decision} by ${brief.decision.sponsorName}.`);
+  const p80 = percentileOf(brief.cost, 'P80');
+  return sequelize.transaction(async (transaction) => {
+    const sponsors = await recipientsWithRole(actor.organizationId, ['sponsor'], transaction);
+    if (!sponsors.length)
+      throw conflict('There is no sponsor in this organisation yet: invite one from Members first.');
+    await notifyBriefReady(
+      {
+        projectId: brief.project.id,
+        projectName: brief.project.name,
+        runId,
+        p80Text: moneyWithInterval(p80.value, p80.ci95, brief.project.currency),
+        preparedByName: actor.name,
+        sponsors,
+      },
+      transaction,
+    );
+    await recordAudit(
+      actor,
+      {
+        entity: 'brief',
+        entityId: runId,
+        projectId: brief.project.id,
+        action: SENT_ACTION,
+        before: null,
+        after: { sponsors: sponsors.map((s) => s.email) },
+      },
+      transaction,
+    );
+    return { sponsors: sponsors.length, sentAt: new Date().toISOString() };
+  });
+}

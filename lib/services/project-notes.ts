@@ -1,0 +1,66 @@
+// The assumptions and exclusions of a project: free text that estimators keep and every brief prints.
+import { z } from 'zod';
+import { sequelize } from '@/models';
+import type { Actor } from '@/lib/auth/actor';
+import { can } from '@/lib/auth/roles';
+import { forbidden } from '@/lib/errors';
+import { parseOrThrow } from '@/lib/validation/parse';
+import { recordAudit } from './audit';
+import { findProject } from './projects';
+import { assertWritable } from './write-access';
+
+export const NOTES_MAX_LENGTH = 8000;
+
+export type ProjectNotes = { assumptions: string | null; exclusions: string | null };
+
+const noteField = (label: string) =>
+  z
+    .string({ message: `${label} must be text.` })
+    .max(NOTES_MAX_LENGTH, {
+      message: `${label} may be at most ${NOTES_MAX_LENGTH.toLocaleString('en')} characters.`,
+    })
+    .nullable()
+    .optional()
+    // Blank text means "none stated"; it is stored as null so that the brief can say so.
+    .transform((v) => (v && v.trim() ? v.trim() : null));
+
+export const projectNotesSchema = z.object({
+  assumptions: noteField('Assumptions'),
+  exclusions: noteField('Exclusions'),
+});
+
+export async function getProjectNotes(actor: Actor, projectId: number): Promise<ProjectNotes> {
+  const project = await findProject(actor, projectId);
+  return { assumptions: project.assumptions ?? null, exclusions: project.exclusions ?? null };
+}
+
+export async function updateProjectNotes(
+  actor: Actor,
+  projectId: number,
+  input: unknown,
+): Promise<ProjectNotes> {
+  if (!can(actor.role, 'project:write')) throw forbidden();
+  const notes = parseOrThrow(projectNotesSchema, input);
+  const project = await findProject(actor, projectId);
+  await assertWritable(actor.organizationId);
+  return sequelize.transaction(async (transaction) => {
+    const before: ProjectNotes = {
+      assumptions: project.assumptions ?? null,
+      exclusions: project.exclusions ?? null,
+    };
+    await project.update(notes, { transaction });
+    await recordAudit(
+      actor,
+      {
+        entity: 'project-notes',
+        entityId: project.id,
+        projectId: project.id,
+        action: 'update',
+        before,
+        after: notes,
+      },
+      transaction,
+    );
+    return notes;
+  });
+}
