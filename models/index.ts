@@ -17,6 +17,7 @@ import { WebhookEvent } from './webhook-event';
 import { OutboundMessage } from './outbound-message';
 import { NotificationPreference } from './notification-preference';
 import { PasswordResetToken } from './password-reset-token';
+import { Approval } from './approval';
 
 Organization.hasMany(Membership, { foreignKey: 'organizationId', as: 'memberships' });
 Membership.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
@@ -59,6 +60,11 @@ SimulationRun.belongsTo(Project, { foreignKey: 'projectId', as: 'project' });
 SimulationRun.belongsTo(User, { foreignKey: 'startedById', as: 'startedBy' });
 Project.hasMany(SimulationRun, { foreignKey: 'projectId', as: 'runs' });
 
+Approval.belongsTo(Project, { foreignKey: 'projectId', as: 'project' });
+Approval.belongsTo(SimulationRun, { foreignKey: 'runId', as: 'run' });
+Approval.belongsTo(User, { foreignKey: 'sponsorId', as: 'sponsor' });
+Project.hasMany(Approval, { foreignKey: 'projectId', as: 'approvals' });
+
 export {
   Subscription,
   Invoice,
@@ -78,4 +84,5 @@ export {
   Project,
   AuditEntry,
   SimulationRun,
+  Approval,
 };
