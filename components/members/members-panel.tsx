@@ -1,6 +1,7 @@
 'use client';
 
 import { useState } from 'react';
+import Link from 'next/link';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
@@ -20,9 +21,16 @@ function failureText(e: unknown) {
   return e instanceof ApiError ? e.failure.message : 'The server could not be reached. Try again.';
 }
 
+/** A refusal that points somewhere to fix it (all paid seats taken → billing). */
+type Problem = { message: string; link?: string };
+function problemOf(e: unknown): Problem {
+  const details = e instanceof ApiError ? (e.failure.details as { link?: unknown } | undefined) : undefined;
+  return { message: failureText(e), link: typeof details?.link === 'string' ? details.link : undefined };
+}
+
 export function MembersPanel({ selfUserId }: { selfUserId: number }) {
   const queryClient = useQueryClient();
-  const [problem, setProblem] = useState<string | null>(null);
+  const [problem, setProblem] = useState<Problem | null>(null);
   const members = useQuery({
     queryKey: ['members'],
     queryFn: () => callApi<{ members: MemberView[] }>('/api/members'),
@@ -36,7 +44,7 @@ export function MembersPanel({ selfUserId }: { selfUserId: number }) {
       queryClient.invalidateQueries({ queryKey: ['members'] }),
       queryClient.invalidateQueries({ queryKey: ['invitations'] }),
     ]);
-  const onError = (e: unknown) => setProblem(failureText(e));
+  const onError = (e: unknown) => setProblem(problemOf(e));
 
   const changeRole = useMutation({
     mutationFn: ({ id, role }: { id: number; role: Role }) =>
@@ -72,13 +80,25 @@ export function MembersPanel({ selfUserId }: { selfUserId: number }) {
     } catch (e) {
       if (e instanceof ApiError)
         for (const i of e.failure.issues) form.setError(i.path as keyof InviteValues, { message: i.message });
-      setProblem(failureText(e));
+      setProblem(problemOf(e));
     }
   }
 
   return (
     <div className="space-y-5">
-      {problem ? <Notice tone="invalid">{problem}</Notice> : null}
+      {problem ? (
+        <Notice tone="invalid">
+          {problem.message}
+          {problem.link ? (
+            <>
+              {' '}
+              <Link href={problem.link} className="font-medium underline" data-testid="seats-billing-link">
+                Buy more seats
+              </Link>
+            </>
+          ) : null}
+        </Notice>
+      ) : null}
       <Card title="Members">
         {members.isPending ? (
           <Skeleton />

@@ -5,13 +5,14 @@ import { parseOrThrow } from '@/lib/validation/parse';
 import { signUpSchema } from '@/lib/validation/auth';
 import type { Actor } from '@/lib/auth/actor';
 import type { Role } from '@/lib/auth/roles';
+import { startTrial } from './billing';
 
 const HASH_ROUNDS = 10;
 let dummyHash: string | undefined;
 
 export const hashPassword = (password: string) => bcrypt.hash(password, HASH_ROUNDS);
 
-/** Creates an organisation and its first owner in one transaction. */
+/** Creates an organisation, its first owner and its trial subscription in one transaction. */
 export async function signUp(input: unknown): Promise<{ userId: number; organizationId: number }> {
   const data = parseOrThrow(signUpSchema, input);
   const passwordHash = await hashPassword(data.password);
@@ -28,6 +29,7 @@ export async function signUp(input: unknown): Promise<{ userId: number; organiza
       { userId: user.id, organizationId: organization.id, role: 'owner' },
       { transaction },
     );
+    await startTrial(organization.id, transaction);
     return { userId: user.id, organizationId: organization.id };
   });
 }

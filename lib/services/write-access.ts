@@ -1,10 +1,25 @@
 import type { Transaction } from 'sequelize';
+import { Subscription } from '@/models';
+import { AppError } from '@/lib/errors';
+import { READ_ONLY_MESSAGES, accessOf, type Access } from '@/lib/billing/access';
+
+/** Whether the organisation is read-only now, and why; pages show a banner from this. */
+export async function organizationAccess(organizationId: number, transaction?: Transaction): Promise<Access> {
+  const subscription = await Subscription.findOne({ where: { organizationId }, transaction });
+  return accessOf(subscription);
+}
 
 /**
  * Refuses edits and runs while the organisation is read-only (a subscription past due, or
  * cancelled and ended). Every service that writes project data or starts a run calls this;
- * reads and exports do not. The subscription state arrives with billing.
+ * reads and exports do not.
  */
-export async function assertWritable(_organizationId: number, _transaction?: Transaction): Promise<void> {
-  return;
+export async function assertWritable(organizationId: number, transaction?: Transaction): Promise<void> {
+  const access = await organizationAccess(organizationId, transaction);
+  if (access.readOnly && access.reason) {
+    throw new AppError(402, 'read_only', READ_ONLY_MESSAGES[access.reason], undefined, {
+      reason: access.reason,
+      link: '/settings/billing',
+    });
+  }
 }

@@ -1,0 +1,30 @@
+// Money arrives in the currency's minor unit (cents); dates as ISO strings.
+export function money(cents: number | null, currency: string | null): string {
+  if (cents == null || !currency) return '—';
+  return new Intl.NumberFormat('en-GB', { style: 'currency', currency: currency.toUpperCase() }).format(
+    cents / 100,
+  );
+}
+
+export function day(value: string | null): string {
+  if (!value) return '—';
+  return new Date(value).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+}
+
+export const STATUS_LABELS: Record<string, string> = {
+  none: 'No subscription',
+  trialing: 'Trial',
+  active: 'Active',
+  past_due: 'Past due',
+  unpaid: 'Unpaid',
+  incomplete: 'Awaiting payment',
+  incomplete_expired: 'Expired',
+  canceled: 'Cancelled',
+};
+
+export const INVOICE_REASONS: Record<string, string> = {
+  subscription_create: 'First period',
+  subscription_cycle: 'Renewal',
+  subscription_update: 'Seat change (prorated)',
+  manual: 'Manual',
+};
