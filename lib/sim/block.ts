@@ -3,12 +3,16 @@
  * function of (plan, run key, sampling, block index, block size) only, so the concatenated
  * blocks are the same to the bit whatever the number of threads.
  *
- * Per block, column by column over typed arrays (no per-sample objects):
- *   1. uniforms: correlation groups by Iman–Conover, every other column by LHS or plain sampling;
- *   2. activity durations (cut at 0), risk occurrences (u < p), risk costs and delays;
- *   3. forward pass: project duration and criticality counts;
- *   4. cost = items + occurred risk costs + rate × sampled duration of the activity;
- *   5. tornado grades (16-bit) and the sums behind each pair's achieved correlation.
+ * Column by column over typed arrays (no per-sample objects), each column of uniforms used while
+ * it is still in cache:
+ *   1. correlation groups: their columns of uniforms together, by Iman–Conover;
+ *   2. activity durations (cut at 0);
+ *   3. line items, added to the cost;
+ *   4. risks: occurrence (u < p), cost added, delay lengthening its activity;
+ *   5. forward pass: project duration and criticality counts;
+ *   6. time-dependent items: rate × sampled duration of the activity;
+ *   7. tornado grades (16-bit) as each input passes, and the sums behind the achieved correlations.
+ * Columns outside the groups are drawn when they are needed, each from its own stream.
  */
 
 import type { Plan } from './compile';
@@ -29,42 +33,76 @@ export interface BlockOutput {
   duration: Float64Array;
   /** Iterations in which each activity was on the critical path. */
   critical: Int32Array;
-  /** Tornado grades: input s, iteration i at s·n + i, as round-down of grade·2¹⁶. */
+  /** Tornado grades: input s, iteration i at s·n + i, as ⌊grade·2¹⁶⌋. */
   grades: Uint16Array;
   /** Per correlation entry: Σa, Σb, Σa², Σb², Σab of the pair's uniforms. */
   pairSums: Float64Array;
 }
 
 interface Workspace {
-  capacity: number;
-  U: Float64Array;
+  /** Column length: every column view below has this length; a block uses its first n values. */
+  stride: number;
+  /** Views of the grouped columns, by variable (null for ungrouped variables). */
+  groupedColumn: (Float64Array | null)[];
+  /** Views per group member, in group order, for the induction. */
+  groupColumns: Float64Array[][];
   durations: Float64Array;
+  durationColumn: Float64Array[];
+  free: Float64Array;
+  free2: Float64Array;
   tmp: Float64Array;
   occurred: Uint8Array;
   perm: Int32Array;
   induction: InductionScratch;
   schedule: ForwardPassBuffers | null;
+  /** Row of each variable / risk in the grades, −1 when not a tornado input. */
+  gradeRowOfVariable: Int32Array;
+  gradeRowOfRisk: Int32Array;
 }
 
 const workspaces = new WeakMap<Plan, Workspace>();
 
 function workspaceFor(plan: Plan, n: number): Workspace {
-  let ws = workspaces.get(plan);
-  if (!ws || ws.capacity < n) {
-    const cap = Math.max(n, BLOCK_SIZE);
-    const acts = plan.activities.length;
-    ws = {
-      capacity: cap,
-      U: new Float64Array(plan.variables * cap),
-      durations: new Float64Array(acts * cap),
-      tmp: new Float64Array(cap),
-      occurred: new Uint8Array(cap),
-      perm: new Int32Array(cap),
-      induction: allocateInduction(plan.maxGroupSize, cap),
-      schedule: acts ? allocateForwardPass(acts, cap) : null,
-    };
-    workspaces.set(plan, ws);
-  }
+  const existing = workspaces.get(plan);
+  if (existing && existing.stride >= n) return existing;
+  const stride = Math.max(n, BLOCK_SIZE);
+  const acts = plan.activities.length;
+  let slots = 0;
+  for (const g of plan.groups) slots += g.k;
+  const groupedStore = new Float64Array(slots * stride);
+  const groupedColumn: (Float64Array | null)[] = new Array(plan.variables).fill(null);
+  let slot = 0;
+  const groupColumns = plan.groups.map((g) =>
+    Array.from(g.vars, (v) => {
+      const view = groupedStore.subarray(slot * stride, ++slot * stride);
+      groupedColumn[v] = view;
+      return view;
+    }),
+  );
+  const durations = new Float64Array(acts * stride);
+  const gradeRowOfVariable = new Int32Array(plan.variables).fill(-1);
+  const gradeRowOfRisk = new Int32Array(plan.risks.length).fill(-1);
+  plan.sensitivity.forEach((s, row) => {
+    if (s.source === 'column') gradeRowOfVariable[s.v] = row;
+    else gradeRowOfRisk[s.risk] = row;
+  });
+  const ws: Workspace = {
+    stride,
+    groupedColumn,
+    groupColumns,
+    durations,
+    durationColumn: Array.from({ length: acts }, (_, a) => durations.subarray(a * stride, (a + 1) * stride)),
+    free: new Float64Array(stride),
+    free2: new Float64Array(stride),
+    tmp: new Float64Array(stride),
+    occurred: new Uint8Array(stride),
+    perm: new Int32Array(stride),
+    induction: allocateInduction(plan.maxGroupSize, stride),
+    schedule: acts ? allocateForwardPass(acts, stride) : null,
+    gradeRowOfVariable,
+    gradeRowOfRisk,
+  };
+  workspaces.set(plan, ws);
   return ws;
 }
 
@@ -81,110 +119,114 @@ export function simulateBlock(
   n: number,
 ): BlockOutput {
   const ws = workspaceFor(plan, n);
-  const { U, tmp, occurred } = ws;
-  const col = (v: number) => U.subarray(v * n, v * n + n);
+  const { tmp, occurred } = ws;
+  const grades = new Uint16Array(plan.sensitivity.length * n);
 
-  // 1. Uniforms.
-  for (const g of plan.groups) induceGroup(g, U, n, key, block, sampling, ws.induction);
-  for (let v = 0; v < plan.variables; v++) {
-    if (plan.grouped[v]) continue;
+  /** The uniforms of variable v: its group's column, or drawn now into `into`. */
+  const uniforms = (v: number, into: Float64Array): Float64Array => {
+    const grouped = ws.groupedColumn[v];
+    if (grouped) return grouped;
     const rng = streamFor(key, block, v);
-    if (sampling === 'lhs') fillLatinHypercube(rng, col(v), n, ws.perm);
-    else fillMonteCarlo(rng, col(v), n);
-  }
+    if (sampling === 'lhs') fillLatinHypercube(rng, into, n, ws.perm);
+    else fillMonteCarlo(rng, into, n);
+    return into;
+  };
+  const writeGrades = (row: number, u: Float64Array) => {
+    const off = row * n;
+    for (let i = 0; i < n; i++) grades[off + i] = (u[i] * 65536) | 0;
+  };
+  const column = (v: number, into: Float64Array): Float64Array => {
+    const u = uniforms(v, into);
+    const row = ws.gradeRowOfVariable[v];
+    if (row >= 0) writeGrades(row, u);
+    return u;
+  };
 
-  // 2. Durations and risks.
+  // 1. Correlation groups.
+  plan.groups.forEach((g, k) => induceGroup(g, ws.groupColumns[k], n, key, block, sampling, ws.induction));
+
+  // 2. Durations.
   const acts = plan.activities.length;
-  const durations = ws.durations.subarray(0, acts * n);
   for (let a = 0; a < acts; a++) {
     const { dist, v } = plan.activities[a];
-    const d = durations.subarray(a * n, a * n + n);
-    if (v < 0) d.fill(Math.max(0, dist.mean));
+    const d = ws.durationColumn[a];
+    if (v < 0) d.fill(Math.max(0, dist.mean), 0, n);
     else {
-      dist.quantileInto(col(v), d, n);
+      dist.quantileInto(column(v, ws.free), d, n);
       for (let i = 0; i < n; i++) if (d[i] < 0) d[i] = 0;
     }
   }
+
+  // 3. Line items.
   const cost = new Float64Array(n);
   for (const { dist, v } of plan.costItems) {
     if (v < 0) {
       const x = dist.mean;
       for (let i = 0; i < n; i++) cost[i] += x;
     } else {
-      dist.quantileInto(col(v), tmp, n);
+      dist.quantileInto(column(v, ws.free), tmp, n);
       for (let i = 0; i < n; i++) cost[i] += tmp[i];
     }
   }
-  for (const r of plan.risks) {
-    if (r.probability >= 1) occurred.fill(1, 0, n);
-    else if (r.vOccur < 0) occurred.fill(0, 0, n);
+
+  // 4. Risks. A risk's grade is the mid-distribution value of "impact if it occurs, else 0":
+  // (1 − p)/2 when it does not occur, 1 − p + p·u when it does (u its severity).
+  for (let r = 0; r < plan.risks.length; r++) {
+    const risk = plan.risks[r];
+    const p = risk.probability;
+    if (p >= 1) occurred.fill(1, 0, n);
+    else if (risk.vOccur < 0) occurred.fill(0, 0, n);
     else {
-      const u = col(r.vOccur);
-      const p = r.probability;
+      const u = uniforms(risk.vOccur, ws.free2);
       for (let i = 0; i < n; i++) occurred[i] = u[i] < p ? 1 : 0;
     }
-    const sev = r.vSeverity >= 0 ? col(r.vSeverity) : null;
-    if (r.cost) {
-      if (sev) r.cost.quantileInto(sev, tmp, n);
-      else tmp.fill(r.cost.mean, 0, n);
+    const sev = risk.vSeverity >= 0 ? uniforms(risk.vSeverity, ws.free) : null;
+    if (risk.cost) {
+      if (sev) risk.cost.quantileInto(sev, tmp, n);
+      else tmp.fill(risk.cost.mean, 0, n);
       for (let i = 0; i < n; i++) if (occurred[i]) cost[i] += tmp[i];
     }
-    if (r.delay && r.activity >= 0) {
-      if (sev) r.delay.quantileInto(sev, tmp, n);
-      else tmp.fill(r.delay.mean, 0, n);
-      const off = r.activity * n;
-      for (let i = 0; i < n; i++) if (occurred[i] && tmp[i] > 0) durations[off + i] += tmp[i];
+    if (risk.delay && risk.activity >= 0) {
+      if (sev) risk.delay.quantileInto(sev, tmp, n);
+      else tmp.fill(risk.delay.mean, 0, n);
+      const d = ws.durationColumn[risk.activity];
+      for (let i = 0; i < n; i++) if (occurred[i] && tmp[i] > 0) d[i] += tmp[i];
+    }
+    const row = ws.gradeRowOfRisk[r];
+    if (row >= 0) {
+      const off = row * n;
+      const pc = Math.min(1, Math.max(0, p));
+      const no = ((1 - pc) / 2) * 65536;
+      for (let i = 0; i < n; i++) {
+        const x = occurred[i] ? (1 - pc + pc * (sev ? sev[i] : 0.5)) * 65536 : no;
+        grades[off + i] = x >= 65535 ? 65535 : x | 0;
+      }
     }
   }
 
-  // 3. Schedule.
+  // 5. Schedule.
   const duration = new Float64Array(plan.network ? n : 0);
   const critical = new Int32Array(acts);
-  if (plan.network && ws.schedule) forwardPass(plan.network, durations, n, ws.schedule, duration, critical);
+  if (plan.network && ws.schedule) forwardPass(plan.network, ws.durations, n, ws.schedule, duration, critical);
 
-  // 4. Time-dependent items.
+  // 6. Time-dependent items.
   for (const { rate, v, activity } of plan.rateItems) {
-    const off = activity * n;
+    const d = ws.durationColumn[activity];
     if (v < 0) {
       const x = rate.mean;
-      for (let i = 0; i < n; i++) cost[i] += x * durations[off + i];
+      for (let i = 0; i < n; i++) cost[i] += x * d[i];
     } else {
-      rate.quantileInto(col(v), tmp, n);
-      for (let i = 0; i < n; i++) cost[i] += tmp[i] * durations[off + i];
+      rate.quantileInto(column(v, ws.free), tmp, n);
+      for (let i = 0; i < n; i++) cost[i] += tmp[i] * d[i];
     }
   }
 
-  // 5. Grades for the tornado and sums for the achieved correlations.
-  const grades = new Uint16Array(plan.sensitivity.length * n);
-  plan.sensitivity.forEach((s, k) => {
-    const g = grades.subarray(k * n, k * n + n);
-    if (s.source === 'column') {
-      const u = col(s.v);
-      for (let i = 0; i < n; i++) g[i] = (u[i] * 65536) | 0;
-    } else {
-      // Mid-distribution grade of "impact if it occurs, else 0": (1−p)/2 when it does not occur,
-      // 1 − p + p·u when it does (u its severity), the probability-scale value that ties share.
-      const r = plan.risks[s.risk];
-      const p = Math.min(1, Math.max(0, r.probability));
-      const sev = r.vSeverity >= 0 ? col(r.vSeverity) : null;
-      const noG = ((1 - p) / 2) * 65536;
-      if (r.probability >= 1) occurred.fill(1, 0, n);
-      else if (r.vOccur < 0) occurred.fill(0, 0, n);
-      else {
-        const u = col(r.vOccur);
-        for (let i = 0; i < n; i++) occurred[i] = u[i] < p ? 1 : 0;
-      }
-      for (let i = 0; i < n; i++) {
-        const x = occurred[i] ? (1 - p + p * (sev ? sev[i] : 0.5)) * 65536 : noG;
-        g[i] = x >= 65535 ? 65535 : x | 0;
-      }
-    }
-  });
+  // 7. Sums for the achieved correlations (pairs are always within a group).
   const pairSums = new Float64Array(plan.correlations.length * 5);
   plan.correlations.forEach((c, k) => {
     if (c.va < 0) return;
-    const a = col(c.va);
-    const b = col(c.vb);
+    const a = ws.groupedColumn[c.va]!;
+    const b = ws.groupedColumn[c.vb]!;
     let sa = 0;
     let sb = 0;
     let saa = 0;

@@ -16,8 +16,7 @@
 
 import { cholesky, invertLower, multiply } from '../math/linalg';
 import { normalQuantile } from '../math/normal';
-import { uniqueRanks } from '../math/ranks';
-import { shuffleIdentity } from '../random/columns';
+import { createRanker, type Ranker } from '../math/ranks';
 import { streamFor } from '../random/sfc32';
 import type { Sampling } from '../types';
 import type { CorrelationGroup } from './plan';
@@ -30,7 +29,7 @@ export interface InductionScratch {
   S: Float64Array;
   column: Float64Array;
   sorted: Float64Array;
-  taken: Int32Array;
+  ranker: Ranker;
   rank: Int32Array;
   perm: Int32Array;
 }
@@ -44,7 +43,7 @@ export function allocateInduction(maxK: number, capacity: number): InductionScra
     S: new Float64Array(maxK * capacity),
     column: new Float64Array(capacity),
     sorted: new Float64Array(capacity),
-    taken: new Int32Array(capacity),
+    ranker: createRanker(capacity),
     rank: new Int32Array(capacity),
     perm: new Int32Array(capacity),
   };
@@ -62,10 +61,10 @@ function prepareScores(ws: InductionScratch, n: number): void {
   ws.scoreSumSq = ss;
 }
 
-/** Writes the group's uniforms into U (column v at U[v·n …]). */
+/** Writes the group's uniforms: member c's n values into columns[c]. */
 export function induceGroup(
   group: CorrelationGroup,
-  U: Float64Array,
+  columns: Float64Array[],
   n: number,
   key: Uint32Array,
   block: number,
@@ -77,11 +76,10 @@ export function induceGroup(
   const { S, scores, perm } = ws;
   for (let c = 0; c < k; c++) {
     const rng = streamFor(key, block, vars[c]);
-    shuffleIdentity(rng, perm, n);
+    rng.shuffle(perm, n);
     const off = c * n;
     for (let i = 0; i < n; i++) S[off + i] = scores[perm[i]];
-    const uOff = vars[c] * n;
-    for (let i = 0; i < n; i++) U[uOff + i] = rng.next01();
+    rng.fill01(columns[c], n);
   }
   // E = SᵀS / Σ score², then T = F Q⁻¹ (identity correction when E is singular, e.g. n ≤ k).
   const E = new Float64Array(k * k);
@@ -97,7 +95,7 @@ export function induceGroup(
   }
   const Q = cholesky(E, k);
   const T = Q ? multiply(factor, invertLower(Q, k), k) : factor;
-  const { column, sorted, taken, rank } = ws;
+  const { column, sorted, ranker, rank } = ws;
   const inv = 1 / n;
   for (let c = 0; c < k; c++) {
     column.fill(0, 0, n);
@@ -107,15 +105,15 @@ export function induceGroup(
       const od = d * n;
       for (let i = 0; i < n; i++) column[i] += t * S[od + i];
     }
-    uniqueRanks(column, n, sorted, taken, rank);
-    const uOff = vars[c] * n;
+    ranker.rank(column, n, rank);
+    const u = columns[c];
     if (sampling === 'lhs') {
-      for (let i = 0; i < n; i++) U[uOff + i] = (rank[i] + U[uOff + i]) * inv;
+      for (let i = 0; i < n; i++) u[i] = (rank[i] + u[i]) * inv;
     } else {
       const s = sorted.subarray(0, n);
-      s.set(U.subarray(uOff, uOff + n));
+      s.set(u.subarray(0, n));
       s.sort();
-      for (let i = 0; i < n; i++) U[uOff + i] = s[rank[i]];
+      for (let i = 0; i < n; i++) u[i] = s[rank[i]];
     }
   }
 }

@@ -49,7 +49,7 @@ export function createPert(p: ThreePointParams, at: DistLocation): Distribution 
     quantile: (u) => a + w * getTable().quantile(u),
     cdf: (x) => (x <= a ? 0 : x >= b ? 1 : jStat.ibeta((x - a) / w, alpha, beta)),
     quantileInto(u, out, n) {
-      getTable().scaledQuantileInto(u, out, n, a, w);
+      getTable().scaledQuantileInto(u, out, n, +a, +w);
     },
   };
 }

@@ -60,9 +60,15 @@ export function createTriangular(p: ThreePointParams, at: DistLocation): Distrib
     cdf: (x) =>
       x <= a ? 0 : x >= b ? 1 : x <= c ? ((x - a) * (x - a)) / left : 1 - ((b - x) * (b - x)) / right,
     quantileInto(u, out, n) {
+      // Locals, not captured bindings, in the hot loop (V8 re-reads mutable captured ones).
+      const lo = a;
+      const hi = b;
+      const f = fc;
+      const l = left;
+      const r = right;
       for (let i = 0; i < n; i++) {
         const v = u[i];
-        out[i] = v < fc ? a + Math.sqrt(v * left) : b - Math.sqrt((1 - v) * right);
+        out[i] = v < f ? lo + Math.sqrt(v * l) : hi - Math.sqrt((1 - v) * r);
       }
     },
   };

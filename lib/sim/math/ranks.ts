@@ -1,9 +1,39 @@
 /**
- * Ranks of a column without a comparator: sort a copy natively, then place each value by binary
- * search (lower bound), breaking ties by order of appearance so the ranks form a permutation.
- * Also mid-ranks (average rank of tied values, Kendall & Gibbons 1990, "Rank Correlation
- * Methods", 5th ed., §3.8) for Spearman's coefficient.
+ * Ranks without comparator callbacks (native typed-array sorts only).
+ *
+ *  - createRanker: ranks of a short column as a permutation. Each value's index is written into
+ *    the lowest ⌈log₂ n⌉ bits of its mantissa, the keys are sorted natively and the indices read
+ *    back in order. The change is below 2⁻⁴² relative for n ≤ 1024, so only values closer than
+ *    that can trade places; exact ties are broken by position.
+ *  - midRanks: average rank of tied values (Kendall & Gibbons 1990, "Rank Correlation Methods",
+ *    5th ed., §3.8), for Spearman's coefficient, by binary search in the sorted copy.
  */
+
+const LOW_WORD = new Uint8Array(Uint32Array.of(1).buffer)[0] === 1 ? 0 : 1;
+
+export interface Ranker {
+  /** rank[i] ∈ 0…n−1 (a permutation) of values[0…n−1]. */
+  rank(values: Float64Array, n: number, rank: Int32Array): void;
+}
+
+export function createRanker(capacity: number): Ranker {
+  const keys = new Float64Array(capacity);
+  const words = new Uint32Array(keys.buffer);
+  return {
+    rank(values, n, rank) {
+      const bits = Math.max(1, 32 - Math.clz32(n - 1));
+      const mask = (1 << bits) - 1;
+      const keep = ~mask;
+      for (let i = 0; i < n; i++) {
+        keys[i] = values[i];
+        const w = 2 * i + LOW_WORD;
+        words[w] = (words[w] & keep) | i;
+      }
+      keys.subarray(0, n).sort();
+      for (let r = 0; r < n; r++) rank[words[2 * r + LOW_WORD] & mask] = r;
+    },
+  };
+}
 
 function lowerBound(sorted: Float64Array, n: number, x: number): number {
   let lo = 0;
@@ -25,25 +55,6 @@ function upperBound(sorted: Float64Array, n: number, x: number): number {
     else hi = mid;
   }
   return lo;
-}
-
-/**
- * rank[i] ∈ 0…n−1, a permutation; `sorted` receives the sorted values; `taken` is scratch (n).
- */
-export function uniqueRanks(
-  values: Float64Array,
-  n: number,
-  sorted: Float64Array,
-  taken: Int32Array,
-  rank: Int32Array,
-): void {
-  sorted.set(values.subarray(0, n));
-  sorted.subarray(0, n).sort();
-  taken.fill(0, 0, n);
-  for (let i = 0; i < n; i++) {
-    const lb = lowerBound(sorted, n, values[i]);
-    rank[i] = lb + taken[lb]++;
-  }
 }
 
 /** Mid-ranks in 1…n given the sorted copy of the values. */

@@ -11,22 +11,13 @@
 import type { Sfc32 } from './sfc32';
 
 export function fillMonteCarlo(rng: Sfc32, out: Float64Array, n: number): void {
-  for (let i = 0; i < n; i++) out[i] = rng.next01();
+  rng.fill01(out, n);
 }
 
-/** perm[0…n−1] ← a uniformly random permutation of 0…n−1. */
-export function shuffleIdentity(rng: Sfc32, perm: Int32Array, n: number): void {
-  for (let i = 0; i < n; i++) perm[i] = i;
-  for (let i = n - 1; i > 0; i--) {
-    const j = Math.floor(rng.next01() * (i + 1));
-    const t = perm[i];
-    perm[i] = perm[j];
-    perm[j] = t;
-  }
-}
-
+/** Stratum π(i) then jitter v_i: u_i = (π(i) + v_i)/n. */
 export function fillLatinHypercube(rng: Sfc32, out: Float64Array, n: number, perm: Int32Array): void {
-  shuffleIdentity(rng, perm, n);
+  rng.shuffle(perm, n);
+  rng.fill01(out, n);
   const inv = 1 / n;
-  for (let i = 0; i < n; i++) out[i] = (perm[i] + rng.next01()) * inv;
+  for (let i = 0; i < n; i++) out[i] = (perm[i] + out[i]) * inv;
 }

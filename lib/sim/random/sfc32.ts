@@ -23,33 +23,79 @@ function combine(h: number, v: number): number {
   return fmix32((h ^ Math.imul(v + 0x7f4a7c15, 0x9e3779b1)) >>> 0);
 }
 
+// The state lives in an Int32Array: 32-bit values do not fit V8's small integers, and object
+// fields holding them would allocate a heap number on every step.
 export class Sfc32 {
-  private a: number;
-  private b: number;
-  private c: number;
-  private d: number;
+  private readonly s: Int32Array;
 
   constructor(a: number, b: number, c: number, d = 1) {
-    this.a = a | 0;
-    this.b = b | 0;
-    this.c = c | 0;
-    this.d = d | 0;
+    this.s = Int32Array.of(a, b, c, d);
     for (let i = 0; i < 12; i++) this.nextU32();
   }
 
   nextU32(): number {
-    const t = (((this.a + this.b) | 0) + this.d) | 0;
-    this.d = (this.d + 1) | 0;
-    this.a = this.b ^ (this.b >>> 9);
-    this.b = (this.c + (this.c << 3)) | 0;
-    this.c = ((this.c << 21) | (this.c >>> 11)) + t;
-    this.c |= 0;
+    const s = this.s;
+    const a = s[0];
+    const b = s[1];
+    const c = s[2];
+    const d = s[3];
+    const t = (((a + b) | 0) + d) | 0;
+    s[3] = (d + 1) | 0;
+    s[0] = b ^ (b >>> 9);
+    s[1] = (c + (c << 3)) | 0;
+    s[2] = (((c << 21) | (c >>> 11)) + t) | 0;
     return t >>> 0;
   }
 
   /** Uniform on the open interval (0, 1), 32-bit resolution: (k + ½)/2³². */
   next01(): number {
     return (this.nextU32() + 0.5) * TWO_POW_M32;
+  }
+
+  /** out[0…n−1] ← n successive next01() values (the bulk form, for hot loops). */
+  fill01(out: Float64Array, n: number): void {
+    const s = this.s;
+    let a = s[0];
+    let b = s[1];
+    let c = s[2];
+    let d = s[3];
+    for (let i = 0; i < n; i++) {
+      const t = (((a + b) | 0) + d) | 0;
+      d = (d + 1) | 0;
+      a = b ^ (b >>> 9);
+      b = (c + (c << 3)) | 0;
+      c = (((c << 21) | (c >>> 11)) + t) | 0;
+      out[i] = ((t >>> 0) + 0.5) * TWO_POW_M32;
+    }
+    s[0] = a;
+    s[1] = b;
+    s[2] = c;
+    s[3] = d;
+  }
+
+  /** perm[0…n−1] ← a uniformly random permutation of 0…n−1 (Fisher–Yates). */
+  shuffle(perm: Int32Array, n: number): void {
+    for (let i = 0; i < n; i++) perm[i] = i;
+    const s = this.s;
+    let a = s[0];
+    let b = s[1];
+    let c = s[2];
+    let d = s[3];
+    for (let i = n - 1; i > 0; i--) {
+      const t = (((a + b) | 0) + d) | 0;
+      d = (d + 1) | 0;
+      a = b ^ (b >>> 9);
+      b = (c + (c << 3)) | 0;
+      c = (((c << 21) | (c >>> 11)) + t) | 0;
+      const j = Math.floor(((t >>> 0) + 0.5) * TWO_POW_M32 * (i + 1));
+      const x = perm[i];
+      perm[i] = perm[j];
+      perm[j] = x;
+    }
+    s[0] = a;
+    s[1] = b;
+    s[2] = c;
+    s[3] = d;
   }
 }
 

@@ -15,7 +15,9 @@
 import type { Network } from './network';
 
 export interface ForwardPassBuffers {
-  /** Column-major by activity: finish[a·n + i]. */
+  /** Distance between activity columns (≥ the block size). */
+  stride: number;
+  /** Column-major by activity: finish[a·stride + i]. */
   finish: Float64Array;
   /** Driving predecessor of activity a in iteration i, −1 when it starts at time 0. */
   driver: Int32Array;
@@ -23,12 +25,18 @@ export interface ForwardPassBuffers {
   last: Int32Array;
 }
 
-export function allocateForwardPass(size: number, n: number): ForwardPassBuffers {
-  return { finish: new Float64Array(size * n), driver: new Int32Array(size * n), last: new Int32Array(n) };
+export function allocateForwardPass(size: number, stride: number): ForwardPassBuffers {
+  return {
+    stride,
+    finish: new Float64Array(size * stride),
+    driver: new Int32Array(size * stride),
+    last: new Int32Array(stride),
+  };
 }
 
 /**
- * duration[a·n + i] → total[i] (project duration) and critical[a] += iterations on the critical path.
+ * duration[a·stride + i], i < n → total[i] (project duration) and critical[a] += iterations on the
+ * critical path.
  */
 export function forwardPass(
   net: Network,
@@ -38,11 +46,11 @@ export function forwardPass(
   total: Float64Array,
   critical: Int32Array,
 ): void {
-  const { finish, driver, last } = buf;
+  const { finish, driver, last, stride } = buf;
   const { order, predStart, predIndex, predLag, isSink } = net;
   for (let k = 0; k < net.size; k++) {
     const a = order[k];
-    const base = a * n;
+    const base = a * stride;
     const s = predStart[a];
     const e = predStart[a + 1];
     if (s === e) {
@@ -54,7 +62,7 @@ export function forwardPass(
     }
     let p = predIndex[s];
     let lag = predLag[s];
-    let pb = p * n;
+    let pb = p * stride;
     for (let i = 0; i < n; i++) {
       finish[base + i] = finish[pb + i] + lag;
       driver[base + i] = p;
@@ -62,7 +70,7 @@ export function forwardPass(
     for (let j = s + 1; j < e; j++) {
       p = predIndex[j];
       lag = predLag[j];
-      pb = p * n;
+      pb = p * stride;
       for (let i = 0; i < n; i++) {
         const c = finish[pb + i] + lag;
         if (c > finish[base + i]) {
@@ -84,7 +92,7 @@ export function forwardPass(
   for (let k = 0; k < net.size; k++) {
     const a = order[k];
     if (!isSink[a]) continue;
-    const base = a * n;
+    const base = a * stride;
     for (let i = 0; i < n; i++) {
       if (finish[base + i] > total[i]) {
         total[i] = finish[base + i];
@@ -96,7 +104,7 @@ export function forwardPass(
     let a = last[i];
     while (a >= 0) {
       critical[a]++;
-      a = driver[a * n + i];
+      a = driver[a * stride + i];
     }
   }
 }

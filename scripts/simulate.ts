@@ -1,0 +1,94 @@
+// Command line: npm run simulate -- MODEL.json [--iterations N] [--seed S] [--sampling mc|lhs]
+//                                   [--threads T] [--out RESULT.json]
+// Prints a short summary; with --out writes the result file. A model that fails validation
+// exits with status 1 and a message per offending entry, and nothing is written.
+
+import { readFileSync, writeFileSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
+import { parseArgs } from 'node:util';
+import { runSimulation } from '../lib/sim/run';
+import { summaryText } from '../lib/sim/report/summary-text';
+import type { Sampling } from '../lib/sim/types';
+import { validateModel } from '../lib/sim/validate';
+
+const USAGE =
+  'usage: npm run simulate -- MODEL.json [--iterations N] [--seed S] [--sampling mc|lhs] [--threads T] [--out RESULT.json]';
+
+function fail(message: string, code: number): never {
+  process.stderr.write(`${message}\n`);
+  process.exit(code);
+}
+
+function positiveInt(name: string, value: string | undefined): number | undefined {
+  if (value === undefined) return undefined;
+  if (!/^\d+$/.test(value) || Number(value) < 1) fail(`--${name} must be a positive integer (got "${value}")\n${USAGE}`, 2);
+  return Number(value);
+}
+
+async function main() {
+  let parsed;
+  try {
+    parsed = parseArgs({
+      allowPositionals: true,
+      options: {
+        iterations: { type: 'string' },
+        seed: { type: 'string' },
+        sampling: { type: 'string' },
+        threads: { type: 'string' },
+        out: { type: 'string' },
+        help: { type: 'boolean', short: 'h' },
+      },
+    });
+  } catch (e) {
+    fail(`${(e as Error).message}\n${USAGE}`, 2);
+  }
+  const { values, positionals } = parsed;
+  if (values.help) {
+    process.stdout.write(`${USAGE}\n`);
+    return;
+  }
+  if (positionals.length !== 1) fail(USAGE, 2);
+  const file = positionals[0];
+  const iterations = positiveInt('iterations', values.iterations);
+  const threads = positiveInt('threads', values.threads) ?? availableParallelism();
+  const sampling = values.sampling as Sampling | undefined;
+  if (sampling !== undefined && sampling !== 'mc' && sampling !== 'lhs') {
+    fail(`--sampling must be mc or lhs (got "${sampling}")\n${USAGE}`, 2);
+  }
+  const seed = values.seed === undefined ? undefined : /^-?\d+$/.test(values.seed) ? Number(values.seed) : values.seed;
+
+  let json: unknown;
+  try {
+    json = JSON.parse(readFileSync(file, 'utf8'));
+  } catch (e) {
+    fail(`${file}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : `not valid JSON (${(e as Error).message})`}`, 1);
+  }
+  const checked = validateModel(json);
+  if (!checked.ok) {
+    fail(
+      `${file}: the model is not valid:\n${checked.issues.map((i) => `  ${i.path ? `${i.path}: ` : ''}${i.message}`).join('\n')}`,
+      1,
+    );
+  }
+  const model = checked.model;
+  const showProgress = process.stderr.isTTY;
+  const result = await runSimulation(model, {
+    iterations,
+    seed,
+    sampling,
+    threads,
+    onProgress: showProgress
+      ? ({ done, total }) => process.stderr.write(`\r${Math.round((100 * done) / total)}% of ${total} iterations`)
+      : undefined,
+  });
+  if (showProgress) process.stderr.write('\r\x1b[K');
+  process.stdout.write(
+    `${summaryText(result, { name: model.name, currency: model.currency, threads, targets: model.targets })}\n`,
+  );
+  if (values.out) {
+    writeFileSync(values.out, `${JSON.stringify(result, null, 2)}\n`);
+    process.stdout.write(`\nResult written to ${values.out}\n`);
+  }
+}
+
+main().catch((e: unknown) => fail(e instanceof Error ? e.message : String(e), 1));
