@@ -6,6 +6,8 @@ import { parseOrThrow } from '@/lib/validation/parse';
 import { projectSchema } from '@/lib/validation/project';
 import { recordAudit } from './audit';
 import { assertWritable } from './write-access';
+import { baseEstimate } from '@/lib/registers/base-estimate';
+import { loadState } from './registers/state';
 
 export type ProjectView = {
   id: number;
@@ -18,6 +20,14 @@ export type ProjectView = {
   description: string | null;
   archived: boolean;
   version: number;
+};
+
+/** A row of the projects list: the project, its base estimate and (once runs exist) its latest run. */
+export type ProjectListEntry = ProjectView & {
+  baseEstimate: number;
+  lineCount: number;
+  /** Filled by the runs feature: the latest completed run's P50 and P80 of cost. */
+  latestRun: { P50: number; P80: number; at: string } | null;
 };
 
 export function toProjectView(p: Project): ProjectView {
@@ -45,6 +55,21 @@ export async function listProjects(actor: Actor, { includeArchived = false } = {
   if (!includeArchived) where.archivedAt = null;
   const rows = await Project.findAll({ where, order: [['code', 'ASC']] });
   return rows.map(toProjectView);
+}
+
+/** The list with each project's base estimate (sum of line bases). */
+export async function listProjectsWithEstimates(
+  actor: Actor,
+  options: { includeArchived?: boolean } = {},
+): Promise<ProjectListEntry[]> {
+  const projects = await listProjects(actor, options);
+  const states = await Promise.all(projects.map((p) => loadState(p.id, actor.organizationId)));
+  return projects.map((p, i) => ({
+    ...p,
+    baseEstimate: baseEstimate(states[i].items, states[i].activities),
+    lineCount: states[i].items.length,
+    latestRun: null,
+  }));
 }
 
 /** A project of the actor's organisation; any other id is "not found", never its data. */

@@ -1,0 +1,68 @@
+// Reading a register and a project's audit trail.
+
+import { Op } from 'sequelize';
+import { AuditEntry, User } from '@/models';
+import type { Actor } from '@/lib/auth/actor';
+import type { RegisterKind } from '@/lib/validation/registers';
+import { findProject } from '../projects';
+import type { RegisterRow } from './rows';
+import { loadState } from './state';
+
+export async function listRegister<K extends RegisterKind>(
+  actor: Actor,
+  projectId: number,
+  kind: K,
+): Promise<RegisterRow[K][]> {
+  const project = await findProject(actor, projectId);
+  const state = await loadState(project.id, actor.organizationId);
+  return state[kind] as RegisterRow[K][];
+}
+
+export type AuditView = {
+  id: number;
+  at: string;
+  who: string;
+  entity: string;
+  entityId: string | null;
+  action: string;
+  before: unknown;
+  after: unknown;
+};
+
+/** The project's audit trail, newest first, in pages of `limit` before the entry `before`. */
+export async function listAudit(
+  actor: Actor,
+  projectId: number,
+  { before, limit = 100 }: { before?: number; limit?: number } = {},
+): Promise<{ entries: AuditView[]; next: number | null }> {
+  const project = await findProject(actor, projectId);
+  const size = Math.min(Math.max(1, limit), 500);
+  const where: Record<string | symbol, unknown> = {
+    organizationId: actor.organizationId,
+    projectId: project.id,
+  };
+  if (before) where.id = { [Op.lt]: before };
+  const rows = await AuditEntry.findAll({
+    where,
+    order: [['id', 'DESC']],
+    limit: size + 1,
+    include: [{ model: User, as: 'user', attributes: ['name', 'email'] }],
+  });
+  const page = rows.slice(0, size);
+  return {
+    entries: page.map((e) => {
+      const user = (e as unknown as { user?: { name: string; email: string } }).user;
+      return {
+        id: e.id,
+        at: e.createdAt.toISOString(),
+        who: user ? user.name || user.email : 'Someone no longer a member',
+        entity: e.entity,
+        entityId: e.entityId,
+        action: e.action,
+        before: typeof e.before === 'string' ? JSON.parse(e.before) : e.before,
+        after: typeof e.after === 'string' ? JSON.parse(e.after) : e.after,
+      };
+    }),
+    next: rows.length > size ? page[page.length - 1].id : null,
+  };
+}
