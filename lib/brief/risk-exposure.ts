@@ -7,7 +7,9 @@
  * run's input snapshot, not the live register, so that the brief matches the run it reports.
  */
 import { createDistribution } from '@/lib/sim/distributions';
-import type { DistSpec, Model } from '@/lib/sim/types';
+import type { DistSpec, ModelRisk } from '@/lib/sim/types';
+
+type WithRisks = { risks?: readonly ModelRisk[] };
 
 export type RiskExposure = {
   id: string;
@@ -27,7 +29,7 @@ function meanOf(spec: DistSpec | undefined, where: string, field: string): numbe
 }
 
 /** Every risk of the model with its expected cost, the largest first (ties by id). */
-export function riskExposures(model: Pick<Model, 'risks'>): RiskExposure[] {
+export function riskExposures(model: WithRisks): RiskExposure[] {
   return (model.risks ?? [])
     .map((r) => {
       const meanCost = meanOf(r.cost, `risks.${r.id}`, 'cost') ?? 0;
@@ -43,6 +45,6 @@ export function riskExposures(model: Pick<Model, 'risks'>): RiskExposure[] {
     .sort((a, b) => b.expectedCost - a.expectedCost || a.id.localeCompare(b.id));
 }
 
-export function topRiskExposures(model: Pick<Model, 'risks'>, count = 8): RiskExposure[] {
+export function topRiskExposures(model: WithRisks, count = 8): RiskExposure[] {
   return riskExposures(model).slice(0, count);
 }

@@ -1,0 +1,60 @@
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { requirePageActor } from '@/lib/auth/guard';
+import { isAppError } from '@/lib/errors';
+import { getProject } from '@/lib/services/projects';
+import { listDecisions } from '@/lib/services/approvals';
+import { dateText } from '@/lib/brief/format';
+import { Card, EmptyState } from '@/components/ui/card';
+import { DecisionHistory } from '@/components/brief/decision-history';
+
+export default async function DecisionsPage({ params }: { params: Promise<{ projectId: string }> }) {
+  const { projectId } = await params;
+  const actor = await requirePageActor('project:read', `/projects/${projectId}/decisions`);
+  const [project, decisions] = await Promise.all([
+    getProject(actor, Number(projectId)),
+    listDecisions(actor, Number(projectId)),
+  ]).catch((e) => {
+    if (isAppError(e) && e.status === 404) notFound();
+    throw e;
+  });
+  const baseline = decisions.find((d) => d.decision === 'approved');
+  return (
+    <div className="space-y-4">
+      <header className="flex items-end justify-between">
+        <div>
+          <p className="text-sm text-ink-faint">{project.code}</p>
+          <h1 className="text-2xl font-semibold">Decisions</h1>
+        </div>
+        <Link className="text-sm text-cost underline" href={`/projects/${project.id}/trend`}>
+          Trend
+        </Link>
+      </header>
+      <p data-testid="current-baseline">
+        {baseline ? (
+          <>
+            Current baseline:{' '}
+            <Link
+              className="text-cost underline"
+              href={`/projects/${project.id}/runs/${baseline.runId}/brief`}
+            >
+              run {baseline.runId}
+            </Link>
+            , approved {dateText(baseline.decidedAt)} by {baseline.sponsorName} ({baseline.stage}).
+          </>
+        ) : (
+          'No run has been approved as the baseline yet.'
+        )}
+      </p>
+      {decisions.length ? (
+        <Card title="History">
+          <DecisionHistory decisions={decisions} projectId={project.id} />
+        </Card>
+      ) : (
+        <EmptyState title="No decisions yet">
+          A sponsor decides from a run&apos;s brief: approve it as the baseline, or return it with a comment.
+        </EmptyState>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,254 @@
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { requirePageActor } from '@/lib/auth/guard';
+import { can } from '@/lib/auth/roles';
+import { isAppError } from '@/lib/errors';
+import { getBrief } from '@/lib/services/brief';
+import type { BriefData } from '@/lib/brief/build';
+import { dateTimeText, moneyWithInterval, probabilityText } from '@/lib/brief/format';
+import { formatMoney } from '@/lib/runs/format';
+import { buttonClass } from '@/components/ui/button';
+import { EmptyState } from '@/components/ui/card';
+import { Notice, ResultCautions } from '@/components/ui/notice';
+import { ClassCheckPanel } from '@/components/brief/class-check';
+import { DecisionPanel } from '@/components/brief/decision-panel';
+import { DecisionRecord } from '@/components/brief/decision-record';
+import {
+  HeadlineFigures,
+  PercentileTable,
+  TargetsTable,
+  daysOf,
+  moneyOf,
+  p80Of,
+} from '@/components/brief/figures';
+import { NotesEditor } from '@/components/brief/notes-editor';
+import { PrintButton } from '@/components/brief/print-button';
+import { RiskTable } from '@/components/brief/risk-table';
+import { SCurveSvg } from '@/components/brief/s-curve-svg';
+import { SendToSponsors } from '@/components/brief/send-to-sponsors';
+import { TornadoSvg } from '@/components/brief/tornado-svg';
+
+type Params = { params: Promise<{ projectId: string; runId: string }> };
+
+function Section({ title, children, id }: { title: string; children: React.ReactNode; id?: string }) {
+  return (
+    <section className="brief-section space-y-2" aria-labelledby={id}>
+      <h2
+        id={id}
+        className="border-b border-rule pb-1 text-sm font-semibold uppercase tracking-wide text-ink-soft"
+      >
+        {title}
+      </h2>
+      {children}
+    </section>
+  );
+}
+
+/** One sentence that says what the brief asks the sponsor to fund. */
+function Summary({ brief }: { brief: BriefData }) {
+  const c = brief.project.currency;
+  const { level, value, amount } = brief.contingency;
+  return (
+    <p className="text-lg">
+      Funding at <strong>{level}</strong> means a budget of <strong>{formatMoney(value, c)}</strong>:{' '}
+      {formatMoney(amount, c)} of contingency over the base estimate of {formatMoney(brief.cost.base, c)}.
+      {brief.cost.target
+        ? ` The chance of staying within the cost target of ${formatMoney(brief.cost.target.value, c)} is ${probabilityText(brief.cost.target.probability)}.`
+        : ''}
+    </p>
+  );
+}
+
+export default async function BriefPage({ params }: Params) {
+  const { projectId, runId } = await params;
+  const actor = await requirePageActor('brief:read', `/projects/${projectId}/runs/${runId}/brief`);
+  let brief: BriefData;
+  try {
+    brief = await getBrief(actor, Number(projectId), Number(runId));
+  } catch (e) {
+    if (isAppError(e) && e.status === 404) notFound();
+    if (isAppError(e) && e.status === 409)
+      return (
+        <EmptyState title="The brief is not ready">
+          <p>{e.message} A brief is made from a run that has succeeded.</p>
+          <p className="mt-3">
+            <Link className="text-cost underline" href={`/projects/${projectId}/runs/${runId}`}>
+              Open the run
+            </Link>
+          </p>
+        </EmptyState>
+      );
+    throw e;
+  }
+  const { project, run } = brief;
+  const money = moneyOf(brief);
+  const p80 = p80Of(brief);
+  const pdfUrl = `/api/projects/${project.id}/brief/${run.id}/pdf`;
+  const mayDecide = can(actor.role, 'baseline:decide');
+  const mayEdit = can(actor.role, 'project:write');
+
+  return (
+    <article className="brief mx-auto max-w-[980px] space-y-5" aria-label={`Brief of run ${run.id}`}>
+      <nav className="no-print flex flex-wrap items-center gap-2 text-sm" aria-label="Brief actions">
+        <Link href={`/projects/${project.id}/runs/${run.id}`} className="text-cost underline">
+          ← Run {run.id}
+        </Link>
+        <span className="ml-auto" />
+        <PrintButton />
+        <a className={buttonClass('secondary')} href={pdfUrl} download>
+          Download PDF (A4)
+        </a>
+        <a className={buttonClass('ghost')} href={`${pdfUrl}?paper=letter`} download>
+          PDF (Letter)
+        </a>
+      </nav>
+
+      <header className="space-y-1">
+        <p className="text-sm text-ink-faint">
+          Brief for sponsors · {project.code} · run {run.id}
+        </p>
+        <h1 className="text-2xl font-semibold">{project.name}</h1>
+        <p className="text-ink-soft">
+          {project.stage} · Class {project.estimateClass} estimate · {project.currency} · run by{' '}
+          {run.startedByName ?? 'a former member'}
+          {run.finishedAt ? `, ${dateTimeText(run.finishedAt)}` : ''}
+        </p>
+      </header>
+
+      <Summary brief={brief} />
+      <HeadlineFigures brief={brief} />
+
+      {brief.decision ? <DecisionRecord decision={brief.decision} /> : null}
+      {!brief.decision && (mayDecide || mayEdit) ? (
+        <div className="no-print grid grid-cols-2 gap-4 rounded border border-rule bg-paper-raised p-4">
+          {mayDecide ? (
+            <div>
+              <h2 className="mb-2 text-sm font-semibold uppercase tracking-wide text-ink-soft">Decide</h2>
+              <DecisionPanel
+                projectId={project.id}
+                runId={run.id}
+                levelText={`${brief.contingency.level}, ${money(brief.contingency.value)}`}
+              />
+            </div>
+          ) : null}
+          {mayEdit ? (
+            <div>
+              <h2 className="mb-2 text-sm font-semibold uppercase tracking-wide text-ink-soft">
+                Put forward
+              </h2>
+              <p className="mb-2 text-sm text-ink-soft">
+                E-mails the organisation&apos;s sponsors a link to this brief so that they can approve it or
+                return it.
+              </p>
+              <SendToSponsors
+                projectId={project.id}
+                runId={run.id}
+                sentText={
+                  brief.sentForDecision
+                    ? `Last sent by ${brief.sentForDecision.byName}, ${dateTimeText(brief.sentForDecision.at)}.`
+                    : null
+                }
+              />
+            </div>
+          ) : null}
+        </div>
+      ) : null}
+      {!brief.decision && !mayDecide && !mayEdit ? (
+        <Notice>This run awaits a sponsor&apos;s decision.</Notice>
+      ) : null}
+
+      <div className="grid grid-cols-2 gap-5 brief-columns">
+        <Section title="Confidence levels of total cost">
+          <PercentileTable total={brief.cost} show={money} caption={`Total cost in ${project.currency}`} />
+        </Section>
+        {brief.duration ? (
+          <Section title="Confidence levels of duration">
+            <PercentileTable
+              total={brief.duration}
+              show={daysOf}
+              caption="Project duration in working days (wd)"
+            />
+          </Section>
+        ) : null}
+      </div>
+
+      <Section title="Probability of meeting the targets">
+        <TargetsTable brief={brief} />
+      </Section>
+
+      {brief.classCheck ? (
+        <Section title={`Estimate-class check (Class ${brief.classCheck.estimateClass})`}>
+          <ClassCheckPanel check={brief.classCheck} />
+        </Section>
+      ) : null}
+
+      <Section title="Cost S-curve">
+        <SCurveSvg brief={brief} />
+      </Section>
+
+      <Section title="Top drivers of cost">
+        <TornadoSvg drivers={brief.drivers} />
+      </Section>
+
+      <Section title="Top risk events by expected cost">
+        <RiskTable risks={brief.topRisks} currency={project.currency} />
+      </Section>
+
+      <div className="grid grid-cols-2 gap-5 brief-columns">
+        <Section title="Assumptions">
+          <p
+            className={`whitespace-pre-line text-sm ${project.assumptions ? '' : 'text-ink-faint'}`}
+            data-testid="assumptions"
+          >
+            {project.assumptions ?? 'None stated.'}
+          </p>
+        </Section>
+        <Section title="Exclusions">
+          <p
+            className={`whitespace-pre-line text-sm ${project.exclusions ? '' : 'text-ink-faint'}`}
+            data-testid="exclusions"
+          >
+            {project.exclusions ?? 'None stated.'}
+          </p>
+        </Section>
+      </div>
+      {mayEdit ? (
+        <div className="no-print">
+          <NotesEditor
+            projectId={project.id}
+            initial={{ assumptions: project.assumptions, exclusions: project.exclusions }}
+          />
+        </div>
+      ) : null}
+
+      <Section title="The run">
+        <dl className="grid grid-cols-[12rem_1fr] gap-x-4 gap-y-1 text-sm">
+          <dt className="text-ink-soft">Run by</dt>
+          <dd>{run.startedByName ?? 'a former member'}</dd>
+          <dt className="text-ink-soft">Started</dt>
+          <dd>{run.startedAt ? dateTimeText(run.startedAt) : '—'}</dd>
+          <dt className="text-ink-soft">Finished</dt>
+          <dd>{run.finishedAt ? dateTimeText(run.finishedAt) : '—'}</dd>
+          <dt className="text-ink-soft">Iterations</dt>
+          <dd>
+            {run.iterations.toLocaleString('en-GB')} (
+            {run.sampling === 'lhs' ? 'Latin hypercube' : 'Monte Carlo'}, seed {run.seed})
+          </dd>
+          <dt className="text-ink-soft">Input hash (SHA-256)</dt>
+          <dd className="break-all font-mono text-xs" data-testid="input-hash">
+            {run.inputHash}
+          </dd>
+          <dt className="text-ink-soft">Cost P80</dt>
+          <dd data-testid="p80-text">{moneyWithInterval(p80.value, p80.ci95, project.currency)}</dd>
+        </dl>
+      </Section>
+
+      {brief.engineWarnings.map((w) => (
+        <Notice key={w} tone="caution" title="Engine warning">
+          {w}
+        </Notice>
+      ))}
+      <ResultCautions />
+    </article>
+  );
+}

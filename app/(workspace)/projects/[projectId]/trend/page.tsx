@@ -1,0 +1,60 @@
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { requirePageActor } from '@/lib/auth/guard';
+import { isAppError } from '@/lib/errors';
+import { getProject } from '@/lib/services/projects';
+import { listBaselines } from '@/lib/services/approvals';
+import { formatMoney } from '@/lib/runs/format';
+import { dateText } from '@/lib/brief/format';
+import { Card, EmptyState } from '@/components/ui/card';
+import { ResultCautions } from '@/components/ui/notice';
+import { TrendChart } from '@/components/brief/trend-chart';
+import { TrendTable } from '@/components/brief/trend-table';
+
+export default async function TrendPage({ params }: { params: Promise<{ projectId: string }> }) {
+  const { projectId } = await params;
+  const actor = await requirePageActor('project:read', `/projects/${projectId}/trend`);
+  const [project, rows] = await Promise.all([
+    getProject(actor, Number(projectId)),
+    listBaselines(actor, Number(projectId)),
+  ]).catch((e) => {
+    if (isAppError(e) && e.status === 404) notFound();
+    throw e;
+  });
+  const current = rows[rows.length - 1];
+  return (
+    <div className="space-y-4">
+      <header className="flex items-end justify-between">
+        <div>
+          <p className="text-sm text-ink-faint">{project.code}</p>
+          <h1 className="text-2xl font-semibold">Trend of approved baselines</h1>
+        </div>
+        <Link className="text-sm text-cost underline" href={`/projects/${project.id}/decisions`}>
+          Every decision
+        </Link>
+      </header>
+      {!current ? (
+        <EmptyState title="No approved baseline yet">
+          Start a run, open its brief and send it to the sponsors: once a sponsor approves it, it appears
+          here.
+        </EmptyState>
+      ) : (
+        <>
+          <p data-testid="current-baseline">
+            Current baseline: <strong>run {current.runId}</strong>, approved {dateText(current.decidedAt)} by{' '}
+            {current.sponsorName} at {current.stage}: P80{' '}
+            <strong>{formatMoney(current.p80, project.currency)}</strong>, base{' '}
+            {formatMoney(current.base, project.currency)}.
+          </p>
+          <div className="grid grid-cols-[3fr_2fr] gap-4">
+            <TrendChart rows={rows} currency={project.currency} />
+            <Card title="Figures">
+              <TrendTable rows={rows} currency={project.currency} projectId={project.id} />
+            </Card>
+          </div>
+          <ResultCautions />
+        </>
+      )}
+    </div>
+  );
+}
