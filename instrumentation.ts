@@ -1,5 +1,6 @@
-// Runs once when the Next.js server starts. The mail sender lives in the server process so
-// that the outbox is delivered wherever the app runs, without a separate worker to deploy.
+// Runs once when the Next.js server starts: the background work of the server process, so
+// that it happens wherever the app runs, without a separate worker to deploy. The mail
+// sender delivers the outbox (lib/mail); interrupted simulation runs are recovered.
 export async function register() {
   if (process.env.NEXT_RUNTIME === 'nodejs') {
     const { startMailSender } = await import('./lib/mail/sender');
