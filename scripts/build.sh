@@ -6,7 +6,7 @@ cd "$ROOT"
 export NEXT_TELEMETRY_DISABLED=1
 dist="${NEXT_DIST_DIR:-.next}"
 stamp="$dist/.source-hash"
-hash="$( (git ls-files -co --exclude-standard -- app components lib models types public proxy.ts \
+hash="$( (git ls-files -co --exclude-standard -- app components lib models types public proxy.ts instrumentation.ts \
   next.config.mjs tailwind.config.ts postcss.config.mjs tsconfig.json package-lock.json 2>/dev/null || true) \
   | sort | xargs -r sha1sum 2>/dev/null | sha1sum | cut -d' ' -f1)"
 if [ -f "$dist/BUILD_ID" ] && [ -f "$stamp" ] && [ "$(cat "$stamp")" = "$hash" ]; then
