@@ -107,7 +107,10 @@ export default async function BriefPage({ params }: Params) {
         <p className="text-sm text-ink-faint">
           Brief for sponsors · {project.code} · run {run.id}
         </p>
-        <h1 className="text-2xl font-semibold">{project.name}</h1>
+        {/* The workspace layout holds the page's h1; the brief's own title is what prints. */}
+        <h2 className="text-2xl font-semibold" data-testid="brief-title">
+          {project.name}
+        </h2>
         <p className="text-ink-soft">
           {project.stage} · Class {project.estimateClass} estimate · {project.currency} · run by{' '}
           {run.startedByName ?? 'a former member'}

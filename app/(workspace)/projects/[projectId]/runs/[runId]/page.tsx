@@ -1,0 +1,79 @@
+import Link from 'next/link';
+import { requirePageActor } from '@/lib/auth/guard';
+import { can } from '@/lib/auth/roles';
+import { getRun, getRunOutcome } from '@/lib/services/runs';
+import { sampleCharts } from '@/lib/runs/outcome-data';
+import { buttonClass } from '@/components/ui/button';
+import { OutcomeView } from '@/components/runs/outcome-view';
+import { RunProgress } from '@/components/runs/run-progress';
+import { RunStatusBadge } from '@/components/runs/run-status';
+import { settingsText } from '@/components/runs/settings-text';
+import { orNotFound, projectFor } from '../page-data';
+
+export const metadata = { title: 'Run outcome' };
+
+const when = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' });
+
+export default async function RunPage({ params }: { params: Promise<{ projectId: string; runId: string }> }) {
+  const { projectId, runId } = await params;
+  const actor = await requirePageActor('run:read', `/projects/${projectId}/runs/${runId}`);
+  const project = await projectFor(actor, projectId);
+  const run = await orNotFound(getRun(actor, project.id, Number(runId)));
+  const outcome = run.status === 'succeeded' ? await getRunOutcome(actor, project.id, run.id) : null;
+  const names: Record<string, string> = {};
+  if (outcome) {
+    const m = outcome.snapshot;
+    for (const line of [...m.items, ...(m.risks ?? []), ...(m.activities ?? [])])
+      names[line.id] = line.name ?? '';
+  }
+  return (
+    <div className="space-y-5">
+      <div className="flex items-end gap-4">
+        <div className="space-y-0.5">
+          <p className="text-sm text-ink-faint">
+            <Link href={`/projects/${project.id}/runs`} className="hover:underline">
+              {project.code} · Runs
+            </Link>
+          </p>
+          <h1 className="flex items-center gap-3 text-2xl font-semibold">
+            Run {run.id} <RunStatusBadge status={run.status} />
+          </h1>
+          <p className="text-sm text-ink-soft">
+            {settingsText(run.settings)}
+            {outcome ? ` · ${outcome.result.iterations.toLocaleString('en-GB')} iterations run` : ''}
+          </p>
+          <p className="text-xs text-ink-faint">
+            Started by {run.startedBy?.name ?? 'a former member'} on {when.format(new Date(run.createdAt))}{' '}
+            UTC · input{' '}
+            <span className="font-mono" title={run.inputHash}>
+              {run.inputHash.slice(0, 12)}
+            </span>
+          </p>
+        </div>
+        <div className="ml-auto flex gap-2">
+          <a
+            href={`/api/projects/${project.id}/runs/${run.id}/snapshot`}
+            className={buttonClass('secondary')}
+            download
+          >
+            Download model file
+          </a>
+          <Link href={`/projects/${project.id}/runs`} className={buttonClass('ghost')}>
+            All runs
+          </Link>
+        </div>
+      </div>
+      {outcome ? (
+        <OutcomeView
+          project={project}
+          run={outcome.run}
+          result={outcome.result}
+          charts={outcome.sample ? sampleCharts(outcome.sample) : null}
+          names={names}
+        />
+      ) : (
+        <RunProgress initial={run} mayCancel={can(actor.role, 'run:cancel')} />
+      )}
+    </div>
+  );
+}

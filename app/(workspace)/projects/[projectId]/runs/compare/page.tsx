@@ -1,0 +1,67 @@
+import Link from 'next/link';
+import { requirePageActor } from '@/lib/auth/guard';
+import { compareRuns } from '@/lib/services/runs';
+import { EmptyState } from '@/components/ui/card';
+import { CompareView } from '@/components/runs/compare-view';
+import { isAppError } from '@/lib/errors';
+import { orNotFound, projectFor } from '../page-data';
+
+export const metadata = { title: 'Compare runs' };
+
+export default async function CompareRunsPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ projectId: string }>;
+  searchParams: Promise<{ a?: string; b?: string }>;
+}) {
+  const { projectId } = await params;
+  const { a, b } = await searchParams;
+  const actor = await requirePageActor('run:read', `/projects/${projectId}/runs/compare`);
+  const project = await projectFor(actor, projectId);
+  const back = (
+    <Link href={`/projects/${project.id}/runs`} className="text-cost hover:underline">
+      Back to the runs
+    </Link>
+  );
+  if (!a || !b || a === b) {
+    return (
+      <EmptyState title="Choose two runs to compare">
+        Tick two finished runs in the list of runs, then press Compare selected. {back}
+      </EmptyState>
+    );
+  }
+  let comparison;
+  try {
+    comparison = await orNotFound(compareRuns(actor, project.id, Number(a), Number(b)));
+  } catch (e) {
+    if (isAppError(e) && e.status === 409) {
+      return (
+        <EmptyState title="Only finished runs can be compared">
+          {e.message} {back}
+        </EmptyState>
+      );
+    }
+    throw e;
+  }
+  return (
+    <div className="space-y-5">
+      <div>
+        <p className="text-sm text-ink-faint">
+          <Link href={`/projects/${project.id}/runs`} className="hover:underline">
+            {project.code} · Runs
+          </Link>
+        </p>
+        <h1 className="text-2xl font-semibold">
+          Run {comparison.a.run.id} and run {comparison.b.run.id}
+        </h1>
+      </div>
+      <CompareView
+        project={project}
+        a={{ run: comparison.a.run, result: comparison.a.result }}
+        b={{ run: comparison.b.run, result: comparison.b.result }}
+        diff={comparison.diff}
+      />
+    </div>
+  );
+}

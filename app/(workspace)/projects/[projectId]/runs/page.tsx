@@ -1,0 +1,47 @@
+import { randomInt } from 'node:crypto';
+import Link from 'next/link';
+import { requirePageActor } from '@/lib/auth/guard';
+import { can } from '@/lib/auth/roles';
+import { listRuns } from '@/lib/services/runs';
+import { MAX_SEED } from '@/lib/validation/runs';
+import { Card } from '@/components/ui/card';
+import { RunSettingsForm } from '@/components/runs/run-settings-form';
+import { RunsHistory } from '@/components/runs/runs-history';
+import { projectFor } from './page-data';
+
+export const metadata = { title: 'Runs' };
+
+export default async function RunsPage({ params }: { params: Promise<{ projectId: string }> }) {
+  const { projectId } = await params;
+  const actor = await requirePageActor('run:read', `/projects/${projectId}/runs`);
+  const project = await projectFor(actor, projectId);
+  const runs = await listRuns(actor, project.id);
+  return (
+    <div className="space-y-5">
+      <div>
+        <p className="text-sm text-ink-faint">
+          <Link href={`/projects/${project.id}`} className="hover:underline">
+            {project.code}
+          </Link>{' '}
+          · {project.name}
+        </p>
+        <h1 className="text-2xl font-semibold">Runs</h1>
+      </div>
+      {can(actor.role, 'run:start') ? (
+        <Card title="Start a run">
+          <RunSettingsForm
+            projectId={project.id}
+            initialSeed={randomInt(1, MAX_SEED + 1)}
+            baseDate={project.baseDate}
+            currency={project.currency}
+          />
+        </Card>
+      ) : (
+        <p className="text-sm text-ink-soft">
+          Estimators and owners start runs; you can read every run below.
+        </p>
+      )}
+      <RunsHistory projectId={project.id} currency={project.currency} initial={runs} />
+    </div>
+  );
+}
