@@ -54,6 +54,9 @@ export class SimulationRun extends Model<
 SimulationRun.init(
   {
     id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+    organizationId: { type: DataTypes.INTEGER, allowNull: false },
+    projectId: { type: DataTypes.INTEGER, allowNull: false },
+    startedById: { type: DataTypes.INTEGER, allowNull: true },
     status: { type: DataTypes.ENUM(...RUN_STATUSES), allowNull: false, defaultValue: 'queued' },
     settings: { type: DataTypes.JSON, allowNull: false },
     progress: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0 },

@@ -19,17 +19,17 @@ export function formatMoney(value: number, currency: string): string {
   return f.format(value);
 }
 
-/** Short money for chart axes: "€12.3M", "€850k". */
+/** Short money for chart axes and markers, three significant digits: "€12.3m", "€850k". */
 export function formatMoneyShort(value: number, currency: string): string {
   try {
     return new Intl.NumberFormat('en-GB', {
       style: 'currency',
       currency,
       notation: 'compact',
-      maximumFractionDigits: 1,
+      maximumSignificantDigits: 3,
     }).format(value);
   } catch {
-    return new Intl.NumberFormat('en-GB', { notation: 'compact', maximumFractionDigits: 1 }).format(value);
+    return new Intl.NumberFormat('en-GB', { notation: 'compact', maximumSignificantDigits: 3 }).format(value);
   }
 }
 

@@ -106,3 +106,32 @@ export function shareWithin(
   for (let i = 0; i < cost.length; i++) if (cost[i] <= costTarget && duration[i] <= durationTarget) k++;
   return cost.length ? k / cost.length : 0;
 }
+
+export type SampleCharts = {
+  /** Iterations in the sample, and in the run. */
+  n: number;
+  of: number;
+  cost: Histogram;
+  duration: Histogram | null;
+  /** (duration, cost) points for the scatter, thinned evenly to at most `maxPoints`. */
+  scatter: Point[];
+};
+
+/** The sample's histograms and scatter points, computed once on the server. */
+export function sampleCharts(
+  sample: { n: number; of: number; cost: number[]; duration: number[] | null },
+  maxPoints = 2500,
+): SampleCharts {
+  const step = Math.max(1, Math.ceil(sample.n / maxPoints));
+  const scatter: Point[] = [];
+  if (sample.duration) {
+    for (let i = 0; i < sample.n; i += step) scatter.push({ x: sample.duration[i], y: sample.cost[i] });
+  }
+  return {
+    n: sample.n,
+    of: sample.of,
+    cost: histogram(sample.cost),
+    duration: sample.duration ? histogram(sample.duration) : null,
+    scatter,
+  };
+}

@@ -1,0 +1,199 @@
+'use client';
+
+import '@/components/charts/setup';
+import { ChartFrame } from '@/components/charts/chart-frame';
+import { SCurveCompare } from '@/components/charts/s-curve-compare';
+import { ResultCautions } from '@/components/ui/notice';
+import type { PercentileKey, SimulationResult, TotalSummary } from '@/lib/sim/types';
+import type { RunView } from '@/lib/services/runs/view';
+import type { SnapshotDiff } from '@/lib/runs/snapshot-diff';
+import { percentileCurve } from '@/lib/runs/outcome-data';
+import { finishDate } from '@/lib/runs/working-days';
+import { formatDays, formatMoney, formatMoneyShort } from '@/lib/runs/format';
+import { settingsText } from './settings-text';
+
+type Side = { run: RunView; result: SimulationResult };
+
+const LEVELS: PercentileKey[] = ['P10', 'P50', 'P80', 'P90'];
+const KIND_LABEL = {
+  item: 'Line item',
+  risk: 'Risk event',
+  activity: 'Activity',
+  correlation: 'Correlation',
+};
+
+const show = (v: unknown) =>
+  v === null || v === undefined ? '—' : typeof v === 'object' ? JSON.stringify(v) : String(v);
+
+function ValuesTable({
+  title,
+  a,
+  b,
+  format,
+}: {
+  title: string;
+  a: TotalSummary;
+  b: TotalSummary;
+  format: (v: number) => string;
+}) {
+  return (
+    <table className="w-full border-collapse text-sm">
+      <caption className="pb-1 text-left text-xs font-semibold uppercase tracking-wide text-ink-soft">
+        {title}
+      </caption>
+      <thead className="text-xs text-ink-soft">
+        <tr className="border-b border-rule">
+          <th className="py-1 text-left font-medium">Level</th>
+          <th className="py-1 text-right font-medium">Older</th>
+          <th className="py-1 text-right font-medium">Newer</th>
+          <th className="py-1 text-right font-medium">Change</th>
+        </tr>
+      </thead>
+      <tbody>
+        {(['base', ...LEVELS] as const).map((k) => {
+          const va = k === 'base' ? a.base : a.percentiles[k];
+          const vb = k === 'base' ? b.base : b.percentiles[k];
+          return (
+            <tr key={k} className="border-b border-rule/60">
+              <td className="py-0.5">{k === 'base' ? 'Base' : k}</td>
+              <td className="num py-0.5">{format(va)}</td>
+              <td className="num py-0.5">{format(vb)}</td>
+              <td className="num py-0.5">
+                {vb - va >= 0 ? '+' : '−'}
+                {format(Math.abs(vb - va))}
+              </td>
+            </tr>
+          );
+        })}
+      </tbody>
+    </table>
+  );
+}
+
+export function CompareView({
+  project,
+  a,
+  b,
+  diff,
+}: {
+  project: { currency: string; baseDate: string };
+  a: Side;
+  b: Side;
+  diff: SnapshotDiff;
+}) {
+  const money = (v: number) => formatMoney(v, project.currency);
+  const moneyShort = (v: number) => formatMoneyShort(v, project.currency);
+  const dateOf = (d: number) => finishDate(project.baseDate, d);
+  const [older, newer] = a.run.id < b.run.id ? [a, b] : [b, a];
+  const labels: [string, string] = [`Run ${older.run.id}`, `Run ${newer.run.id}`];
+  const dA = older.result.duration;
+  const dB = newer.result.duration;
+  const p80Change = newer.result.cost.percentiles.P80 - older.result.cost.percentiles.P80;
+  return (
+    <div className="space-y-5" data-testid="run-compare">
+      <div className="grid grid-cols-[1fr_320px] gap-4">
+        <div className="grid grid-cols-2 gap-3 text-sm">
+          {[older, newer].map((s) => (
+            <p key={s.run.id} className="rounded border border-rule bg-paper-raised px-3 py-2">
+              <strong>Run {s.run.id}</strong> · {new Date(s.run.createdAt).toLocaleString('en-GB')} ·{' '}
+              {s.run.startedBy?.name ?? '—'}
+              <br />
+              <span className="text-xs text-ink-soft">{settingsText(s.run.settings)}</span>
+            </p>
+          ))}
+        </div>
+        <ResultCautions />
+      </div>
+      <div className="grid grid-cols-2 gap-4">
+        <div className="space-y-4 rounded border border-rule bg-paper-raised p-3">
+          <ValuesTable title="Cost" a={older.result.cost} b={newer.result.cost} format={money} />
+          {dA && dB ? (
+            <ValuesTable title="Duration (working days)" a={dA} b={dB} format={(v) => formatDays(v)} />
+          ) : null}
+        </div>
+        <ChartFrame
+          title="Cost S-curves"
+          reading={`The cost P80 moved by ${p80Change >= 0 ? '+' : '−'}${money(Math.abs(p80Change))} from run ${older.run.id} to run ${newer.run.id}.`}
+          height={260}
+        >
+          <SCurveCompare
+            a={percentileCurve(older.result.cost)}
+            b={percentileCurve(newer.result.cost)}
+            labels={labels}
+            formatX={moneyShort}
+            xTitle={`Total cost (${project.currency})`}
+          />
+        </ChartFrame>
+        {dA && dB ? (
+          <ChartFrame
+            title="Finish-date S-curves"
+            reading={`The P80 finish moved from ${dateOf(dA.percentiles.P80)} to ${dateOf(dB.percentiles.P80)}.`}
+            height={260}
+          >
+            <SCurveCompare
+              a={percentileCurve(dA)}
+              b={percentileCurve(dB)}
+              labels={labels}
+              formatX={dateOf}
+              xTitle="Finish date (working days from the base date)"
+            />
+          </ChartFrame>
+        ) : null}
+      </div>
+      <section className="space-y-2">
+        <h2 className="border-b border-rule pb-1 text-base font-semibold">What changed in the inputs</h2>
+        {diff.lines.length === 0 && diff.other.length === 0 ? (
+          <p className="text-sm text-ink-soft">Both runs read the same inputs and settings.</p>
+        ) : (
+          <table
+            className="w-full border-collapse rounded border border-rule bg-paper-raised text-sm"
+            data-testid="input-changes"
+          >
+            <thead className="bg-paper-sunk text-left text-xs uppercase tracking-wide text-ink-soft">
+              <tr>
+                <th className="px-3 py-1.5">Change</th>
+                <th className="px-3 py-1.5">Line</th>
+                <th className="px-3 py-1.5">Field</th>
+                <th className="px-3 py-1.5">Run {older.run.id}</th>
+                <th className="px-3 py-1.5">Run {newer.run.id}</th>
+              </tr>
+            </thead>
+            <tbody>
+              {diff.lines.flatMap((l) =>
+                (l.fields.length ? l.fields : [null]).map((f, i) => (
+                  <tr
+                    key={`${l.kind}-${l.id}-${i}`}
+                    className="border-t border-rule align-top"
+                    data-change={l.change}
+                  >
+                    <td className="px-3 py-1">{i === 0 ? l.change : ''}</td>
+                    <td className="px-3 py-1">
+                      {i === 0 ? (
+                        <>
+                          {KIND_LABEL[l.kind]} <strong>{l.id}</strong>{' '}
+                          {l.name ? <span className="text-ink-soft">{l.name}</span> : null}
+                        </>
+                      ) : null}
+                    </td>
+                    <td className="px-3 py-1">{f?.field ?? ''}</td>
+                    <td className="px-3 py-1 font-mono text-xs">{f ? show(f.before) : ''}</td>
+                    <td className="px-3 py-1 font-mono text-xs">{f ? show(f.after) : ''}</td>
+                  </tr>
+                )),
+              )}
+              {diff.other.map((o) => (
+                <tr key={o.field} className="border-t border-rule align-top" data-change="settings">
+                  <td className="px-3 py-1">changed</td>
+                  <td className="px-3 py-1">Run {o.field}</td>
+                  <td className="px-3 py-1" />
+                  <td className="px-3 py-1 font-mono text-xs">{show(o.before)}</td>
+                  <td className="px-3 py-1 font-mono text-xs">{show(o.after)}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        )}
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,70 @@
+import type { PercentileKey, TotalSummary } from '@/lib/sim/types';
+import { TABLE_KEYS } from '@/lib/runs/outcome-data';
+
+/**
+ * The P-table: each confidence level with its value and, where the result holds it, the
+ * distribution-free 95% interval; for cost also the contingency over the base.
+ */
+export function PercentileTable({
+  summary,
+  format,
+  caption,
+  withContingency,
+  extra,
+  testId,
+}: {
+  summary: TotalSummary;
+  format: (v: number) => string;
+  caption: string;
+  withContingency?: boolean;
+  /** An extra column, e.g. the finish date of a duration. */
+  extra?: { title: string; cell: (v: number) => string };
+  testId?: string;
+}) {
+  const ci = summary.percentileCI95 as Partial<Record<PercentileKey, [number, number]>>;
+  return (
+    <table className="w-full border-collapse text-sm" data-testid={testId}>
+      <caption className="pb-1 text-left text-xs font-semibold uppercase tracking-wide text-ink-soft">
+        {caption}
+      </caption>
+      <thead className="text-xs text-ink-soft">
+        <tr className="border-b border-rule">
+          <th className="py-1 pr-2 text-left font-medium">Level</th>
+          <th className="py-1 pr-2 text-right font-medium">Value</th>
+          {extra ? <th className="py-1 pr-2 text-right font-medium">{extra.title}</th> : null}
+          <th className="py-1 pr-2 text-right font-medium">95 % interval</th>
+          {withContingency ? <th className="py-1 text-right font-medium">Over base</th> : null}
+        </tr>
+      </thead>
+      <tbody>
+        {TABLE_KEYS.map((k) => {
+          const v = summary.percentiles[k];
+          const strong = k === 'P50' || k === 'P80';
+          return (
+            <tr key={k} className={`border-b border-rule/60 ${strong ? 'font-semibold' : ''}`} data-level={k}>
+              <td className="py-0.5 pr-2">{k}</td>
+              <td className="num py-0.5 pr-2" data-testid={testId ? `${testId}-${k}` : undefined}>
+                {format(v)}
+              </td>
+              {extra ? <td className="num py-0.5 pr-2">{extra.cell(v)}</td> : null}
+              <td className="num py-0.5 pr-2 text-ink-soft">
+                {ci[k] ? `${format(ci[k][0])} – ${format(ci[k][1])}` : '—'}
+              </td>
+              {withContingency ? <td className="num py-0.5">{format(v - summary.base)}</td> : null}
+            </tr>
+          );
+        })}
+      </tbody>
+      <tfoot className="text-xs text-ink-soft">
+        <tr>
+          <td className="pt-1">Base</td>
+          <td className="num pt-1">{format(summary.base)}</td>
+          {extra ? <td className="num pt-1">{extra.cell(summary.base)}</td> : null}
+          <td className="num pt-1" colSpan={withContingency ? 2 : 1}>
+            mean {format(summary.mean)}
+          </td>
+        </tr>
+      </tfoot>
+    </table>
+  );
+}

@@ -1,0 +1,123 @@
+'use client';
+
+import { useState } from 'react';
+import Link from 'next/link';
+import { useRouter } from 'next/navigation';
+import { useQuery } from '@tanstack/react-query';
+import { Button } from '@/components/ui/button';
+import { EmptyState } from '@/components/ui/card';
+import { callApi } from '@/components/forms/api';
+import type { RunView } from '@/lib/services/runs/view';
+import { formatDays, formatMoney } from '@/lib/runs/format';
+import { RunStatusBadge } from './run-status';
+import { settingsText } from './settings-text';
+
+const when = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+
+/** The project's runs, newest first; refreshed every second while one is queued or running. */
+export function RunsHistory({
+  projectId,
+  currency,
+  initial,
+}: {
+  projectId: number;
+  currency: string;
+  initial: RunView[];
+}) {
+  const router = useRouter();
+  const { data: runs = initial } = useQuery({
+    queryKey: ['runs', projectId],
+    queryFn: async () => (await callApi<{ runs: RunView[] }>(`/api/projects/${projectId}/runs`)).runs,
+    initialData: initial,
+    refetchInterval: (q) =>
+      q.state.data?.some((r) => r.status === 'queued' || r.status === 'running') ? 1000 : false,
+  });
+  const [picked, setPicked] = useState<number[]>([]);
+
+  if (runs.length === 0) {
+    return (
+      <EmptyState title="No runs yet">
+        Choose the settings above and start the first run; its outcome will be listed here.
+      </EmptyState>
+    );
+  }
+  const toggle = (id: number) =>
+    setPicked((p) => (p.includes(id) ? p.filter((x) => x !== id) : [...p.slice(-1), id]));
+  const [older, newer] = [...picked].sort((a, b) => a - b);
+
+  return (
+    <div className="space-y-2">
+      <div className="flex items-center gap-3">
+        <p className="text-sm text-ink-soft">Tick two finished runs to compare them.</p>
+        <Button
+          variant="secondary"
+          disabled={picked.length !== 2}
+          onClick={() => router.push(`/projects/${projectId}/runs/compare?a=${older}&b=${newer}`)}
+        >
+          Compare selected
+        </Button>
+      </div>
+      <table
+        className="w-full border-collapse rounded border border-rule bg-paper-raised text-sm"
+        data-testid="runs-table"
+      >
+        <thead className="bg-paper-sunk text-left text-xs uppercase tracking-wide text-ink-soft">
+          <tr>
+            <th className="w-8 px-2 py-2">
+              <span className="sr-only">Compare</span>
+            </th>
+            <th className="px-3 py-2">Run</th>
+            <th className="px-3 py-2">Status</th>
+            <th className="px-3 py-2">Started</th>
+            <th className="px-3 py-2">By</th>
+            <th className="px-3 py-2">Settings</th>
+            <th className="px-3 py-2 text-right">Cost P50</th>
+            <th className="px-3 py-2 text-right">Cost P80</th>
+            <th className="px-3 py-2 text-right">Duration P80</th>
+          </tr>
+        </thead>
+        <tbody>
+          {runs.map((r) => (
+            <tr key={r.id} className="border-t border-rule hover:bg-paper" data-run-id={r.id}>
+              <td className="px-2 py-1.5">
+                <input
+                  type="checkbox"
+                  aria-label={`Compare run ${r.id}`}
+                  disabled={r.status !== 'succeeded'}
+                  checked={picked.includes(r.id)}
+                  onChange={() => toggle(r.id)}
+                />
+              </td>
+              <td className="px-3 py-1.5 font-medium">
+                <Link href={`/projects/${projectId}/runs/${r.id}`} className="text-cost hover:underline">
+                  Run {r.id}
+                </Link>
+              </td>
+              <td className="px-3 py-1.5">
+                <RunStatusBadge status={r.status} />
+                {r.status === 'running' ? (
+                  <span className="num ml-2 text-xs text-ink-soft">{Math.round(r.progress * 100)} %</span>
+                ) : null}
+                {r.status === 'queued' && r.queuePosition ? (
+                  <span className="ml-2 text-xs text-ink-soft">#{r.queuePosition} in queue</span>
+                ) : null}
+              </td>
+              <td className="num px-3 py-1.5 text-left">{when.format(new Date(r.createdAt))}</td>
+              <td className="px-3 py-1.5">{r.startedBy?.name ?? '—'}</td>
+              <td className="px-3 py-1.5 text-xs text-ink-soft">{settingsText(r.settings)}</td>
+              <td className="num px-3 py-1.5">
+                {r.summary ? formatMoney(r.summary.cost.P50, currency) : '—'}
+              </td>
+              <td className="num px-3 py-1.5 font-semibold">
+                {r.summary ? formatMoney(r.summary.cost.P80, currency) : '—'}
+              </td>
+              <td className="num px-3 py-1.5">
+                {r.summary?.duration ? formatDays(r.summary.duration.P80) : '—'}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
