@@ -21,7 +21,8 @@ function fail(message: string, code: number): never {
 
 function positiveInt(name: string, value: string | undefined): number | undefined {
   if (value === undefined) return undefined;
-  if (!/^\d+$/.test(value) || Number(value) < 1) fail(`--${name} must be a positive integer (got "${value}")\n${USAGE}`, 2);
+  if (!/^\d+$/.test(value) || Number(value) < 1)
+    fail(`--${name} must be a positive integer (got "${value}")\n${USAGE}`, 2);
   return Number(value);
 }
 
@@ -55,13 +56,17 @@ async function main() {
   if (sampling !== undefined && sampling !== 'mc' && sampling !== 'lhs') {
     fail(`--sampling must be mc or lhs (got "${sampling}")\n${USAGE}`, 2);
   }
-  const seed = values.seed === undefined ? undefined : /^-?\d+$/.test(values.seed) ? Number(values.seed) : values.seed;
+  const seed =
+    values.seed === undefined ? undefined : /^-?\d+$/.test(values.seed) ? Number(values.seed) : values.seed;
 
   let json: unknown;
   try {
     json = JSON.parse(readFileSync(file, 'utf8'));
   } catch (e) {
-    fail(`${file}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : `not valid JSON (${(e as Error).message})`}`, 1);
+    fail(
+      `${file}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : `not valid JSON (${(e as Error).message})`}`,
+      1,
+    );
   }
   const checked = validateModel(json);
   if (!checked.ok) {
@@ -78,7 +83,8 @@ async function main() {
     sampling,
     threads,
     onProgress: showProgress
-      ? ({ done, total }) => process.stderr.write(`\r${Math.round((100 * done) / total)}% of ${total} iterations`)
+      ? ({ done, total }) =>
+          process.stderr.write(`\r${Math.round((100 * done) / total)}% of ${total} iterations`)
       : undefined,
   });
   if (showProgress) process.stderr.write('\r\x1b[K');

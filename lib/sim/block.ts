@@ -18,12 +18,15 @@
 import type { Plan } from './compile';
 import { allocateInduction, induceGroup, type InductionScratch } from './correlation/iman-conover';
 import { fillLatinHypercube, fillMonteCarlo } from './random/columns';
-import { streamFor } from './random/sfc32';
+import { Sfc32, streamFor } from './random/sfc32';
 import { allocateForwardPass, type ForwardPassBuffers, forwardPass } from './schedule/forward-pass';
 import type { Sampling } from './types';
 
 /** Iterations per block; fixed, so that the split does not depend on the thread count. */
 export const BLOCK_SIZE = 1000;
+
+/** Value of one step of a stored grade: grades are kept as ⌊g·2¹⁶⌋ and read as (k + ½)/2¹⁶. */
+export const GRADE_UNIT = 1 / 65536;
 
 export interface BlockOutput {
   block: number;
@@ -35,6 +38,8 @@ export interface BlockOutput {
   critical: Int32Array;
   /** Tornado grades: input s, iteration i at s·n + i, as ⌊grade·2¹⁶⌋. */
   grades: Uint16Array;
+  /** Per tornado input: Σg and Σg² of its grades g = (stored + ½)/2¹⁶ over the block. */
+  gradeSums: Float64Array;
   /** Per correlation entry: Σa, Σb, Σa², Σb², Σab of the pair's uniforms. */
   pairSums: Float64Array;
 }
@@ -53,6 +58,7 @@ interface Workspace {
   tmp: Float64Array;
   occurred: Uint8Array;
   perm: Int32Array;
+  rng: Sfc32;
   induction: InductionScratch;
   schedule: ForwardPassBuffers | null;
   /** Row of each variable / risk in the grades, −1 when not a tornado input. */
@@ -97,6 +103,7 @@ function workspaceFor(plan: Plan, n: number): Workspace {
     tmp: new Float64Array(stride),
     occurred: new Uint8Array(stride),
     perm: new Int32Array(stride),
+    rng: new Sfc32(),
     induction: allocateInduction(plan.maxGroupSize, stride),
     schedule: acts ? allocateForwardPass(acts, stride) : null,
     gradeRowOfVariable,
@@ -120,25 +127,39 @@ export function simulateBlock(
 ): BlockOutput {
   const ws = workspaceFor(plan, n);
   const { tmp, occurred } = ws;
-  const grades = new Uint16Array(plan.sensitivity.length * n);
+  const rows = plan.sensitivity.length;
+  const grades = new Uint16Array(rows * n);
+  const gradeSums = new Float64Array(2 * rows);
 
   /** The uniforms of variable v: its group's column, or drawn now into `into`. */
   const uniforms = (v: number, into: Float64Array): Float64Array => {
     const grouped = ws.groupedColumn[v];
     if (grouped) return grouped;
-    const rng = streamFor(key, block, v);
+    const rng = streamFor(key, block, v, ws.rng);
     if (sampling === 'lhs') fillLatinHypercube(rng, into, n, ws.perm);
     else fillMonteCarlo(rng, into, n);
     return into;
   };
-  const writeGrades = (row: number, u: Float64Array) => {
+  /** Stores ⌊g·2¹⁶⌋ for row `row` and its block sums Σg, Σg² (g read back as (k + ½)/2¹⁶). */
+  const writeGrades = (row: number, g: Float64Array, scale: number) => {
     const off = row * n;
-    for (let i = 0; i < n; i++) grades[off + i] = (u[i] * 65536) | 0;
+    let s1 = 0;
+    let s2 = 0;
+    for (let i = 0; i < n; i++) {
+      const x = g[i] * scale;
+      const k = x >= 65535 ? 65535 : x | 0;
+      grades[off + i] = k;
+      const back = (k + 0.5) * GRADE_UNIT;
+      s1 += back;
+      s2 += back * back;
+    }
+    gradeSums[2 * row] = s1;
+    gradeSums[2 * row + 1] = s2;
   };
   const column = (v: number, into: Float64Array): Float64Array => {
     const u = uniforms(v, into);
     const row = ws.gradeRowOfVariable[v];
-    if (row >= 0) writeGrades(row, u);
+    if (row >= 0) writeGrades(row, u, 65536);
     return u;
   };
 
@@ -194,20 +215,18 @@ export function simulateBlock(
     }
     const row = ws.gradeRowOfRisk[r];
     if (row >= 0) {
-      const off = row * n;
       const pc = Math.min(1, Math.max(0, p));
-      const no = ((1 - pc) / 2) * 65536;
-      for (let i = 0; i < n; i++) {
-        const x = occurred[i] ? (1 - pc + pc * (sev ? sev[i] : 0.5)) * 65536 : no;
-        grades[off + i] = x >= 65535 ? 65535 : x | 0;
-      }
+      const no = (1 - pc) / 2;
+      for (let i = 0; i < n; i++) tmp[i] = occurred[i] ? 1 - pc + pc * (sev ? sev[i] : 0.5) : no;
+      writeGrades(row, tmp, 65536);
     }
   }
 
   // 5. Schedule.
   const duration = new Float64Array(plan.network ? n : 0);
   const critical = new Int32Array(acts);
-  if (plan.network && ws.schedule) forwardPass(plan.network, ws.durations, n, ws.schedule, duration, critical);
+  if (plan.network && ws.schedule)
+    forwardPass(plan.network, ws.durations, n, ws.schedule, duration, critical);
 
   // 6. Time-dependent items.
   for (const { rate, v, activity } of plan.rateItems) {
@@ -244,5 +263,5 @@ export function simulateBlock(
     pairSums.set([sa, sb, saa, sbb, sab], k * 5);
   });
 
-  return { block, n, cost, duration, critical, grades, pairSums };
+  return { block, n, cost, duration, critical, grades, gradeSums, pairSums };
 }

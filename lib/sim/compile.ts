@@ -104,7 +104,9 @@ export function compileModel(model: Model): Plan {
   const activities: ActivityPlan[] = activitiesIn.map((a) => {
     const dist = createDistribution(a.duration, { where: a.id, field: 'duration' });
     if (dist.cdf(-1e-9) > NEGATIVE_MASS_WARNING) {
-      warnings.push(`${a.id}: its duration can be negative (P = ${dist.cdf(0).toFixed(3)}); such samples count as 0 days.`);
+      warnings.push(
+        `${a.id}: its duration can be negative (P = ${dist.cdf(0).toFixed(3)}); such samples count as 0 days.`,
+      );
     }
     const v = newColumn(a.id, dist.degenerate);
     inputColumn.set(a.id, v);
@@ -143,7 +145,9 @@ export function compileModel(model: Model): Plan {
     const cost = r.cost ? createDistribution(r.cost, { where: r.id, field: 'cost' }) : null;
     const delay = r.delay ? createDistribution(r.delay, { where: r.id, field: 'delay' }) : null;
     if (delay && delay.cdf(-1e-12) > NEGATIVE_MASS_WARNING) {
-      warnings.push(`${r.id}: its delay can be negative (P = ${delay.cdf(0).toFixed(3)}); such samples count as 0 days.`);
+      warnings.push(
+        `${r.id}: its delay can be negative (P = ${delay.cdf(0).toFixed(3)}); such samples count as 0 days.`,
+      );
     }
     const vSeverity = newColumn(r.id, !((cost && !cost.degenerate) || (delay && !delay.degenerate)));
     const vOccur = newColumn(`${r.id} (occurrence)`, !(r.probability > 0 && r.probability < 1));
@@ -216,7 +220,14 @@ export function compileModel(model: Model): Plan {
   let durationBase: number | null = null;
   if (network) {
     const total = new Float64Array(1);
-    forwardPass(network, baseDurations, 1, allocateForwardPass(network.size, 1), total, new Int32Array(network.size));
+    forwardPass(
+      network,
+      baseDurations,
+      1,
+      allocateForwardPass(network.size, 1),
+      total,
+      new Int32Array(network.size),
+    );
     durationBase = total[0];
   }
 

@@ -36,7 +36,7 @@ export function simulateSync(modelJson: unknown, options: SimulationOptions = {}
   const blocks: BlockOutput[] = [];
   const warnings: string[] = [];
   let done = 0;
-  for (let round = nextRound(settings, plan, 0, blocks, warnings); round !== null; ) {
+  for (let round = nextRound(settings, plan, 0, blocks, warnings); round !== null;) {
     const total = round;
     for (const b of blocksBetween(done, total)) {
       blocks.push(simulateBlock(plan, key, settings.sampling, b, blockLength(b, total)));

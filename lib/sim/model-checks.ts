@@ -38,7 +38,8 @@ export function checkModel(model: Model): ModelProblem[] {
       add(['items', i], 'needs a dist (or a base for a fixed amount), or a ratePerDay with an activity');
     }
     if (hasRate && item.activity === undefined) add(['items', i, 'activity'], 'is required with ratePerDay');
-    if (!hasRate && item.activity !== undefined) add(['items', i, 'activity'], 'is only used with ratePerDay');
+    if (!hasRate && item.activity !== undefined)
+      add(['items', i, 'activity'], 'is only used with ratePerDay');
     if (item.activity !== undefined && !activityIds.has(item.activity)) {
       add(['items', i, 'activity'], `unknown activity "${item.activity}"`);
     }

@@ -50,7 +50,8 @@ export function resolveSettings(model: Model, options: SimulationOptions): Resol
     throw new RangeError(`iterations must be a positive integer (got ${iterations})`);
   }
   const sampling = options.sampling ?? s.sampling ?? DEFAULT_SAMPLING;
-  if (sampling !== 'mc' && sampling !== 'lhs') throw new RangeError(`sampling must be "mc" or "lhs" (got ${sampling})`);
+  if (sampling !== 'mc' && sampling !== 'lhs')
+    throw new RangeError(`sampling must be "mc" or "lhs" (got ${sampling})`);
   // Without a seed, draw one and report it, so the run can still be reproduced.
   const seed = options.seed ?? s.seed ?? randomInt(1, 2 ** 31 - 1);
   const precision = options.precision ?? null;

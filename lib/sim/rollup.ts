@@ -51,7 +51,13 @@ function achievedCorrelations(plan: Plan, blocks: BlockOutput[], n: number): Ach
     const cov = sab - (sa * sb) / n;
     const va = saa - (sa * sa) / n;
     const vb = sbb - (sb * sb) / n;
-    return { a: c.a, b: c.b, target: c.target, used: c.used, achieved: va > 0 && vb > 0 ? cov / Math.sqrt(va * vb) : 0 };
+    return {
+      a: c.a,
+      b: c.b,
+      target: c.target,
+      used: c.used,
+      achieved: va > 0 && vb > 0 ? cov / Math.sqrt(va * vb) : 0,
+    };
   });
 }
 
@@ -101,7 +107,12 @@ export function rollUp(plan: Plan, blocks: BlockOutput[], info: RunInfo): Simula
     convergence: { iterations: [], cost: { P50: [], P50ci95: [], P80: [], P80ci95: [] } },
   };
   if (duration && durationSorted) {
-    result.duration = summarizeTotal(duration, durationSorted, plan.base.duration ?? 0, plan.targets.duration);
+    result.duration = summarizeTotal(
+      duration,
+      durationSorted,
+      plan.base.duration ?? 0,
+      plan.targets.duration,
+    );
   }
   if (duration && plan.targets.cost !== undefined && plan.targets.duration !== undefined) {
     let both = 0;
@@ -135,7 +146,11 @@ export function rollUp(plan: Plan, blocks: BlockOutput[], info: RunInfo): Simula
   result.convergence.iterations = checkpoints;
   result.convergence.cost = convergenceSeries(sortedPositions(cost, costSorted), costSorted, checkpoints);
   if (duration && durationSorted) {
-    result.convergence.duration = convergenceSeries(sortedPositions(duration, durationSorted), durationSorted, checkpoints);
+    result.convergence.duration = convergenceSeries(
+      sortedPositions(duration, durationSorted),
+      durationSorted,
+      checkpoints,
+    );
   }
   return inFileOrder(result);
 }

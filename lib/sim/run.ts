@@ -31,7 +31,7 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
   try {
     let done = 0;
     let iterationsDone = 0;
-    for (let round = nextRound(settings, plan, 0, blocks, warnings); round !== null; ) {
+    for (let round = nextRound(settings, plan, 0, blocks, warnings); round !== null;) {
       const total = round;
       const todo = blocksBetween(done, total);
       const report = (b: BlockOutput) => {

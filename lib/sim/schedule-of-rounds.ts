@@ -17,7 +17,10 @@ export function p80Precision(plan: Plan, blocks: BlockOutput[]): number {
   let worst = 0;
   for (const t of totals) {
     const sorted = t.sort();
-    worst = Math.max(worst, relativeHalfWidth(percentileOfSorted(sorted, 0.8), percentileIntervalOfSorted(sorted, 0.8)));
+    worst = Math.max(
+      worst,
+      relativeHalfWidth(percentileOfSorted(sorted, 0.8), percentileIntervalOfSorted(sorted, 0.8)),
+    );
   }
   return worst;
 }

@@ -112,5 +112,6 @@ export const modelSchema = z
     settings: settingsSchema.optional(),
   })
   .superRefine((model, ctx) => {
-    for (const p of checkModel(model as Model)) ctx.addIssue({ code: 'custom', message: p.message, path: p.path });
+    for (const p of checkModel(model as Model))
+      ctx.addIssue({ code: 'custom', message: p.message, path: p.path });
   });

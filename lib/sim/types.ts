@@ -68,7 +68,8 @@ export interface Model {
 
 export type Interval = [number, number];
 
-export type PercentileKey = 'P5' | 'P10' | 'P20' | 'P30' | 'P40' | 'P50' | 'P60' | 'P70' | 'P80' | 'P90' | 'P95';
+export type PercentileKey =
+  'P5' | 'P10' | 'P20' | 'P30' | 'P40' | 'P50' | 'P60' | 'P70' | 'P80' | 'P90' | 'P95';
 
 export interface TotalSummary {
   base: number;

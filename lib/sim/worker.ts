@@ -27,7 +27,9 @@ export default function runBlocks(task: BlockTask) {
   const outputs: BlockOutput[] = task.blocks.map((b) =>
     simulateBlock(plan, key, data.sampling, b, blockLength(b, task.total)),
   );
-  const buffers = outputs.flatMap((o) => [o.cost, o.duration, o.critical, o.grades, o.pairSums].map((a) => a.buffer));
+  const buffers = outputs.flatMap((o) =>
+    [o.cost, o.duration, o.critical, o.grades, o.gradeSums, o.pairSums].map((a) => a.buffer),
+  );
   return move({
     get [transferableSymbol]() {
       return buffers;

@@ -3,7 +3,14 @@
 // and 100 correlations in small clusters.
 
 import seedrandom from 'seedrandom';
-import type { DistSpec, Model, ModelActivity, ModelCorrelation, ModelItem, ModelRisk } from '../../lib/sim/types';
+import type {
+  DistSpec,
+  Model,
+  ModelActivity,
+  ModelCorrelation,
+  ModelItem,
+  ModelRisk,
+} from '../../lib/sim/types';
 
 export interface BenchSize {
   items: number;
@@ -13,7 +20,13 @@ export interface BenchSize {
   correlations: number;
 }
 
-export const BENCH_SIZE: BenchSize = { items: 500, timeDependent: 50, risks: 50, activities: 200, correlations: 100 };
+export const BENCH_SIZE: BenchSize = {
+  items: 500,
+  timeDependent: 50,
+  risks: 50,
+  activities: 200,
+  correlations: 100,
+};
 
 export function inventModel(size: BenchSize = BENCH_SIZE, seed = 'bench'): Model {
   const rnd = seedrandom(seed);
@@ -52,15 +65,28 @@ export function inventModel(size: BenchSize = BENCH_SIZE, seed = 'bench'): Model
       }
     }
     const m = 5 + rnd() * 40;
-    activities.push({ id: `A${i + 1}`, name: `Activity ${i + 1}`, duration: pick([threePoint(m, 'pert'), threePoint(m, 'triangular')]), predecessors });
+    activities.push({
+      id: `A${i + 1}`,
+      name: `Activity ${i + 1}`,
+      duration: pick([threePoint(m, 'pert'), threePoint(m, 'triangular')]),
+      predecessors,
+    });
   }
 
   const items: ModelItem[] = [];
   for (let i = 0; i < size.items; i++) {
     const id = `C${i + 1}`;
-    if (i % Math.floor(size.items / size.timeDependent) === 0 && items.filter((x) => x.ratePerDay).length < size.timeDependent) {
+    if (
+      i % Math.floor(size.items / size.timeDependent) === 0 &&
+      items.filter((x) => x.ratePerDay).length < size.timeDependent
+    ) {
       const rate = 500 + rnd() * 5000;
-      items.push({ id, name: `Time-related cost ${i + 1}`, ratePerDay: amountDist(rate), activity: pick(activities).id });
+      items.push({
+        id,
+        name: `Time-related cost ${i + 1}`,
+        ratePerDay: amountDist(rate),
+        activity: pick(activities).id,
+      });
     } else {
       items.push({ id, name: `Line item ${i + 1}`, dist: amountDist(10_000 + rnd() * 400_000) });
     }
@@ -69,7 +95,12 @@ export function inventModel(size: BenchSize = BENCH_SIZE, seed = 'bench'): Model
   const risks: ModelRisk[] = [];
   for (let i = 0; i < size.risks; i++) {
     const m = 20_000 + rnd() * 800_000;
-    const risk: ModelRisk = { id: `R${i + 1}`, name: `Risk ${i + 1}`, probability: +(0.05 + 0.5 * rnd()).toFixed(2), cost: threePoint(m, pick(['triangular', 'pert'] as const)) };
+    const risk: ModelRisk = {
+      id: `R${i + 1}`,
+      name: `Risk ${i + 1}`,
+      probability: +(0.05 + 0.5 * rnd()).toFixed(2),
+      cost: threePoint(m, pick(['triangular', 'pert'] as const)),
+    };
     if (i % 3 === 0) {
       risk.delay = threePoint(3 + rnd() * 20, 'triangular');
       risk.activity = pick(activities).id;

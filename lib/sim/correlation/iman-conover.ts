@@ -17,7 +17,7 @@
 import { cholesky, invertLower, multiply } from '../math/linalg';
 import { normalQuantile } from '../math/normal';
 import { createRanker, type Ranker } from '../math/ranks';
-import { streamFor } from '../random/sfc32';
+import { Sfc32, streamFor } from '../random/sfc32';
 import type { Sampling } from '../types';
 import type { CorrelationGroup } from './plan';
 
@@ -32,6 +32,8 @@ export interface InductionScratch {
   ranker: Ranker;
   rank: Int32Array;
   perm: Int32Array;
+  firstPerm: Int32Array;
+  rng: Sfc32;
 }
 
 export function allocateInduction(maxK: number, capacity: number): InductionScratch {
@@ -46,6 +48,8 @@ export function allocateInduction(maxK: number, capacity: number): InductionScra
     ranker: createRanker(capacity),
     rank: new Int32Array(capacity),
     perm: new Int32Array(capacity),
+    firstPerm: new Int32Array(capacity),
+    rng: new Sfc32(),
   };
 }
 
@@ -73,13 +77,14 @@ export function induceGroup(
 ): void {
   const { k, vars, factor } = group;
   prepareScores(ws, n);
-  const { S, scores, perm } = ws;
+  const { S, scores } = ws;
   for (let c = 0; c < k; c++) {
-    const rng = streamFor(key, block, vars[c]);
-    rng.shuffle(perm, n);
+    // One stream per variable: the score permutation and, from the same draws, the column's
+    // LHS jitters or plain uniforms.
+    const perm = c === 0 ? ws.firstPerm : ws.perm;
+    streamFor(key, block, vars[c], ws.rng).shuffleWithFractions(perm, columns[c], n);
     const off = c * n;
     for (let i = 0; i < n; i++) S[off + i] = scores[perm[i]];
-    rng.fill01(columns[c], n);
   }
   // E = SᵀS / Σ score², then T = F Q⁻¹ (identity correction when E is singular, e.g. n ≤ k).
   const E = new Float64Array(k * k);
@@ -97,23 +102,31 @@ export function induceGroup(
   const T = Q ? multiply(factor, invertLower(Q, k), k) : factor;
   const { column, sorted, ranker, rank } = ws;
   const inv = 1 / n;
+  let firstIsScaled = T[0] > 0;
+  for (let d = 1; d < k; d++) if (T[d] !== 0) firstIsScaled = false;
   for (let c = 0; c < k; c++) {
-    column.fill(0, 0, n);
-    for (let d = 0; d < k; d++) {
-      const t = T[c * k + d];
-      if (t === 0) continue;
-      const od = d * n;
-      for (let i = 0; i < n; i++) column[i] += t * S[od + i];
+    let ranks = rank;
+    if (c === 0 && firstIsScaled) {
+      // S*₀ is a positive multiple of S₀, whose ranks are its permutation (scores increase).
+      ranks = ws.firstPerm;
+    } else {
+      column.fill(0, 0, n);
+      for (let d = 0; d < k; d++) {
+        const t = T[c * k + d];
+        if (t === 0) continue;
+        const od = d * n;
+        for (let i = 0; i < n; i++) column[i] += t * S[od + i];
+      }
+      ranker.rank(column, n, rank);
     }
-    ranker.rank(column, n, rank);
     const u = columns[c];
     if (sampling === 'lhs') {
-      for (let i = 0; i < n; i++) u[i] = (rank[i] + u[i]) * inv;
+      for (let i = 0; i < n; i++) u[i] = (ranks[i] + u[i]) * inv;
     } else {
       const s = sorted.subarray(0, n);
       s.set(u.subarray(0, n));
       s.sort();
-      for (let i = 0; i < n; i++) u[i] = s[rank[i]];
+      for (let i = 0; i < n; i++) u[i] = s[ranks[i]];
     }
   }
 }

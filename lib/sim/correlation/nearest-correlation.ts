@@ -20,7 +20,12 @@ function relDiff(a: Float64Array, b: Float64Array): number {
   return Math.sqrt(num / (den || 1));
 }
 
-export function nearestCorrelation(A: Float64Array, k: number, tol = 1e-10, maxIterations = 2000): Float64Array {
+export function nearestCorrelation(
+  A: Float64Array,
+  k: number,
+  tol = 1e-10,
+  maxIterations = 2000,
+): Float64Array {
   let Y: Float64Array = Float64Array.from(A);
   let X: Float64Array = Float64Array.from(A);
   const dS = new Float64Array(k * k);

@@ -19,6 +19,7 @@ export function createFixed(p: FixedParams, at: DistLocation): Distribution {
     mean: v,
     variance: 0,
     base: v,
+    support: [v, v],
     degenerate: true,
     quantile: () => v,
     cdf: (x) => (x < v ? 0 : 1),

@@ -46,6 +46,7 @@ export function createLognormal(p: LognormalParams, at: DistLocation): Distribut
     mean: Math.exp(mu + s2 / 2),
     variance: Math.expm1(s2) * Math.exp(2 * mu + s2),
     base: Math.exp(mu),
+    support: [0, Infinity],
     degenerate: false,
     quantile: (u) => Math.exp(mu + sigma * normalQuantile(u)),
     cdf: (x) => (x <= 0 ? 0 : normalCdf((Math.log(x) - mu) / sigma)),

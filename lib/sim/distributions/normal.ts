@@ -28,6 +28,7 @@ export function createNormal(p: NormalParams, at: DistLocation): Distribution {
     mean: mu,
     variance: sigma * sigma,
     base: mu,
+    support: [-Infinity, Infinity],
     degenerate: false,
     quantile: (u) => mu + sigma * normalQuantile(u),
     cdf: (x) => normalCdf((x - mu) / sigma),

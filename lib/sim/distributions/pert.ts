@@ -33,7 +33,8 @@ export function createPert(p: ThreePointParams, at: DistLocation): Distribution 
   const c = p.mode;
   let a = p.low;
   let b = p.high;
-  if (p.range === 'p10-p90') ({ low: a, high: b } = fitBoundsToP10P90(p.low, c, p.high, standardPertQuantile));
+  if (p.range === 'p10-p90')
+    ({ low: a, high: b } = fitBoundsToP10P90(p.low, c, p.high, standardPertQuantile));
   const w = b - a;
   const alpha = 1 + (LAMBDA * (c - a)) / w;
   const beta = 1 + (LAMBDA * (b - c)) / w;
@@ -45,6 +46,7 @@ export function createPert(p: ThreePointParams, at: DistLocation): Distribution 
     mean,
     variance: ((mean - a) * (b - mean)) / 7,
     base: c,
+    support: [a, b],
     degenerate: false,
     quantile: (u) => a + w * getTable().quantile(u),
     cdf: (x) => (x <= a ? 0 : x >= b ? 1 : jStat.ibeta((x - a) / w, alpha, beta)),

@@ -43,7 +43,8 @@ export function createTriangular(p: ThreePointParams, at: DistLocation): Distrib
   const c = p.mode;
   let a = p.low;
   let b = p.high;
-  if (p.range === 'p10-p90') ({ low: a, high: b } = fitBoundsToP10P90(p.low, c, p.high, standardTriangularQuantile));
+  if (p.range === 'p10-p90')
+    ({ low: a, high: b } = fitBoundsToP10P90(p.low, c, p.high, standardTriangularQuantile));
   const w = b - a;
   const left = (b - a) * (c - a);
   const right = (b - a) * (b - c);
@@ -55,6 +56,7 @@ export function createTriangular(p: ThreePointParams, at: DistLocation): Distrib
     mean,
     variance: (a * a + b * b + c * c - a * b - a * c - b * c) / 18,
     base: c,
+    support: [a, b],
     degenerate: false,
     quantile,
     cdf: (x) =>

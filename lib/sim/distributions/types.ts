@@ -12,6 +12,8 @@ export interface Distribution {
   readonly variance: number;
   /** The deterministic "base" value by the product's convention (mode, midpoint, mean, median, value). */
   readonly base: number;
+  /** Smallest and largest possible values (±Infinity when unbounded). */
+  readonly support: readonly [number, number];
   /** True when the distribution has no spread (it needs no random number). */
   readonly degenerate: boolean;
   /** Inverse distribution function, u in (0, 1). */

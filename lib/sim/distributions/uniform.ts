@@ -26,6 +26,7 @@ export function createUniform(p: UniformParams, at: DistLocation): Distribution 
     mean: a + w / 2,
     variance: (w * w) / 12,
     base: a + w / 2,
+    support: [a, a + w],
     degenerate: false,
     quantile: (u) => a + u * w,
     cdf: (x) => (x <= a ? 0 : x >= a + w ? 1 : (x - a) / w),

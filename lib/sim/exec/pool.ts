@@ -8,7 +8,12 @@ import type { BlockOutput } from '../block';
 import type { BlockTask, WorkerData } from '../worker';
 
 export interface BlockPool {
-  run(blocks: number[], total: number, onBlock: (b: BlockOutput) => void, signal?: AbortSignal): Promise<void>;
+  run(
+    blocks: number[],
+    total: number,
+    onBlock: (b: BlockOutput) => void,
+    signal?: AbortSignal,
+  ): Promise<void>;
   close(): Promise<void>;
 }
 
@@ -18,7 +23,17 @@ export interface BlockPool {
  * start several-fold.
  */
 export function workerExecArgv(parent: string[] = process.execArgv): string[] {
-  const withValue = new Set(['--import', '--require', '-r', '--loader', '--experimental-loader', '--eval', '-e', '--print', '-p']);
+  const withValue = new Set([
+    '--import',
+    '--require',
+    '-r',
+    '--loader',
+    '--experimental-loader',
+    '--eval',
+    '-e',
+    '--print',
+    '-p',
+  ]);
   const out: string[] = [];
   for (let i = 0; i < parent.length; i++) {
     const arg = parent[i];

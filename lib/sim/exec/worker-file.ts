@@ -28,7 +28,9 @@ export async function ensureWorkerFile(file = defaultWorkerFile()): Promise<stri
   const haveSources = existsSync(path.join(src, 'worker.ts'));
   if (existsSync(file) && (!haveSources || statSync(file).mtimeMs >= newestSource(src))) return file;
   if (!haveSources) {
-    throw new Error(`The simulation worker ${file} is missing; build it with "node scripts/build-worker.mjs".`);
+    throw new Error(
+      `The simulation worker ${file} is missing; build it with "node scripts/build-worker.mjs".`,
+    );
   }
   building ??= buildWorker(path.join(src, 'worker.ts'), file).finally(() => (building = null));
   return building;

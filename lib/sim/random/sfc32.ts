@@ -28,9 +28,19 @@ function combine(h: number, v: number): number {
 export class Sfc32 {
   private readonly s: Int32Array;
 
-  constructor(a: number, b: number, c: number, d = 1) {
-    this.s = Int32Array.of(a, b, c, d);
+  constructor(a = 0, b = 0, c = 0, d = 1) {
+    this.s = new Int32Array(4);
+    this.seed(a, b, c, d);
+  }
+
+  seed(a: number, b: number, c: number, d: number): this {
+    const s = this.s;
+    s[0] = a;
+    s[1] = b;
+    s[2] = c;
+    s[3] = d;
     for (let i = 0; i < 12; i++) this.nextU32();
+    return this;
   }
 
   nextU32(): number {
@@ -73,24 +83,46 @@ export class Sfc32 {
     s[3] = d;
   }
 
-  /** perm[0…n−1] ← a uniformly random permutation of 0…n−1 (Fisher–Yates). */
-  shuffle(perm: Int32Array, n: number): void {
+  /**
+   * perm[0…n−1] ← a uniformly random permutation of 0…n−1 (Fisher–Yates, from the last position
+   * down) and frac[0…n−1] ← independent uniforms on (0, 1), from one draw per position: at
+   * position i the draw x = U·(i + 1) gives the swap index ⌊x⌋ and frac[i] = x − ⌊x⌋, which given
+   * ⌊x⌋ is uniform and independent of everything else (x is uniform on [0, i + 1)). The products
+   * are exact in double precision, and frac never reaches 0 or 1 since U = (k + ½)/2³².
+   */
+  shuffleWithFractions(perm: Int32Array, frac: Float64Array, n: number): void {
+    this.stratified(perm, frac, n, false);
+  }
+
+  /**
+   * Latin hypercube column in one pass: out[i] = (π(i) + frac_i)/n with π and frac as in
+   * shuffleWithFractions (position i is final once the shuffle has passed it).
+   */
+  latinHypercube(perm: Int32Array, out: Float64Array, n: number): void {
+    this.stratified(perm, out, n, true);
+  }
+
+  private stratified(perm: Int32Array, frac: Float64Array, n: number, combine: boolean): void {
+    const inv = 1 / n;
     for (let i = 0; i < n; i++) perm[i] = i;
     const s = this.s;
     let a = s[0];
     let b = s[1];
     let c = s[2];
     let d = s[3];
-    for (let i = n - 1; i > 0; i--) {
+    for (let i = n - 1; i >= 0; i--) {
       const t = (((a + b) | 0) + d) | 0;
       d = (d + 1) | 0;
       a = b ^ (b >>> 9);
       b = (c + (c << 3)) | 0;
       c = (((c << 21) | (c >>> 11)) + t) | 0;
-      const j = Math.floor(((t >>> 0) + 0.5) * TWO_POW_M32 * (i + 1));
-      const x = perm[i];
-      perm[i] = perm[j];
-      perm[j] = x;
+      const x = ((t >>> 0) + 0.5) * TWO_POW_M32 * (i + 1);
+      const j = Math.floor(x);
+      const p = perm[i];
+      const q = perm[j];
+      perm[i] = q;
+      perm[j] = p;
+      frac[i] = combine ? (q + (x - j)) * inv : x - j;
     }
     s[0] = a;
     s[1] = b;
@@ -99,11 +131,14 @@ export class Sfc32 {
   }
 }
 
-/** The stream of `variable` in `block` under the run key (4 × 32 bits). */
-export function streamFor(key: Uint32Array, block: number, variable: number): Sfc32 {
+/**
+ * The stream of `variable` in `block` under the run key (4 × 32 bits); `reuse` is re-seeded
+ * instead of allocating a generator.
+ */
+export function streamFor(key: Uint32Array, block: number, variable: number, reuse?: Sfc32): Sfc32 {
   const s0 = combine(combine(key[0], block), variable);
   const s1 = combine(combine(key[1] ^ s0, variable), block);
   const s2 = combine(combine(key[2] ^ s1, block ^ 0x5bd1e995), variable);
   const s3 = combine(key[3] ^ s2, 0x27d4eb2f);
-  return new Sfc32(s0, s1, s2, s3);
+  return reuse ? reuse.seed(s0, s1, s2, s3) : new Sfc32(s0, s1, s2, s3);
 }

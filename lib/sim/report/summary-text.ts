@@ -9,7 +9,12 @@ const days = new Intl.NumberFormat('en-US', { maximumFractionDigits: 1, minimumF
 const pct = (x: number) => `${(100 * x).toFixed(1)}%`;
 const signed = (s: string, x: number) => (x >= 0 ? `+${s}` : s);
 
-function totalBlock(title: string, t: TotalSummary, f: Intl.NumberFormat, target: number | undefined): string[] {
+function totalBlock(
+  title: string,
+  t: TotalSummary,
+  f: Intl.NumberFormat,
+  target: number | undefined,
+): string[] {
   const col = (s: string) => s.padStart(14);
   const lines = [
     `${title.padEnd(18)}${col('base')}${col('P50')}${col('P80')}${col('P90')}`,
@@ -20,7 +25,9 @@ function totalBlock(title: string, t: TotalSummary, f: Intl.NumberFormat, target
   ];
   if (t.probabilityWithinTarget && target !== undefined) {
     const p = t.probabilityWithinTarget;
-    lines.push(`  within target ${f.format(target)}: ${pct(p.value)} (95% interval ${pct(p.ci95[0])}–${pct(p.ci95[1])})`);
+    lines.push(
+      `  within target ${f.format(target)}: ${pct(p.value)} (95% interval ${pct(p.ci95[0])}–${pct(p.ci95[1])})`,
+    );
   }
   return lines;
 }
@@ -40,14 +47,18 @@ export function summaryText(r: SimulationResult, ctx: SummaryContext): string {
       `seed ${r.seed}, ${ctx.threads} thread${ctx.threads === 1 ? '' : 's'}, ${(r.elapsedMs / 1000).toFixed(2)} s`,
   );
   lines.push('');
-  lines.push(...totalBlock(`Cost${ctx.currency ? ` (${ctx.currency})` : ''}`, r.cost, money, ctx.targets?.cost));
+  lines.push(
+    ...totalBlock(`Cost${ctx.currency ? ` (${ctx.currency})` : ''}`, r.cost, money, ctx.targets?.cost),
+  );
   if (r.duration) {
     lines.push('');
     lines.push(...totalBlock('Duration (days)', r.duration, days, ctx.targets?.duration));
   }
   if (r.joint) {
     lines.push('');
-    lines.push(`Both targets met: ${pct(r.joint.probability)} (95% interval ${pct(r.joint.ci95[0])}–${pct(r.joint.ci95[1])})`);
+    lines.push(
+      `Both targets met: ${pct(r.joint.probability)} (95% interval ${pct(r.joint.ci95[0])}–${pct(r.joint.ci95[1])})`,
+    );
   }
   const drivers = (list: SimulationResult['sensitivity']['cost']) =>
     list
@@ -60,7 +71,8 @@ export function summaryText(r: SimulationResult, ctx: SummaryContext): string {
   const critical = Object.entries(r.criticality)
     .sort((a, b) => b[1] - a[1])
     .slice(0, 5);
-  if (critical.length) lines.push(`Most critical: ${critical.map(([id, c]) => `${id} ${pct(c)}`).join(', ')}`);
+  if (critical.length)
+    lines.push(`Most critical: ${critical.map(([id, c]) => `${id} ${pct(c)}`).join(', ')}`);
   if (r.warnings.length) {
     lines.push('');
     lines.push('Warnings:');

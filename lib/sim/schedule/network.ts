@@ -66,8 +66,10 @@ function findCycle(activities: ModelActivity[], index: Map<string, number>): str
     for (const p of activities[a].predecessors ?? []) {
       const b = index.get(predId(p))!;
       if (colour[b] === 1) {
-        const cyc = stack.slice(stack.indexOf(b)).map((k) => activities[k].id);
-        return cyc.reverse();
+        // In precedence order, starting from the activity listed first in the model.
+        const cyc = stack.slice(stack.indexOf(b)).reverse();
+        const first = cyc.indexOf(Math.min(...cyc));
+        return [...cyc.slice(first), ...cyc.slice(0, first)].map((k) => activities[k].id);
       }
       if (colour[b] === 0) {
         const found = visit(b);

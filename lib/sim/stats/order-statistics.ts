@@ -29,7 +29,11 @@ export function quantileIntervalRanks(n: number, p: number, confidence = 0.95): 
   // from its logarithm, the rest by pmf(k+1) = pmf(k) · (n − k)/(k + 1) · p/(1 − p).
   const ratio = p / (1 - p);
   let pmf = Math.exp(
-    jStat.gammaln(n + 1) - jStat.gammaln(from + 1) - jStat.gammaln(n - from + 1) + from * Math.log(p) + (n - from) * Math.log1p(-p),
+    jStat.gammaln(n + 1) -
+      jStat.gammaln(from + 1) -
+      jStat.gammaln(n - from + 1) +
+      from * Math.log(p) +
+      (n - from) * Math.log1p(-p),
   );
   let below = 0; // P(B < from) is negligible by construction, taken as 0.
   let l = 1;

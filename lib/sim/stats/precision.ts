@@ -13,7 +13,8 @@ import { zForConfidence } from '../math/normal';
 export function iterationsForPrecision(p: number, eps: number, confidence = 0.95): number {
   if (!(p >= 0 && p <= 1)) throw new RangeError(`p must lie in [0, 1] (got ${p})`);
   if (!(eps > 0)) throw new RangeError(`eps must be greater than 0 (got ${eps})`);
-  if (!(confidence > 0 && confidence < 1)) throw new RangeError(`confidence must lie in (0, 1) (got ${confidence})`);
+  if (!(confidence > 0 && confidence < 1))
+    throw new RangeError(`confidence must lie in (0, 1) (got ${confidence})`);
   const z = zForConfidence(confidence);
   return Math.ceil((z * z * p * (1 - p)) / (eps * eps));
 }

@@ -6,20 +6,22 @@
  * (F(x⁻) + F(x))/2, which is what average ranks give to ties), known from the sampler without
  * sorting the input; the total is ranked once (mid-ranks). The grade equals the empirical rank/n up
  * to O(1/√n), and 12·E[F(X)G(Y)] − 3 is Spearman's coefficient in the population (Kruskal 1958,
- * JASA 53:814–861, §2.4). Grades are stored to 16 bits (error below 2⁻¹⁶).
+ * JASA 53:814–861, §2.4). Grades are stored to 16 bits (error below 2⁻¹⁶); the threads sum them
+ * per block, and only the cross products with the ranks are left for the roll-up.
  *
  * Variance share: squared rank correlations normalised to sum to 1 over the listed inputs, a
  * first-order attribution that ignores interactions between inputs and is exact for an additive
  * total of independent inputs on the rank scale.
  */
 
-import type { BlockOutput } from '../block';
+import { type BlockOutput, GRADE_UNIT } from '../block';
 import type { SensitivityInput } from '../compile';
 import type { SensitivityEntry } from '../types';
 
-const GRADE = 1 / 65536;
-
-/** Rank correlations of every input with each ranked total (null totals are skipped). */
+/**
+ * Rank correlation of each input with the ranked cost (inputs with `cost`) and the ranked
+ * duration (inputs with `duration`, when there is a schedule); 0 where it does not apply.
+ */
 export function rankCorrelations(
   inputs: SensitivityInput[],
   blocks: BlockOutput[],
@@ -29,34 +31,31 @@ export function rankCorrelations(
   const m = inputs.length;
   const sg = new Float64Array(m);
   const sgg = new Float64Array(m);
-  const sgc = new Float64Array(m);
-  const sgd = new Float64Array(m);
+  const cross = { cost: new Float64Array(m), duration: new Float64Array(m) };
   let offset = 0;
   for (const b of blocks) {
     const n = b.n;
+    const g = b.grades;
     for (let s = 0; s < m; s++) {
-      const g = b.grades;
+      sg[s] += b.gradeSums[2 * s];
+      sgg[s] += b.gradeSums[2 * s + 1];
       const base = s * n;
-      let a1 = 0;
-      let a2 = 0;
-      let ac = 0;
-      let ad = 0;
-      for (let i = 0; i < n; i++) {
-        const x = g[base + i] + 0.5;
-        a1 += x;
-        a2 += x * x;
-        ac += x * costRanks[offset + i];
+      // Σ (k + ½)·R = Σ k·R + ½ ΣR: the loop multiplies stored integers only.
+      if (inputs[s].cost) {
+        let acc = 0;
+        for (let i = 0; i < n; i++) acc += g[base + i] * costRanks[offset + i];
+        cross.cost[s] += acc;
       }
-      if (durationRanks) for (let i = 0; i < n; i++) ad += (g[base + i] + 0.5) * durationRanks[offset + i];
-      sg[s] += a1 * GRADE;
-      sgg[s] += a2 * GRADE * GRADE;
-      sgc[s] += ac * GRADE;
-      sgd[s] += ad * GRADE;
+      if (durationRanks && inputs[s].duration) {
+        let acc = 0;
+        for (let i = 0; i < n; i++) acc += g[base + i] * durationRanks[offset + i];
+        cross.duration[s] += acc;
+      }
     }
     offset += n;
   }
   const n = offset;
-  const corrWith = (ranks: Float64Array | null, cross: Float64Array) => {
+  const corrWith = (ranks: Float64Array | null, sums: Float64Array) => {
     const out = new Float64Array(m);
     if (!ranks) return out;
     let sr = 0;
@@ -67,13 +66,14 @@ export function rankCorrelations(
     }
     const vr = srr - (sr * sr) / n;
     for (let s = 0; s < m; s++) {
+      const sgr = (sums[s] + 0.5 * sr) * GRADE_UNIT;
       const vg = sgg[s] - (sg[s] * sg[s]) / n;
-      const cov = cross[s] - (sg[s] * sr) / n;
+      const cov = sgr - (sg[s] * sr) / n;
       out[s] = vg > 0 && vr > 0 ? cov / Math.sqrt(vg * vr) : 0;
     }
     return out;
   };
-  return { cost: corrWith(costRanks, sgc), duration: corrWith(durationRanks, sgd) };
+  return { cost: corrWith(costRanks, cross.cost), duration: corrWith(durationRanks, cross.duration) };
 }
 
 /** Entries sorted by |rank correlation|, with variance shares ρ²/Σρ². */
@@ -81,6 +81,10 @@ export function tornado(ids: string[], rho: ArrayLike<number>): SensitivityEntry
   let total = 0;
   for (let i = 0; i < ids.length; i++) total += rho[i] * rho[i];
   return ids
-    .map((id, i) => ({ id, rankCorrelation: rho[i], varianceShare: total > 0 ? (rho[i] * rho[i]) / total : 0 }))
+    .map((id, i) => ({
+      id,
+      rankCorrelation: rho[i],
+      varianceShare: total > 0 ? (rho[i] * rho[i]) / total : 0,
+    }))
     .sort((x, y) => Math.abs(y.rankCorrelation) - Math.abs(x.rankCorrelation) || (x.id < y.id ? -1 : 1));
 }

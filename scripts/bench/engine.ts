@@ -1,0 +1,115 @@
+// npm run bench: the engine on an invented model of benchmark size (./model), 100,000 iterations
+// with 1 and with 2 threads, against a straightforward baseline (./baseline) on fewer
+// iterations. Each measurement runs in its own child process, so its peak memory (the process's
+// resident-set high-water mark, which includes its worker threads) is its own.
+//
+// Targets: 100,000 iterations in ≤ 2.5 s on 2 threads, ≥ 60× the baseline's iterations per
+// second, peak memory < 1 GiB.
+
+import { spawnSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+import { ensureWorkerFile } from '../../lib/sim/exec/worker-file';
+import { runSimulation } from '../../lib/sim/run';
+import { runBaseline } from './baseline';
+import { BENCH_SIZE, inventModel } from './model';
+
+const ENGINE_ITERATIONS = 100_000;
+const BASELINE_ITERATIONS = Number(process.env.BENCH_BASELINE_ITERATIONS ?? 5_000);
+
+interface Measurement {
+  label: string;
+  iterations: number;
+  /** The run itself: validation, compile, pool start, all blocks, roll-up. */
+  runMs: number;
+  maxRssMiB: number;
+  /** Process start to exit, as seen by the parent (includes loading TypeScript). */
+  processMs?: number;
+  check?: string;
+}
+
+async function child(mode: string): Promise<Measurement> {
+  const model = inventModel();
+  if (mode === 'baseline') {
+    const t = performance.now();
+    const r = runBaseline(model, BASELINE_ITERATIONS);
+    const runMs = performance.now() - t;
+    return {
+      label: 'baseline (objects + jstat + sorting)',
+      iterations: BASELINE_ITERATIONS,
+      runMs,
+      maxRssMiB: process.resourceUsage().maxRSS / 1024,
+      check: `P80 cost ${Math.round(r.P80).toLocaleString('en-US')}`,
+    };
+  }
+  const threads = Number(mode);
+  const t = performance.now();
+  const r = await runSimulation(model, { iterations: ENGINE_ITERATIONS, seed: 42, sampling: 'lhs', threads });
+  const runMs = performance.now() - t;
+  return {
+    label: `engine, ${threads} thread${threads > 1 ? 's' : ''}`,
+    iterations: r.iterations,
+    runMs,
+    maxRssMiB: process.resourceUsage().maxRSS / 1024,
+    check: `P80 cost ${Math.round(r.cost.percentiles.P80).toLocaleString('en-US')}`,
+  };
+}
+
+function measure(mode: string): Measurement {
+  const self = fileURLToPath(import.meta.url);
+  const started = performance.now();
+  const out = spawnSync(process.execPath, [...process.execArgv, self, '--child', mode], { encoding: 'utf8' });
+  const processMs = performance.now() - started;
+  if (out.status !== 0) throw new Error(`benchmark child "${mode}" failed:\n${out.stderr}`);
+  const m = JSON.parse(out.stdout.trim().split('\n').pop()!) as Measurement;
+  return { ...m, processMs };
+}
+
+const fmt = (x: number, d = 0) =>
+  x.toLocaleString('en-US', { maximumFractionDigits: d, minimumFractionDigits: d });
+
+async function main() {
+  const i = process.argv.indexOf('--child');
+  if (i >= 0) {
+    process.stdout.write(`${JSON.stringify(await child(process.argv[i + 1]))}\n`);
+    return;
+  }
+  await ensureWorkerFile(); // built before timing; a fresh checkout builds it once
+  const m = inventModel();
+  console.log(
+    `Model: ${m.items.length} line items (${BENCH_SIZE.timeDependent} time-dependent), ${m.risks!.length} risks, ` +
+      `${m.activities!.length} activities, ${m.correlations!.length} correlations; LHS, seed 42`,
+  );
+  const runs = [measure('1'), measure('2'), measure('baseline')];
+  const perSecond = (r: Measurement) => r.iterations / (r.runMs / 1000);
+  console.log('');
+  console.log(
+    `${'run'.padEnd(40)}${'iterations'.padStart(11)}${'run s'.padStart(9)}${'it/s'.padStart(11)}` +
+      `${'process s'.padStart(11)}${'peak MiB'.padStart(10)}   check`,
+  );
+  for (const r of runs) {
+    console.log(
+      `${r.label.padEnd(40)}${fmt(r.iterations).padStart(11)}${fmt(r.runMs / 1000, 2).padStart(9)}` +
+        `${fmt(perSecond(r)).padStart(11)}${fmt(r.processMs! / 1000, 2).padStart(11)}${fmt(r.maxRssMiB).padStart(10)}   ${r.check}`,
+    );
+  }
+  const [one, two, base] = runs;
+  const ratio1 = perSecond(one) / perSecond(base);
+  const ratio2 = perSecond(two) / perSecond(base);
+  console.log('');
+  console.log(`speed-up over the baseline: ${fmt(ratio1, 1)}× (1 thread), ${fmt(ratio2, 1)}× (2 threads)`);
+  const targets = [
+    [`100,000 iterations on 2 threads ≤ 2.5 s`, two.runMs <= 2500, `${fmt(two.runMs / 1000, 2)} s`],
+    [`≥ 60× the baseline's iterations/s`, ratio2 >= 60, `${fmt(ratio2, 1)}×`],
+    [
+      `peak memory < 1 GiB`,
+      Math.max(one.maxRssMiB, two.maxRssMiB) < 1024,
+      `${fmt(Math.max(one.maxRssMiB, two.maxRssMiB))} MiB`,
+    ],
+  ] as const;
+  for (const [what, ok, got] of targets) console.log(`${ok ? 'met ' : 'MISSED'}  ${what}: ${got}`);
+}
+
+main().catch((e) => {
+  console.error(e);
+  process.exit(1);
+});
