@@ -2,7 +2,6 @@
 
 import { useQuery } from '@tanstack/react-query';
 import type { BillingOverview } from '@/lib/services/billing';
-import { READ_ONLY_MESSAGES } from '@/lib/billing/access';
 import { ApiError, callApi } from '@/components/forms/api';
 import { Card, Skeleton } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
@@ -101,11 +100,6 @@ export function BillingPanel({ canManage, checkout }: { canManage: boolean; chec
         <Notice tone="success">Payment received. The seats below are the ones now paid for.</Notice>
       ) : checkout === 'cancelled' ? (
         <Notice tone="info">Checkout cancelled: nothing was charged and the seats are unchanged.</Notice>
-      ) : null}
-      {billing.access.readOnly && billing.access.reason ? (
-        <Notice tone="caution" title="Read-only">
-          {READ_ONLY_MESSAGES[billing.access.reason]}
-        </Notice>
       ) : null}
       <div className="grid grid-cols-2 gap-4">
         <Card title="Plan and status">

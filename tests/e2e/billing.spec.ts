@@ -143,3 +143,43 @@ test('estimators and sponsors are kept out of billing', async ({ page }) => {
   await page.goto('/settings/billing');
   await expect(page).toHaveURL(/\/forbidden$/);
 });
+
+test('a past-due organisation sees the read-only banner until it pays', async ({ page, request }) => {
+  const fake = `http://127.0.0.1:${process.env.STRIPE_FAKE_PORT ?? 12111}`;
+  const auth = new AuthPages(page);
+  await auth.signUp({
+    name: 'Lotte Brandt',
+    organization: 'Brandt Water Consult',
+    email: `pastdue-${Date.now()}@test.example`,
+    password: PASSWORD,
+  });
+  await expect(page).toHaveURL(/\/projects$/);
+  await expect(page.getByTestId('read-only-banner')).toHaveCount(0);
+  const started = await page.request.post('/api/billing/checkout', { data: { seats: 2 } });
+  const { url } = (await started.json()).checkout;
+  await request.post(`${url}/pay`, { form: { card: '4242424242424242' }, maxRedirects: 0 });
+  const billing = (await (await page.request.get('/api/billing')).json()).billing;
+  expect(billing.status).toBe('active');
+  // The fake's completed-checkout event names the subscription it created.
+  const sessionId = String(url).split('/').pop();
+  const completed = await request.get(`${fake}/_control/events?type=checkout.session.completed`);
+  const events = (await completed.json()).data as {
+    data: { object: { id: string; subscription: string } };
+  }[];
+  const subscription = events.find((e) => e.data.object.id === sessionId)!.data.object.subscription;
+
+  await request.post(`${fake}/_control/renew`, { data: { subscription, fail: true } });
+  await page.reload();
+  await expect(page.getByTestId('read-only-banner')).toContainText(
+    'read-only until the subscription is paid',
+  );
+  await page.getByRole('link', { name: 'Go to billing and seats' }).click();
+  await expect(page.getByTestId('billing-status')).toHaveText('Past due');
+  await expect(page.getByRole('table', { name: 'Invoices' })).toContainText('Unpaid');
+  await page.screenshot({ path: 'test-results/billing-past-due.png', fullPage: true });
+
+  await request.post(`${fake}/_control/pay-open-invoice`, { data: { subscription } });
+  await page.reload();
+  await expect(page.getByTestId('billing-status')).toHaveText('Active');
+  await expect(page.getByTestId('read-only-banner')).toHaveCount(0);
+});
