@@ -9,8 +9,10 @@ import type { RunView } from '@/lib/services/runs/view';
 import type { SnapshotDiff } from '@/lib/runs/snapshot-diff';
 import { percentileCurve } from '@/lib/runs/outcome-data';
 import { finishDate } from '@/lib/runs/working-days';
-import { formatDays, formatMoney, formatMoneyShort } from '@/lib/runs/format';
+import { formatChange, formatDate, formatDays, formatMoney, formatMoneyShort } from '@/lib/runs/format';
 import { settingsText } from './settings-text';
+
+const when = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' });
 
 type Side = { run: RunView; result: SimulationResult };
 
@@ -58,10 +60,7 @@ function ValuesTable({
               <td className="py-0.5">{k === 'base' ? 'Base' : k}</td>
               <td className="num py-0.5">{format(va)}</td>
               <td className="num py-0.5">{format(vb)}</td>
-              <td className="num py-0.5">
-                {vb - va >= 0 ? '+' : '−'}
-                {format(Math.abs(vb - va))}
-              </td>
+              <td className="num py-0.5">{formatChange(vb - va, format)}</td>
             </tr>
           );
         })}
@@ -83,7 +82,7 @@ export function CompareView({
 }) {
   const money = (v: number) => formatMoney(v, project.currency);
   const moneyShort = (v: number) => formatMoneyShort(v, project.currency);
-  const dateOf = (d: number) => finishDate(project.baseDate, d);
+  const dateOf = (d: number) => formatDate(finishDate(project.baseDate, d));
   const [older, newer] = a.run.id < b.run.id ? [a, b] : [b, a];
   const labels: [string, string] = [`Run ${older.run.id}`, `Run ${newer.run.id}`];
   const dA = older.result.duration;
@@ -95,7 +94,7 @@ export function CompareView({
         <div className="grid grid-cols-2 gap-3 text-sm">
           {[older, newer].map((s) => (
             <p key={s.run.id} className="rounded border border-rule bg-paper-raised px-3 py-2">
-              <strong>Run {s.run.id}</strong> · {new Date(s.run.createdAt).toLocaleString('en-GB')} ·{' '}
+              <strong>Run {s.run.id}</strong> · {when.format(new Date(s.run.createdAt))} ·{' '}
               {s.run.startedBy?.name ?? '—'}
               <br />
               <span className="text-xs text-ink-soft">{settingsText(s.run.settings)}</span>
@@ -113,7 +112,7 @@ export function CompareView({
         </div>
         <ChartFrame
           title="Cost S-curves"
-          reading={`The cost P80 moved by ${p80Change >= 0 ? '+' : '−'}${money(Math.abs(p80Change))} from run ${older.run.id} to run ${newer.run.id}.`}
+          reading={`The cost P80 moved by ${formatChange(p80Change, money)} from run ${older.run.id} to run ${newer.run.id}.`}
           height={260}
         >
           <SCurveCompare

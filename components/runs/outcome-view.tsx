@@ -13,7 +13,14 @@ import type { SimulationResult, TotalSummary } from '@/lib/sim/types';
 import type { RunView } from '@/lib/services/runs/view';
 import { contingencyAt, percentileCurve, topDrivers, type SampleCharts } from '@/lib/runs/outcome-data';
 import { finishDate } from '@/lib/runs/working-days';
-import { formatCount, formatDays, formatMoney, formatMoneyShort, formatShare } from '@/lib/runs/format';
+import {
+  formatCount,
+  formatDate,
+  formatDays,
+  formatMoney,
+  formatMoneyShort,
+  formatShare,
+} from '@/lib/runs/format';
 import { PercentileTable } from './outcome/percentile-table';
 import { CorrelationsTable } from './outcome/correlations-table';
 import { WarningsList } from './outcome/warnings-list';
@@ -25,14 +32,6 @@ export type OutcomeViewProps = {
   charts: SampleCharts | null;
   names: Record<string, string>;
 };
-
-const dateFmt = new Intl.DateTimeFormat('en-GB', {
-  day: 'numeric',
-  month: 'short',
-  year: 'numeric',
-  timeZone: 'UTC',
-});
-const formatDate = (iso: string) => dateFmt.format(new Date(`${iso}T00:00:00Z`));
 
 function Section({ title, children }: { title: string; children: React.ReactNode }) {
   return (

@@ -12,7 +12,7 @@ import { formatDays, formatMoney } from '@/lib/runs/format';
 import { RunStatusBadge } from './run-status';
 import { settingsText } from './settings-text';
 
-const when = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+const when = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' });
 
 /** The project's runs, newest first; refreshed every second while one is queued or running. */
 export function RunsHistory({
@@ -68,7 +68,7 @@ export function RunsHistory({
             </th>
             <th className="px-3 py-2">Run</th>
             <th className="px-3 py-2">Status</th>
-            <th className="px-3 py-2">Started</th>
+            <th className="px-3 py-2">Started (UTC)</th>
             <th className="px-3 py-2">By</th>
             <th className="px-3 py-2">Settings</th>
             <th className="px-3 py-2 text-right">Cost P50</th>

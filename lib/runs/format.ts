@@ -54,3 +54,22 @@ export function formatTimeLeft(ms: number): string {
   if (m < 60) return `about ${m} min`;
   return `about ${Math.floor(m / 60)} h ${m % 60} min`;
 }
+
+const dateFormat = new Intl.DateTimeFormat('en-GB', {
+  day: 'numeric',
+  month: 'short',
+  year: 'numeric',
+  timeZone: 'UTC',
+});
+
+/** An ISO date as "19 Nov 2027". */
+export function formatDate(iso: string): string {
+  return dateFormat.format(new Date(`${iso}T00:00:00Z`));
+}
+
+/** A signed change, "+€1,250" or "−3.5 wd"; a change that rounds to nothing shows as "0". */
+export function formatChange(delta: number, format: (v: number) => string): string {
+  const shown = format(Math.abs(delta));
+  if (!/[1-9]/.test(shown)) return '0';
+  return `${delta >= 0 ? '+' : '−'}${shown}`;
+}

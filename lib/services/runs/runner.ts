@@ -70,7 +70,8 @@ function progressWriter(runId: number) {
 const reasonOf = (e: unknown) =>
   e instanceof Error && e.message ? e.message : 'The engine stopped with an unexpected error.';
 
-async function notifyFinished(runId: number) {
+/** Queues the "run finished" mail to whoever started the run. */
+export async function notifyFinished(runId: number) {
   try {
     const run = await SimulationRun.findByPk(runId, {
       attributes: ['id', 'projectId', 'status', 'settings', 'summary', 'failureReason', 'startedById'],

@@ -1,5 +1,4 @@
 import { randomInt } from 'node:crypto';
-import Link from 'next/link';
 import { requirePageActor } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/roles';
 import { listRuns } from '@/lib/services/runs';
@@ -18,15 +17,7 @@ export default async function RunsPage({ params }: { params: Promise<{ projectId
   const runs = await listRuns(actor, project.id);
   return (
     <div className="space-y-5">
-      <div>
-        <p className="text-sm text-ink-faint">
-          <Link href={`/projects/${project.id}`} className="hover:underline">
-            {project.code}
-          </Link>{' '}
-          · {project.name}
-        </p>
-        <h1 className="text-2xl font-semibold">Runs</h1>
-      </div>
+      <h1 className="text-xl font-semibold">Runs</h1>
       {can(actor.role, 'run:start') ? (
         <Card title="Start a run">
           <RunSettingsForm

@@ -30,12 +30,7 @@ export default async function RunPage({ params }: { params: Promise<{ projectId:
     <div className="space-y-5">
       <div className="flex items-end gap-4">
         <div className="space-y-0.5">
-          <p className="text-sm text-ink-faint">
-            <Link href={`/projects/${project.id}/runs`} className="hover:underline">
-              {project.code} · Runs
-            </Link>
-          </p>
-          <h1 className="flex items-center gap-3 text-2xl font-semibold">
+          <h1 className="flex items-center gap-3 text-xl font-semibold">
             Run {run.id} <RunStatusBadge status={run.status} />
           </h1>
           <p className="text-sm text-ink-soft">

@@ -46,15 +46,11 @@ export default async function CompareRunsPage({
   }
   return (
     <div className="space-y-5">
-      <div>
-        <p className="text-sm text-ink-faint">
-          <Link href={`/projects/${project.id}/runs`} className="hover:underline">
-            {project.code} · Runs
-          </Link>
-        </p>
-        <h1 className="text-2xl font-semibold">
+      <div className="flex items-end">
+        <h1 className="text-xl font-semibold">
           Run {comparison.a.run.id} and run {comparison.b.run.id}
         </h1>
+        <span className="ml-auto">{back}</span>
       </div>
       <CompareView
         project={project}
