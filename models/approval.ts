@@ -38,6 +38,8 @@ export class Approval extends Model<InferAttributes<Approval>, InferCreationAttr
 Approval.init(
   {
     id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+    // Declared here because no association from Organization defines it.
+    organizationId: { type: DataTypes.INTEGER, allowNull: false },
     sponsorName: { type: DataTypes.STRING(160), allowNull: false },
     decision: { type: DataTypes.ENUM(...DECISIONS), allowNull: false },
     comment: { type: DataTypes.TEXT, allowNull: false },

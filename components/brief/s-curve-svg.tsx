@@ -2,7 +2,7 @@ import { formatMoney, formatMoneyShort } from '@/lib/runs/format';
 import { sCurveGeometry } from '@/lib/brief/chart-geometry';
 import type { BriefData } from '@/lib/brief/build';
 
-const W = 640;
+const W = 920;
 const H = 230;
 
 /** The cost S-curve as SVG: crisp on paper, no script needed to print it. */

@@ -1,7 +1,7 @@
 import { tornadoGeometry } from '@/lib/brief/chart-geometry';
 import type { DriverBrief } from '@/lib/brief/build';
 
-const W = 640;
+const W = 920;
 
 /** The top drivers of cost as SVG bars of their rank correlation with the total. */
 export function TornadoSvg({ drivers }: { drivers: DriverBrief[] }) {

@@ -80,6 +80,8 @@ export function TrendChart({ rows, currency }: { rows: TrendRow[]; currency: str
           },
           scales: {
             y: {
+              // The lines sit far from zero; starting at zero would flatten the differences.
+              beginAtZero: false,
               title: { display: true, text: `Total cost (${currency})` },
               ticks: { callback: (v) => formatMoneyShort(Number(v), currency) },
             },

@@ -15,16 +15,16 @@ export function TrendTable({
 }) {
   const m = (v: number) => formatMoney(v, currency);
   return (
-    <table className="w-full text-sm" data-testid="trend-table">
+    <table className="w-full text-xs" data-testid="trend-table">
       <thead>
         <tr className="border-b border-rule text-xs text-ink-soft">
           <th className="py-1 text-left font-medium">Approved</th>
           <th className="py-1 text-left font-medium">Stage</th>
-          <th className="num py-1 font-medium">Base</th>
-          <th className="num py-1 font-medium">P50</th>
-          <th className="num py-1 font-medium">P80</th>
-          <th className="num py-1 font-medium">Contingency (P80)</th>
-          <th className="num py-1 font-medium">Change</th>
+          <th className="num whitespace-nowrap py-1 font-medium">Base</th>
+          <th className="num whitespace-nowrap py-1 font-medium">P50</th>
+          <th className="num whitespace-nowrap py-1 font-medium">P80</th>
+          <th className="num whitespace-nowrap py-1 font-medium">Contingency (P80)</th>
+          <th className="num whitespace-nowrap py-1 font-medium">Change</th>
         </tr>
       </thead>
       <tbody>
@@ -41,11 +41,11 @@ export function TrendTable({
             <td className="py-1">
               {r.stage} <span className="text-ink-faint">· C{r.estimateClass}</span>
             </td>
-            <td className="num py-1">{m(r.base)}</td>
-            <td className="num py-1">{m(r.p50)}</td>
-            <td className="num py-1 font-medium">{m(r.p80)}</td>
-            <td className="num py-1">{m(r.contingencyP80)}</td>
-            <td className="num py-1 text-ink-soft">
+            <td className="num whitespace-nowrap py-1">{m(r.base)}</td>
+            <td className="num whitespace-nowrap py-1">{m(r.p50)}</td>
+            <td className="num whitespace-nowrap py-1 font-medium">{m(r.p80)}</td>
+            <td className="num whitespace-nowrap py-1">{m(r.contingencyP80)}</td>
+            <td className="num whitespace-nowrap py-1 text-ink-soft">
               {r.contingencyChange === null
                 ? '—'
                 : `${r.contingencyChange > 0 ? '+' : r.contingencyChange < 0 ? '−' : '±'}${m(Math.abs(r.contingencyChange))}`}

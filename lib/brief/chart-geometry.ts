@@ -107,7 +107,7 @@ export function tornadoGeometry(
   const plot: Box = {
     x: box.x + labelWidth,
     y: box.y,
-    width: box.width - labelWidth - 8,
+    width: box.width - labelWidth - 18, // room for the last tick label
     height: box.height - bottom,
   };
   const largest = Math.max(0.1, ...drivers.map((d) => Math.abs(d.value)));

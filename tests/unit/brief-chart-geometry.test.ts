@@ -45,11 +45,11 @@ describe('tornado geometry', () => {
         { label: 'A', value: 0.62 },
         { label: 'B', value: -0.3 },
       ],
-      { x: 0, y: 0, width: 308, height: 120 },
+      { x: 0, y: 0, width: 318, height: 120 },
       100,
       20,
     );
-    // The axis runs to ±0.7 (0.62 rounded up to a tenth), so the plot's 200 pt span 1.4.
+    // The axis runs to ±0.7 (0.62 rounded up to a tenth), so the plot's 200 pt (318 − 100 labels − 18 right padding) span 1.4.
     expect(g.zero).toBeCloseTo(200, 9);
     expect(g.bars[0].x).toBeCloseTo(200, 9);
     expect(g.bars[0].width).toBeCloseTo((0.62 / 1.4) * 200, 9);

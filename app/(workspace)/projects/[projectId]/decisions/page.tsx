@@ -22,10 +22,8 @@ export default async function DecisionsPage({ params }: { params: Promise<{ proj
   return (
     <div className="space-y-4">
       <header className="flex items-end justify-between">
-        <div>
-          <p className="text-sm text-ink-faint">{project.code}</p>
-          <h1 className="text-2xl font-semibold">Decisions</h1>
-        </div>
+        {/* The project's name and code are in the workspace header above. */}
+        <h2 className="text-xl font-semibold">Decisions</h2>
         <Link className="text-sm text-cost underline" href={`/projects/${project.id}/trend`}>
           Trend
         </Link>

@@ -25,10 +25,8 @@ export default async function TrendPage({ params }: { params: Promise<{ projectI
   return (
     <div className="space-y-4">
       <header className="flex items-end justify-between">
-        <div>
-          <p className="text-sm text-ink-faint">{project.code}</p>
-          <h1 className="text-2xl font-semibold">Trend of approved baselines</h1>
-        </div>
+        {/* The project's name and code are in the workspace header above. */}
+        <h2 className="text-xl font-semibold">Trend of approved baselines</h2>
         <Link className="text-sm text-cost underline" href={`/projects/${project.id}/decisions`}>
           Every decision
         </Link>
@@ -46,7 +44,7 @@ export default async function TrendPage({ params }: { params: Promise<{ projectI
             <strong>{formatMoney(current.p80, project.currency)}</strong>, base{' '}
             {formatMoney(current.base, project.currency)}.
           </p>
-          <div className="grid grid-cols-[3fr_2fr] gap-4">
+          <div className="grid grid-cols-2 gap-4">
             <TrendChart rows={rows} currency={project.currency} />
             <Card title="Figures">
               <TrendTable rows={rows} currency={project.currency} projectId={project.id} />
