@@ -85,7 +85,9 @@ export function RegisterGrid({
       pinned: col.pinned,
       sortable: false,
       suppressMovable: true,
-      valueGetter: (p) => (p.data ? (col.value ? col.value(p.data) : p.data[col.field]) : undefined),
+      // Pinned (total) rows carry their figures in the fields themselves.
+      valueGetter: (p) =>
+        p.data ? (col.value && !p.node?.rowPinned ? col.value(p.data) : p.data[col.field]) : undefined,
       valueFormatter: (p) => (p.data ? cellText(col, p.value, p.data) : ''),
       editable: (p) => !readOnly && !p.node.rowPinned && editable(col, p.data),
       cellEditor: col.kind === 'choice' ? 'agSelectCellEditor' : 'agTextCellEditor',

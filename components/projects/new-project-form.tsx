@@ -14,26 +14,67 @@ import type { ProjectView } from '@/lib/services/projects';
 
 type Values = z.input<typeof projectSchema>;
 
-export function NewProjectForm({ onDone }: { onDone?: () => void }) {
+/** Creates a project, or edits one when `project` is given; `file` (optional) is imported right after creation. */
+export function NewProjectForm({
+  onDone,
+  project,
+  withFile = false,
+}: {
+  onDone?: () => void;
+  project?: ProjectView;
+  withFile?: boolean;
+}) {
+  const [file, setFile] = useState<File | null>(null);
   const router = useRouter();
   const [failure, setFailure] = useState<string | null>(null);
   const { register, handleSubmit, formState, setError } = useForm<Values>({
     resolver: zodResolver(projectSchema),
-    defaultValues: {
-      currency: 'EUR',
-      estimateClass: 4,
-      stage: 'Concept',
-      baseDate: new Date().toISOString().slice(0, 10),
-    },
+    defaultValues: project
+      ? {
+          name: project.name,
+          code: project.code,
+          currency: project.currency,
+          estimateClass: project.estimateClass,
+          stage: project.stage as Values['stage'],
+          baseDate: project.baseDate,
+          description: project.description ?? '',
+        }
+      : {
+          currency: 'EUR',
+          estimateClass: 4,
+          stage: 'Concept',
+          baseDate: new Date().toISOString().slice(0, 10),
+        },
   });
   const e = formState.errors;
 
   async function onSubmit(values: Values) {
     setFailure(null);
     try {
-      const { project } = await callApi<{ project: ProjectView }>('/api/projects', { body: values });
+      if (project) {
+        await callApi(`/api/projects/${project.id}`, { method: 'PUT', body: values });
+        onDone?.();
+        router.refresh();
+        return;
+      }
+      const created = (await callApi<{ project: ProjectView }>('/api/projects', { body: values })).project;
+      if (file) {
+        const form = new FormData();
+        form.set('file', file);
+        form.set('register', 'all');
+        form.set('mode', 'commit');
+        const res = await fetch(`/api/projects/${created.id}/import`, { method: 'POST', body: form });
+        if (!res.ok) {
+          const body = await res.json().catch(() => null);
+          setFailure(
+            `The project was created, but the file was not imported: ${body?.error?.message ?? res.status}. Open the project to import it again.`,
+          );
+          router.refresh();
+          return;
+        }
+      }
       onDone?.();
-      router.push(`/projects/${project.id}`);
+      router.push(`/projects/${created.id}`);
       router.refresh();
     } catch (err) {
       if (!(err instanceof ApiError)) throw err;
@@ -48,7 +89,7 @@ export function NewProjectForm({ onDone }: { onDone?: () => void }) {
       onSubmit={handleSubmit(onSubmit)}
       className="grid grid-cols-2 gap-3"
       noValidate
-      aria-label="New project"
+      aria-label={project ? `Edit ${project.code}` : 'New project'}
     >
       {failure ? (
         <div className="col-span-2">
@@ -88,9 +129,29 @@ export function NewProjectForm({ onDone }: { onDone?: () => void }) {
           <TextInput id="p-desc" {...register('description')} />
         </Field>
       </div>
+      {withFile ? (
+        <div className="col-span-2 space-y-1">
+          <label htmlFor="p-file" className="block text-sm font-medium text-ink-soft">
+            Model file (.json) or workbook (.xlsx with sheets Line items, Risk events, Schedule, Correlations)
+          </label>
+          <input
+            id="p-file"
+            type="file"
+            accept=".json,.xlsx"
+            onChange={(ev) => setFile(ev.target.files?.[0] ?? null)}
+            className="block text-sm"
+          />
+        </div>
+      ) : null}
       <div className="col-span-2">
         <Button type="submit" disabled={formState.isSubmitting}>
-          {formState.isSubmitting ? 'Creating…' : 'Create project'}
+          {formState.isSubmitting
+            ? 'Saving…'
+            : project
+              ? 'Save project'
+              : file
+                ? 'Create and import'
+                : 'Create project'}
         </Button>
       </div>
     </form>

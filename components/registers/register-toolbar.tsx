@@ -8,6 +8,7 @@ type Props = {
   saving: boolean;
   count: number;
   noun: string;
+  plural?: string;
   onAdd: () => void;
   onInsert?: () => void;
   onDelete: () => void;
@@ -21,6 +22,7 @@ export function RegisterToolbar({
   saving,
   count,
   noun,
+  plural,
   onAdd,
   onInsert,
   onDelete,
@@ -67,8 +69,8 @@ export function RegisterToolbar({
         </>
       )}
       <span className="text-xs text-ink-faint" aria-live="polite">
-        {count.toLocaleString('en-GB')} {noun}
-        {count === 1 ? '' : 's'} · {saving ? 'Saving…' : 'All changes saved'}
+        {count.toLocaleString('en-GB')} {count === 1 ? noun : (plural ?? `${noun}s`)} ·{' '}
+        {saving ? 'Saving…' : 'All changes saved'}
       </span>
       <div className="ml-auto flex items-center gap-2">{children}</div>
     </div>

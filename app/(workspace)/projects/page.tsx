@@ -1,27 +1,45 @@
 import Link from 'next/link';
 import { requirePageActor } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/roles';
-import { listProjects } from '@/lib/services/projects';
+import { listProjectsWithEstimates } from '@/lib/services/projects';
+import { formatMoney } from '@/lib/registers/numbers';
 import { Card, EmptyState } from '@/components/ui/card';
-import { NewProjectForm } from '@/components/projects/new-project-form';
+import { ProjectActions } from '@/components/projects/project-actions';
+import { StartProject } from '@/components/projects/start-project';
 
 export const metadata = { title: 'Projects' };
 
-export default async function ProjectsPage() {
+export default async function ProjectsPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ archived?: string }>;
+}) {
   const actor = await requirePageActor('project:read', '/projects');
-  const projects = await listProjects(actor);
+  const showArchived = (await searchParams).archived === '1';
+  const projects = await listProjectsWithEstimates(actor, { includeArchived: showArchived });
   const mayWrite = can(actor.role, 'project:write');
   return (
     <div className="space-y-5">
-      <h1 className="text-2xl font-semibold">Projects</h1>
+      <div className="flex items-baseline justify-between">
+        <h1 className="text-2xl font-semibold">Projects</h1>
+        <Link
+          href={showArchived ? '/projects' : '/projects?archived=1'}
+          className="text-sm text-cost hover:underline"
+        >
+          {showArchived ? 'Hide archived' : 'Show archived'}
+        </Link>
+      </div>
       {projects.length === 0 ? (
         <EmptyState title="No projects yet">
           {mayWrite
-            ? 'Create the first project below, then add its line items, risks and schedule.'
+            ? 'Start a blank project and build its registers in the grids, or start from a model file or an XLSX workbook.'
             : 'An estimator or owner creates the projects you will read here.'}
         </EmptyState>
       ) : (
-        <table className="w-full border-collapse rounded border border-rule bg-paper-raised text-sm">
+        <table
+          className="w-full border-collapse rounded border border-rule bg-paper-raised text-sm"
+          aria-label="Projects"
+        >
           <thead className="bg-paper-sunk text-left text-xs uppercase tracking-wide text-ink-soft">
             <tr>
               <th className="px-3 py-2">Code</th>
@@ -29,22 +47,47 @@ export default async function ProjectsPage() {
               <th className="px-3 py-2">Stage</th>
               <th className="px-3 py-2">Class</th>
               <th className="px-3 py-2">Currency</th>
-              <th className="px-3 py-2">Base date</th>
+              <th className="px-3 py-2 text-right">Base estimate</th>
+              <th className="px-3 py-2 text-right" title="Latest completed run: P50 and P80 of cost">
+                Latest P50 / P80
+              </th>
+              {mayWrite ? <th className="px-3 py-2" /> : null}
             </tr>
           </thead>
           <tbody>
             {projects.map((p) => (
-              <tr key={p.id} className="border-t border-rule hover:bg-paper">
+              <tr
+                key={p.id}
+                className="border-t border-rule hover:bg-paper"
+                data-testid={`project-${p.code}`}
+              >
                 <td className="px-3 py-1.5 font-medium">
-                  <Link href={`/projects/${p.id}`} className="text-cost hover:underline">
+                  <Link href={`/projects/${p.id}/items`} className="text-cost hover:underline">
                     {p.code}
                   </Link>
                 </td>
-                <td className="px-3 py-1.5">{p.name}</td>
+                <td className="px-3 py-1.5">
+                  {p.name}
+                  {p.archived ? <span className="ml-2 text-xs text-ink-faint">archived</span> : null}
+                </td>
                 <td className="px-3 py-1.5">{p.stage}</td>
                 <td className="px-3 py-1.5">Class {p.estimateClass}</td>
                 <td className="px-3 py-1.5">{p.currency}</td>
-                <td className="num px-3 py-1.5">{p.baseDate}</td>
+                <td className="num px-3 py-1.5">
+                  {p.lineCount ? (
+                    formatMoney(p.baseEstimate)
+                  ) : (
+                    <span className="text-ink-faint">no lines</span>
+                  )}
+                </td>
+                <td className="num px-3 py-1.5">
+                  {p.latestRun ? `${formatMoney(p.latestRun.P50)} / ${formatMoney(p.latestRun.P80)}` : '—'}
+                </td>
+                {mayWrite ? (
+                  <td className="px-3 py-1.5">
+                    <ProjectActions project={p} />
+                  </td>
+                ) : null}
               </tr>
             ))}
           </tbody>
@@ -52,7 +95,7 @@ export default async function ProjectsPage() {
       )}
       {mayWrite ? (
         <Card title="New project" className="max-w-3xl">
-          <NewProjectForm />
+          <StartProject />
         </Card>
       ) : null}
     </div>
