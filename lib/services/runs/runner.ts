@@ -39,7 +39,7 @@ export function summarize(result: SimulationResult, currency: string | null): Ru
 }
 
 /** Progress writes, never more often than the interval, never after the run has left 'running'. */
-function progressWriter(runId: number) {
+function progressWriter(runId: number, cap: number | null) {
   let last = 0;
   let pending: Promise<unknown> = Promise.resolve();
   let latest: { done: number; total: number } | null = null;
@@ -51,7 +51,8 @@ function progressWriter(runId: number) {
     writing = true;
     last = Date.now();
     pending = SimulationRun.update(
-      { progress: Math.min(1, done / total), iterationsDone: done },
+      // With a precision goal the rounds grow as needed, so progress is measured against the cap.
+      { progress: Math.min(1, done / (cap ?? total)), iterationsDone: done },
       { where: { id: runId, status: 'running' } },
     )
       .catch((e) => console.error(`run ${runId}: progress not written`, e))
@@ -115,7 +116,7 @@ async function execute(job: Job, signal: AbortSignal): Promise<void> {
   const project = await Project.findByPk(run.projectId, { attributes: ['currency'] });
   const snapshot = JSON.parse(run.inputSnapshot);
   const s = run.settings;
-  const progress = progressWriter(run.id);
+  const progress = progressWriter(run.id, s.precision?.maxIterations ?? null);
   const finish = async (values: Partial<InferAttributes<SimulationRun>>) => {
     await progress.settle();
     await SimulationRun.update(
