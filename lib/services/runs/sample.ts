@@ -38,10 +38,17 @@ export async function sampleOfRun(
   const duration: number[] | null = hasSchedule ? [] : null;
   const blocks = Math.ceil(Math.min(cap, run.iterations) / BLOCK_SIZE);
   for (let b = 0; b < blocks; b++) {
-    const out = simulateBlock(plan, key, settings.sampling, b, blockLength(b, run.iterations));
-    for (let i = 0; i < out.n && cost.length < cap; i++) {
-      cost.push(out.cost[i]);
-      duration?.push(out.duration[i]);
+    const n = blockLength(b, run.iterations);
+    // The block writes its iterations into these arrays (the tornado grades are not kept).
+    const sink = {
+      cost: new Float64Array(n),
+      duration: new Float64Array(hasSchedule ? n : 0),
+      grades: new Uint16Array(plan.sensitivity.length * n),
+    };
+    simulateBlock(plan, key, settings.sampling, b, n, sink);
+    for (let i = 0; i < n && cost.length < cap; i++) {
+      cost.push(sink.cost[i]);
+      duration?.push(sink.duration[i]);
     }
     // One block at a time, so requests keep being served while this runs in the server.
     await yieldToEventLoop();
