@@ -28,16 +28,21 @@ export const BLOCK_SIZE = 1000;
 /** Value of one step of a stored grade: grades are kept as ⌊g·2¹⁶⌋ and read as (k + ½)/2¹⁶. */
 export const GRADE_UNIT = 1 / 65536;
 
-export interface BlockOutput {
-  block: number;
-  n: number;
+/** Where a block writes its per-iteration outputs (views of length n, n or 0, rows·n). */
+export interface BlockSink {
   cost: Float64Array;
-  /** Project duration per iteration, empty when the model has no activities. */
+  /** Project duration per iteration (empty when the model has no activities). */
   duration: Float64Array;
-  /** Iterations in which each activity was on the critical path. */
-  critical: Int32Array;
   /** Tornado grades: input s, iteration i at s·n + i, as ⌊grade·2¹⁶⌋. */
   grades: Uint16Array;
+}
+
+/** What a block returns besides its sink: small per-block sums. */
+export interface BlockSummary {
+  block: number;
+  n: number;
+  /** Iterations in which each activity was on the critical path. */
+  critical: Int32Array;
   /** Per tornado input: Σg and Σg² of its grades g = (stored + ½)/2¹⁶ over the block. */
   gradeSums: Float64Array;
   /** Per correlation entry: Σa, Σb, Σa², Σb², Σab of the pair's uniforms. */
@@ -124,11 +129,13 @@ export function simulateBlock(
   sampling: Sampling,
   block: number,
   n: number,
-): BlockOutput {
+  sink: BlockSink,
+): BlockSummary {
   const ws = workspaceFor(plan, n);
   const { tmp, occurred } = ws;
   const rows = plan.sensitivity.length;
-  const grades = new Uint16Array(rows * n);
+  const { grades, cost } = sink;
+  cost.fill(0, 0, n);
   const gradeSums = new Float64Array(2 * rows);
 
   /** The uniforms of variable v: its group's column, or drawn now into `into`. */
@@ -179,7 +186,6 @@ export function simulateBlock(
   }
 
   // 3. Line items.
-  const cost = new Float64Array(n);
   for (const { dist, v } of plan.costItems) {
     if (v < 0) {
       const x = dist.mean;
@@ -223,10 +229,9 @@ export function simulateBlock(
   }
 
   // 5. Schedule.
-  const duration = new Float64Array(plan.network ? n : 0);
   const critical = new Int32Array(acts);
   if (plan.network && ws.schedule)
-    forwardPass(plan.network, ws.durations, n, ws.schedule, duration, critical);
+    forwardPass(plan.network, ws.durations, n, ws.schedule, sink.duration, critical);
 
   // 6. Time-dependent items.
   for (const { rate, v, activity } of plan.rateItems) {
@@ -263,5 +268,5 @@ export function simulateBlock(
     pairSums.set([sa, sb, saa, sbb, sab], k * 5);
   });
 
-  return { block, n, cost, duration, critical, grades, gradeSums, pairSums };
+  return { block, n, critical, gradeSums, pairSums };
 }

@@ -1,21 +1,22 @@
 // The engine in one thread: validate, compile, run the blocks, roll up. `simulateSync` is the
 // plain form (tests, small models); runSimulation in ./run adds threads, progress and cancel.
 
-import { type BlockOutput, blockLength, BLOCK_SIZE, simulateBlock } from './block';
+import { type BlockSummary, blockLength, BLOCK_SIZE, simulateBlock } from './block';
 import { compileModel, type Plan } from './compile';
-import type { SimulationOptions, ResolvedSettings } from './options';
+import type { ResolvedSettings, SimulationOptions } from './options';
 import { resolveSettings } from './options';
 import { runKeyFromSeed } from './random/run-key';
-import { rollUp } from './rollup';
+import { type RankedTotals, rankTotals, rollUp } from './rollup';
+import { allocateRound, blockCrossSums, blockSink, concatRounds, type RoundStore } from './run-data';
 import { nextRound } from './schedule-of-rounds';
-import type { SimulationResult } from './types';
+import type { Model, SimulationResult } from './types';
 import { parseModel } from './validate';
 
 export interface PreparedRun {
   plan: Plan;
   settings: ResolvedSettings;
   key: Uint32Array;
-  model: ReturnType<typeof parseModel>;
+  model: Model;
 }
 
 export function prepareRun(modelJson: unknown, options: SimulationOptions = {}): PreparedRun {
@@ -24,29 +25,75 @@ export function prepareRun(modelJson: unknown, options: SimulationOptions = {}):
   return { model, plan: compileModel(model), settings, key: runKeyFromSeed(settings.seed) };
 }
 
+/** Blocks covering iterations [from, to); from is a multiple of BLOCK_SIZE. */
 export function blocksBetween(from: number, to: number): number[] {
   const out: number[] = [];
   for (let b = Math.ceil(from / BLOCK_SIZE); b * BLOCK_SIZE < to; b++) out.push(b);
   return out;
 }
 
+/** A round's blocks computed in this thread. */
+export function simulateRound(run: PreparedRun, store: RoundStore): BlockSummary[] {
+  return blocksBetween(store.start, store.total).map((b) => {
+    const n = blockLength(b, store.total);
+    return simulateBlock(run.plan, run.key, run.settings.sampling, b, n, blockSink(store, b, n));
+  });
+}
+
+/** The run's totals in iteration order, sorted and ranked (`shared` for worker threads). */
+export function rankRun(run: PreparedRun, rounds: RoundStore[], shared = false): RankedTotals {
+  return rankTotals(
+    concatRounds(rounds, (r) => r.cost),
+    run.plan.network ? concatRounds(rounds, (r) => r.duration) : null,
+    shared,
+  );
+}
+
+/** The result, from the blocks' sums (any order), the ranked totals and the cross sums in block order. */
+export function resultOf(
+  run: PreparedRun,
+  blocks: BlockSummary[],
+  totals: RankedTotals,
+  cross: Float64Array[],
+  info: { elapsedMs: number; warnings: string[] },
+): SimulationResult {
+  const ordered = [...blocks].sort((a, b) => a.block - b.block);
+  return rollUp(run.plan, ordered, totals, cross, {
+    seed: run.settings.seed,
+    sampling: run.settings.sampling,
+    ...info,
+  });
+}
+
+/** The cross sums of all blocks, in this thread. */
+export function crossSumsInThread(
+  run: PreparedRun,
+  rounds: RoundStore[],
+  totals: RankedTotals,
+): Float64Array[] {
+  return rounds.flatMap((store) =>
+    blocksBetween(store.start, store.total).map((b) =>
+      blockCrossSums(run.plan, store, b, blockLength(b, store.total), totals.costRanks, totals.durationRanks),
+    ),
+  );
+}
+
 export function simulateSync(modelJson: unknown, options: SimulationOptions = {}): SimulationResult {
   const started = performance.now();
-  const { plan, settings, key } = prepareRun(modelJson, options);
-  const blocks: BlockOutput[] = [];
+  const run = prepareRun(modelJson, options);
+  const rounds: RoundStore[] = [];
+  const blocks: BlockSummary[] = [];
   const warnings: string[] = [];
   let done = 0;
-  for (let round = nextRound(settings, plan, 0, blocks, warnings); round !== null;) {
-    const total = round;
-    for (const b of blocksBetween(done, total)) {
-      blocks.push(simulateBlock(plan, key, settings.sampling, b, blockLength(b, total)));
-    }
-    done = total;
-    round = nextRound(settings, plan, done, blocks, warnings);
+  for (let round = nextRound(run.settings, run.plan, 0, rounds, warnings); round !== null;) {
+    const store = allocateRound(run.plan, done, round, false);
+    blocks.push(...simulateRound(run, store));
+    rounds.push(store);
+    done = round;
+    round = nextRound(run.settings, run.plan, done, rounds, warnings);
   }
-  return rollUp(plan, blocks, {
-    seed: settings.seed,
-    sampling: settings.sampling,
+  const totals = rankRun(run, rounds);
+  return resultOf(run, blocks, totals, crossSumsInThread(run, rounds, totals), {
     elapsedMs: performance.now() - started,
     warnings,
   });

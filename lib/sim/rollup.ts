@@ -1,9 +1,9 @@
 /**
- * Rolls the blocks of a run (in block order) up into the result file. Every reduction runs over
- * the concatenated iterations in iteration order, so the result depends only on the blocks.
+ * Rolls a run up into the result file. Every reduction runs over the iterations in iteration
+ * order, or over per-block sums in block order, so the result depends only on the blocks.
  */
 
-import type { BlockOutput } from './block';
+import type { BlockSummary } from './block';
 import type { Plan } from './compile';
 import { midRanks, sortedPositions } from './math/ranks';
 import { checkpointsFor, convergenceSeries } from './stats/convergence';
@@ -19,19 +19,34 @@ export interface RunInfo {
   warnings?: string[];
 }
 
-export function concatTotals(blocks: BlockOutput[], pick: (b: BlockOutput) => Float64Array): Float64Array {
-  let n = 0;
-  for (const b of blocks) n += pick(b).length;
-  const out = new Float64Array(n);
-  let off = 0;
-  for (const b of blocks) {
-    out.set(pick(b), off);
-    off += pick(b).length;
-  }
-  return out;
+/** The totals of a run with their sorted copies and mid-ranks. */
+export interface RankedTotals {
+  cost: Float64Array;
+  costSorted: Float64Array;
+  costRanks: Float64Array;
+  duration: Float64Array | null;
+  durationSorted: Float64Array | null;
+  durationRanks: Float64Array | null;
 }
 
-function achievedCorrelations(plan: Plan, blocks: BlockOutput[], n: number): AchievedCorrelation[] {
+/** `shared`: put the ranks on SharedArrayBuffers, for worker threads to read. */
+export function rankTotals(cost: Float64Array, duration: Float64Array | null, shared = false): RankedTotals {
+  const ranksArray = (n: number) =>
+    new Float64Array(shared ? new SharedArrayBuffer(8 * n) : new ArrayBuffer(8 * n));
+  const costSorted = cost.slice().sort();
+  const durationSorted = duration ? duration.slice().sort() : null;
+  return {
+    cost,
+    costSorted,
+    costRanks: midRanks(cost, costSorted, ranksArray(cost.length)),
+    duration,
+    durationSorted,
+    durationRanks:
+      duration && durationSorted ? midRanks(duration, durationSorted, ranksArray(duration.length)) : null,
+  };
+}
+
+function achievedCorrelations(plan: Plan, blocks: BlockSummary[], n: number): AchievedCorrelation[] {
   return plan.correlations.map((c, k) => {
     if (c.va < 0) return { a: c.a, b: c.b, target: c.target, used: c.used, achieved: null };
     let sa = 0;
@@ -61,71 +76,35 @@ function achievedCorrelations(plan: Plan, blocks: BlockOutput[], n: number): Ach
   });
 }
 
-/** The result's keys in the order DESIGN.md lists them (JSON keeps insertion order). */
-function inFileOrder(r: SimulationResult): SimulationResult {
-  const { format, version, iterations, seed, sampling, elapsedMs, cost, duration, joint } = r;
-  const { sensitivity, criticality, achievedCorrelations, warnings, convergence } = r;
-  return {
-    format,
-    version,
-    iterations,
-    seed,
-    sampling,
-    elapsedMs,
-    cost,
-    ...(duration ? { duration } : {}),
-    ...(joint ? { joint } : {}),
-    sensitivity,
-    criticality,
-    achievedCorrelations,
-    warnings,
-    convergence,
-  };
-}
-
-export function rollUp(plan: Plan, blocks: BlockOutput[], info: RunInfo): SimulationResult {
-  const ordered = [...blocks].sort((a, b) => a.block - b.block);
-  const cost = concatTotals(ordered, (b) => b.cost);
+/**
+ * `blocks` in block order; `cross[k]` the rank cross sums of blocks[k] (blockCrossSums).
+ */
+export function rollUp(
+  plan: Plan,
+  blocks: BlockSummary[],
+  totals: RankedTotals,
+  cross: Float64Array[],
+  info: RunInfo,
+): SimulationResult {
+  const { cost, costSorted, duration, durationSorted } = totals;
   const n = cost.length;
-  const costSorted = cost.slice().sort();
-  const hasSchedule = plan.network !== null;
-  const duration = hasSchedule ? concatTotals(ordered, (b) => b.duration) : null;
-  const durationSorted = duration ? duration.slice().sort() : null;
+  const costSummary = summarizeTotal(cost, costSorted, plan.base.cost, plan.targets.cost);
+  const durationSummary =
+    duration && durationSorted
+      ? summarizeTotal(duration, durationSorted, plan.base.duration ?? 0, plan.targets.duration)
+      : undefined;
 
-  const result: SimulationResult = {
-    format: 'outturn-result',
-    version: 1,
-    iterations: n,
-    seed: info.seed,
-    sampling: info.sampling,
-    elapsedMs: info.elapsedMs,
-    cost: summarizeTotal(cost, costSorted, plan.base.cost, plan.targets.cost),
-    sensitivity: { cost: [], duration: [] },
-    criticality: {},
-    achievedCorrelations: achievedCorrelations(plan, ordered, n),
-    warnings: [...plan.warnings, ...(info.warnings ?? [])],
-    convergence: { iterations: [], cost: { P50: [], P50ci95: [], P80: [], P80ci95: [] } },
-  };
-  if (duration && durationSorted) {
-    result.duration = summarizeTotal(
-      duration,
-      durationSorted,
-      plan.base.duration ?? 0,
-      plan.targets.duration,
-    );
-  }
+  let joint: SimulationResult['joint'];
   if (duration && plan.targets.cost !== undefined && plan.targets.duration !== undefined) {
     let both = 0;
     const tc = plan.targets.cost;
     const td = plan.targets.duration;
     for (let i = 0; i < n; i++) if (cost[i] <= tc && duration[i] <= td) both++;
-    result.joint = { probability: both / n, ci95: wilsonInterval(both, n) };
+    joint = { probability: both / n, ci95: wilsonInterval(both, n) };
   }
 
   // Tornado.
-  const costRanks = midRanks(cost, costSorted);
-  const durationRanks = duration && durationSorted ? midRanks(duration, durationSorted) : null;
-  const rho = rankCorrelations(plan.sensitivity, ordered, costRanks, durationRanks);
+  const rho = rankCorrelations(plan.sensitivity, blocks, cross, totals.costRanks, totals.durationRanks);
   const pick = (which: 'cost' | 'duration') => {
     const idx = plan.sensitivity.map((s, i) => (s[which] ? i : -1)).filter((i) => i >= 0);
     return tornado(
@@ -133,24 +112,42 @@ export function rollUp(plan: Plan, blocks: BlockOutput[], info: RunInfo): Simula
       idx.map((i) => rho[which][i]),
     );
   };
-  result.sensitivity.cost = pick('cost');
-  result.sensitivity.duration = durationRanks ? pick('duration') : [];
 
   // Criticality index.
   const critical = new Float64Array(plan.activities.length);
-  for (const b of ordered) for (let a = 0; a < critical.length; a++) critical[a] += b.critical[a];
-  plan.activities.forEach((a, i) => (result.criticality[a.id] = critical[i] / n));
+  for (const b of blocks) for (let a = 0; a < critical.length; a++) critical[a] += b.critical[a];
+  const criticality: Record<string, number> = {};
+  plan.activities.forEach((a, i) => (criticality[a.id] = critical[i] / n));
 
   // Convergence.
   const checkpoints = checkpointsFor(n);
-  result.convergence.iterations = checkpoints;
-  result.convergence.cost = convergenceSeries(sortedPositions(cost, costSorted), costSorted, checkpoints);
+  const convergence: SimulationResult['convergence'] = {
+    iterations: checkpoints,
+    cost: convergenceSeries(sortedPositions(cost, costSorted), costSorted, checkpoints),
+  };
   if (duration && durationSorted) {
-    result.convergence.duration = convergenceSeries(
+    convergence.duration = convergenceSeries(
       sortedPositions(duration, durationSorted),
       durationSorted,
       checkpoints,
     );
   }
-  return inFileOrder(result);
+
+  // Keys in the order DESIGN.md lists them (JSON keeps insertion order).
+  return {
+    format: 'outturn-result',
+    version: 1,
+    iterations: n,
+    seed: info.seed,
+    sampling: info.sampling,
+    elapsedMs: info.elapsedMs,
+    cost: costSummary,
+    ...(durationSummary ? { duration: durationSummary } : {}),
+    ...(joint ? { joint } : {}),
+    sensitivity: { cost: pick('cost'), duration: totals.durationRanks ? pick('duration') : [] },
+    criticality,
+    achievedCorrelations: achievedCorrelations(plan, blocks, n),
+    warnings: [...plan.warnings, ...(info.warnings ?? [])],
+    convergence,
+  };
 }

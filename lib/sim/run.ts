@@ -1,20 +1,23 @@
 // runSimulation: the engine with threads, progress and cancellation. threads = 1 runs in this
 // thread (yielding between blocks so progress and abort get through); more threads use a pool
-// of workers loading the bundled worker file. Either way the blocks and so the result are the
-// same to the bit.
+// of workers loading the bundled worker file, which write their blocks into shared memory.
+// Either way the blocks and so the result are the same to the bit.
 
 import { availableParallelism } from 'node:os';
-import { type BlockOutput, blockLength, simulateBlock } from './block';
-import { blocksBetween, prepareRun } from './engine';
+import { type BlockSummary, blockLength, simulateBlock } from './block';
+import { blocksBetween, crossSumsInThread, prepareRun, rankRun, resultOf } from './engine';
 import { SimulationCancelledError } from './errors';
-import { createBlockPool, type BlockPool } from './exec/pool';
+import { createTaskPool, type TaskPool } from './exec/pool';
 import { defaultWorkerFile, ensureWorkerFile } from './exec/worker-file';
 import type { RunOptions } from './options';
-import { rollUp } from './rollup';
+import { allocateRound, blockSink, type RoundStore } from './run-data';
 import { nextRound } from './schedule-of-rounds';
 import type { SimulationResult } from './types';
 
 const yieldToEventLoop = () => new Promise<void>((resolve) => setImmediate(resolve));
+
+/** Blocks per cross-sum task: enough work per message, enough tasks to share. */
+const CROSS_CHUNK = 8;
 
 export async function runSimulation(modelJson: unknown, options: RunOptions = {}): Promise<SimulationResult> {
   const started = performance.now();
@@ -23,56 +26,91 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
     if (signal?.aborted) throw new SimulationCancelledError();
   };
   throwIfAborted();
-  const { model, plan, settings, key } = prepareRun(modelJson, options);
+  const run = prepareRun(modelJson, options);
+  const { plan, settings, key, model } = run;
   const threads = Math.max(1, Math.floor(options.threads ?? availableParallelism()));
-  const blocks: BlockOutput[] = [];
+  // A single block is not worth starting threads for.
+  const pooled = threads > 1 && settings.iterations > blockLength(0, settings.iterations);
+  const rounds: RoundStore[] = [];
+  const blocks: BlockSummary[] = [];
   const warnings: string[] = [];
-  let pool: BlockPool | null = null;
+  let pool: TaskPool | null = null;
   try {
+    if (pooled) {
+      const file = await ensureWorkerFile(options.workerFile ?? defaultWorkerFile());
+      throwIfAborted();
+      pool = createTaskPool(file, threads, { model, key: Array.from(key), sampling: settings.sampling });
+    }
     let done = 0;
-    let iterationsDone = 0;
-    for (let round = nextRound(settings, plan, 0, blocks, warnings); round !== null;) {
+    for (let round = nextRound(settings, plan, 0, rounds, warnings); round !== null;) {
       const total = round;
-      const todo = blocksBetween(done, total);
-      const report = (b: BlockOutput) => {
-        blocks.push(b);
-        iterationsDone += b.n;
-        onProgress?.({ done: iterationsDone, total });
+      const store = allocateRound(plan, done, total, pooled);
+      let finished = done;
+      const progress = (summaries: BlockSummary[]) => {
+        for (const b of summaries) {
+          blocks.push(b);
+          finished += b.n;
+        }
+        onProgress?.({ done: finished, total });
       };
-      // A single block is not worth starting threads for.
-      if (threads === 1 || (todo.length === 1 && !pool)) {
+      const todo = blocksBetween(done, total);
+      if (!pool) {
         for (const b of todo) {
           throwIfAborted();
-          report(simulateBlock(plan, key, settings.sampling, b, blockLength(b, total)));
+          const n = blockLength(b, total);
+          progress([simulateBlock(plan, key, settings.sampling, b, n, blockSink(store, b, n))]);
           await yieldToEventLoop();
         }
       } else {
-        if (!pool) {
-          const file = await ensureWorkerFile(options.workerFile ?? defaultWorkerFile());
-          throwIfAborted();
-          pool = createBlockPool(file, Math.min(threads, todo.length), {
-            model,
-            key: Array.from(key),
-            sampling: settings.sampling,
-          });
-        }
-        try {
-          await pool.run(todo, total, report, signal);
-        } catch (e) {
-          if (signal?.aborted) throw new SimulationCancelledError();
-          throw e;
-        }
+        const p = pool;
+        await guard(
+          Promise.all(
+            todo.map((b) =>
+              p.run<BlockSummary[]>({ kind: 'blocks', blocks: [b], store }, signal).then(progress),
+            ),
+          ),
+        );
       }
+      rounds.push(store);
       done = total;
-      round = nextRound(settings, plan, done, blocks, warnings);
+      round = nextRound(settings, plan, done, rounds, warnings);
     }
+    throwIfAborted();
+    const totals = rankRun(run, rounds, pooled);
+    let cross: Float64Array[];
+    if (!pool) cross = crossSumsInThread(run, rounds, totals);
+    else {
+      const p = pool;
+      const tasks = rounds.flatMap((store) => {
+        const all = blocksBetween(store.start, store.total);
+        const chunks: number[][] = [];
+        for (let i = 0; i < all.length; i += CROSS_CHUNK) chunks.push(all.slice(i, i + CROSS_CHUNK));
+        return chunks.map((chunk) =>
+          p.run<Float64Array[]>(
+            {
+              kind: 'cross',
+              blocks: chunk,
+              store,
+              costRanks: totals.costRanks,
+              durationRanks: totals.durationRanks,
+            },
+            signal,
+          ),
+        );
+      });
+      cross = (await guard(Promise.all(tasks))).flat();
+    }
+    return resultOf(run, blocks, totals, cross, { elapsedMs: performance.now() - started, warnings });
   } finally {
     if (pool) await pool.close();
   }
-  return rollUp(plan, blocks, {
-    seed: settings.seed,
-    sampling: settings.sampling,
-    elapsedMs: performance.now() - started,
-    warnings,
-  });
+
+  async function guard<T>(work: Promise<T>): Promise<T> {
+    try {
+      return await work;
+    } catch (e) {
+      if (signal?.aborted) throw new SimulationCancelledError();
+      throw e;
+    }
+  }
 }

@@ -1,22 +1,21 @@
 // The rounds of a run: one round of the asked iterations, or, with a precision goal, doubling
 // rounds until the P80 interval is narrow enough or the cap is reached. Shared by the
-// in-thread and the pooled runner so both make the same decisions from the same blocks.
+// in-thread and the pooled runner so both make the same decisions from the same totals.
 
-import { type BlockOutput, BLOCK_SIZE } from './block';
+import { BLOCK_SIZE } from './block';
 import type { Plan } from './compile';
 import type { ResolvedSettings } from './options';
-import { concatTotals } from './rollup';
+import { concatRounds, type RoundStore } from './run-data';
 import { relativeHalfWidth } from './stats/precision';
 import { percentileIntervalOfSorted, percentileOfSorted } from './stats/summary';
 
 /** Worst relative half-width of the P80 interval over the totals. */
-export function p80Precision(plan: Plan, blocks: BlockOutput[]): number {
-  const ordered = [...blocks].sort((a, b) => a.block - b.block);
-  const totals = [concatTotals(ordered, (b) => b.cost)];
-  if (plan.network) totals.push(concatTotals(ordered, (b) => b.duration));
+export function p80Precision(plan: Plan, rounds: RoundStore[]): number {
+  const totals = [concatRounds(rounds, (r) => r.cost)];
+  if (plan.network) totals.push(concatRounds(rounds, (r) => r.duration));
   let worst = 0;
   for (const t of totals) {
-    const sorted = t.sort();
+    const sorted = t.slice().sort();
     worst = Math.max(
       worst,
       relativeHalfWidth(percentileOfSorted(sorted, 0.8), percentileIntervalOfSorted(sorted, 0.8)),
@@ -25,18 +24,18 @@ export function p80Precision(plan: Plan, blocks: BlockOutput[]): number {
   return worst;
 }
 
-/** Iterations of the next round, or null when the run is complete. */
+/** Iterations at the end of the next round, or null when the run is complete. */
 export function nextRound(
   settings: ResolvedSettings,
   plan: Plan,
   done: number,
-  blocks: BlockOutput[],
+  rounds: RoundStore[],
   warnings: string[],
 ): number | null {
   if (done === 0) return settings.iterations;
   const goal = settings.precision;
   if (!goal) return null;
-  const reached = p80Precision(plan, blocks);
+  const reached = p80Precision(plan, rounds);
   if (reached <= goal.relative) return null;
   if (done >= goal.maxIterations) {
     warnings.push(

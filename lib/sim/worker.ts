@@ -1,11 +1,12 @@
 // Worker-thread entry, bundled to .build/sim-worker.mjs (scripts/build-worker.mjs, or on demand
-// by ./exec/worker-file). Each worker compiles the model once from its workerData, then computes
-// the blocks it is handed and moves their typed arrays back without copying.
+// by ./exec/worker-file). Each worker compiles the model once from its workerData, then runs
+// tasks: compute blocks into the round's shared store, or the tornado's cross sums of blocks.
+// Only small per-block sums travel back.
 
 import { workerData } from 'node:worker_threads';
-import { move, transferableSymbol, valueSymbol } from 'piscina';
-import { type BlockOutput, blockLength, simulateBlock } from './block';
+import { type BlockSummary, blockLength, simulateBlock } from './block';
 import { compileModel } from './compile';
+import { blockCrossSums, blockSink, type RoundStore } from './run-data';
 import type { Model, Sampling } from './types';
 
 export interface WorkerData {
@@ -14,28 +15,31 @@ export interface WorkerData {
   sampling: Sampling;
 }
 
-export interface BlockTask {
-  blocks: number[];
-  total: number;
-}
+export type WorkerTask =
+  | { kind: 'blocks'; blocks: number[]; store: RoundStore }
+  | {
+      kind: 'cross';
+      blocks: number[];
+      store: RoundStore;
+      costRanks: Float64Array;
+      durationRanks: Float64Array | null;
+    };
+
+export type WorkerReply = BlockSummary[] | Float64Array[];
 
 const data = workerData as WorkerData;
 const plan = compileModel(data.model);
 const key = Uint32Array.from(data.key);
 
-export default function runBlocks(task: BlockTask) {
-  const outputs: BlockOutput[] = task.blocks.map((b) =>
-    simulateBlock(plan, key, data.sampling, b, blockLength(b, task.total)),
+export default function runTask(task: WorkerTask): WorkerReply {
+  const { store } = task;
+  if (task.kind === 'blocks') {
+    return task.blocks.map((b) => {
+      const n = blockLength(b, store.total);
+      return simulateBlock(plan, key, data.sampling, b, n, blockSink(store, b, n));
+    });
+  }
+  return task.blocks.map((b) =>
+    blockCrossSums(plan, store, b, blockLength(b, store.total), task.costRanks, task.durationRanks),
   );
-  const buffers = outputs.flatMap((o) =>
-    [o.cost, o.duration, o.critical, o.grades, o.gradeSums, o.pairSums].map((a) => a.buffer),
-  );
-  return move({
-    get [transferableSymbol]() {
-      return buffers;
-    },
-    get [valueSymbol]() {
-      return outputs;
-    },
-  });
 }

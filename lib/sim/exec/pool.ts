@@ -1,19 +1,13 @@
-// A pool of worker threads for one run (piscina). Blocks are handed out one per task, so the
-// threads share the work evenly and progress arrives block by block; which thread computes a
-// block does not change its content.
+// A pool of worker threads for one run (piscina). Tasks carry typed arrays on
+// SharedArrayBuffers, so a task's data is shared rather than copied; which thread runs a task
+// does not change what it computes.
 
 import { setMaxListeners } from 'node:events';
 import Piscina from 'piscina';
-import type { BlockOutput } from '../block';
-import type { BlockTask, WorkerData } from '../worker';
+import type { WorkerData, WorkerReply, WorkerTask } from '../worker';
 
-export interface BlockPool {
-  run(
-    blocks: number[],
-    total: number,
-    onBlock: (b: BlockOutput) => void,
-    signal?: AbortSignal,
-  ): Promise<void>;
+export interface TaskPool {
+  run<R extends WorkerReply>(task: WorkerTask, signal?: AbortSignal): Promise<R>;
   close(): Promise<void>;
 }
 
@@ -47,8 +41,8 @@ export function workerExecArgv(parent: string[] = process.execArgv): string[] {
   return out;
 }
 
-export function createBlockPool(file: string, threads: number, data: WorkerData): BlockPool {
-  const pool = new Piscina<BlockTask, BlockOutput[]>({
+export function createTaskPool(file: string, threads: number, data: WorkerData): TaskPool {
+  const pool = new Piscina<WorkerTask, WorkerReply>({
     filename: file,
     minThreads: threads,
     maxThreads: threads,
@@ -60,24 +54,18 @@ export function createBlockPool(file: string, threads: number, data: WorkerData)
   // pool error, which is expected then and must not crash the process.
   let failure: unknown = null;
   pool.on('error', (e) => (failure ??= e));
+  // One internal signal for all tasks (each task listens to it), fed by the callers' signals.
+  const tasks = new AbortController();
+  setMaxListeners(0, tasks.signal);
   return {
-    async run(blocks, total, onBlock, signal) {
-      // One internal signal for all the tasks (each task listens to it), fed by the caller's.
-      const tasks = new AbortController();
-      setMaxListeners(0, tasks.signal);
-      const forward = () => tasks.abort();
-      signal?.addEventListener('abort', forward, { once: true });
-      if (signal?.aborted) tasks.abort();
-      try {
-        await Promise.all(
-          blocks.map((b) =>
-            pool.run({ blocks: [b], total }, { signal: tasks.signal }).then((outs) => outs.forEach(onBlock)),
-          ),
-        );
-      } finally {
-        signal?.removeEventListener('abort', forward);
+    async run<R extends WorkerReply>(task: WorkerTask, signal?: AbortSignal) {
+      if (signal) {
+        if (signal.aborted) tasks.abort();
+        else signal.addEventListener('abort', () => tasks.abort(), { once: true });
       }
+      const reply = await pool.run(task, { signal: tasks.signal });
       if (failure && !tasks.signal.aborted) throw failure;
+      return reply as R;
     },
     close: () => pool.destroy(),
   };

@@ -1,36 +1,67 @@
 /**
- * Ranks without comparator callbacks (native typed-array sorts only).
+ * Ranks without comparator callbacks.
  *
- *  - createRanker: ranks of a short column as a permutation. Each value's index is written into
- *    the lowest ⌈log₂ n⌉ bits of its mantissa, the keys are sorted natively and the indices read
- *    back in order. The change is below 2⁻⁴² relative for n ≤ 1024, so only values closer than
- *    that can trade places; exact ties are broken by position.
+ *  - createRanker: ranks of a short column as a permutation, by a least-significant-digit radix
+ *    sort (Knuth 1998, TAOCP vol. 3, §5.2.5) of 32-bit keys, the values mapped linearly from
+ *    [min, max] onto 0…2³²−1, three passes of 11 bits. Values closer than (max − min)/2³² share a
+ *    key and keep their order of appearance; all others are ranked exactly.
  *  - midRanks: average rank of tied values (Kendall & Gibbons 1990, "Rank Correlation Methods",
  *    5th ed., §3.8), for Spearman's coefficient, by binary search in the sorted copy.
  */
-
-const LOW_WORD = new Uint8Array(Uint32Array.of(1).buffer)[0] === 1 ? 0 : 1;
 
 export interface Ranker {
   /** rank[i] ∈ 0…n−1 (a permutation) of values[0…n−1]. */
   rank(values: Float64Array, n: number, rank: Int32Array): void;
 }
 
+const DIGIT = 2048;
+
 export function createRanker(capacity: number): Ranker {
-  const keys = new Float64Array(capacity);
-  const words = new Uint32Array(keys.buffer);
+  const keysA = new Uint32Array(capacity);
+  const keysB = new Uint32Array(capacity);
+  const idxA = new Int32Array(capacity);
+  const idxB = new Int32Array(capacity);
+  const hist = new Int32Array(3 * DIGIT);
   return {
     rank(values, n, rank) {
-      const bits = Math.max(1, 32 - Math.clz32(n - 1));
-      const mask = (1 << bits) - 1;
-      const keep = ~mask;
+      let lo = Infinity;
+      let hi = -Infinity;
       for (let i = 0; i < n; i++) {
-        keys[i] = values[i];
-        const w = 2 * i + LOW_WORD;
-        words[w] = (words[w] & keep) | i;
+        const v = values[i];
+        if (v < lo) lo = v;
+        if (v > hi) hi = v;
       }
-      keys.subarray(0, n).sort();
-      for (let r = 0; r < n; r++) rank[words[2 * r + LOW_WORD] & mask] = r;
+      const scale = hi > lo ? 4294967295 / (hi - lo) : 0;
+      hist.fill(0);
+      for (let i = 0; i < n; i++) {
+        const k = Math.min(4294967295, Math.floor((values[i] - lo) * scale)) >>> 0;
+        keysA[i] = k;
+        hist[k & 2047]++;
+        hist[DIGIT + ((k >>> 11) & 2047)]++;
+        hist[2 * DIGIT + (k >>> 22)]++;
+      }
+      for (let h = 0; h < 3 * DIGIT; h += DIGIT) {
+        let sum = 0;
+        for (let b = h; b < h + DIGIT; b++) {
+          const c = hist[b];
+          hist[b] = sum;
+          sum += c;
+        }
+      }
+      for (let i = 0; i < n; i++) {
+        const k = keysA[i];
+        const p = hist[k & 2047]++;
+        keysB[p] = k;
+        idxB[p] = i;
+      }
+      for (let i = 0; i < n; i++) {
+        const k = keysB[i];
+        const p = hist[DIGIT + ((k >>> 11) & 2047)]++;
+        keysA[p] = k;
+        idxA[p] = idxB[i];
+      }
+      for (let i = 0; i < n; i++) idxB[hist[2 * DIGIT + (keysA[i] >>> 22)]++] = idxA[i];
+      for (let r = 0; r < n; r++) rank[idxB[r]] = r;
     },
   };
 }
@@ -58,9 +89,12 @@ function upperBound(sorted: Float64Array, n: number, x: number): number {
 }
 
 /** Mid-ranks in 1…n given the sorted copy of the values. */
-export function midRanks(values: Float64Array, sorted: Float64Array): Float64Array {
+export function midRanks(
+  values: Float64Array,
+  sorted: Float64Array,
+  out: Float64Array = new Float64Array(values.length),
+): Float64Array {
   const n = values.length;
-  const out = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const x = values[i];
     const lb = lowerBound(sorted, n, x);

@@ -14,48 +14,36 @@
  * total of independent inputs on the rank scale.
  */
 
-import { type BlockOutput, GRADE_UNIT } from '../block';
+import { type BlockSummary, GRADE_UNIT } from '../block';
 import type { SensitivityInput } from '../compile';
 import type { SensitivityEntry } from '../types';
 
 /**
  * Rank correlation of each input with the ranked cost (inputs with `cost`) and the ranked
  * duration (inputs with `duration`, when there is a schedule); 0 where it does not apply.
+ * `blocks` carry Σg and Σg² per input, `cross` the per-block Σ k·R (see blockCrossSums).
  */
 export function rankCorrelations(
   inputs: SensitivityInput[],
-  blocks: BlockOutput[],
+  blocks: BlockSummary[],
+  cross: Float64Array[],
   costRanks: Float64Array,
   durationRanks: Float64Array | null,
 ): { cost: Float64Array; duration: Float64Array } {
   const m = inputs.length;
   const sg = new Float64Array(m);
   const sgg = new Float64Array(m);
-  const cross = { cost: new Float64Array(m), duration: new Float64Array(m) };
-  let offset = 0;
-  for (const b of blocks) {
-    const n = b.n;
-    const g = b.grades;
+  const sums = { cost: new Float64Array(m), duration: new Float64Array(m) };
+  blocks.forEach((b, k) => {
     for (let s = 0; s < m; s++) {
       sg[s] += b.gradeSums[2 * s];
       sgg[s] += b.gradeSums[2 * s + 1];
-      const base = s * n;
-      // Σ (k + ½)·R = Σ k·R + ½ ΣR: the loop multiplies stored integers only.
-      if (inputs[s].cost) {
-        let acc = 0;
-        for (let i = 0; i < n; i++) acc += g[base + i] * costRanks[offset + i];
-        cross.cost[s] += acc;
-      }
-      if (durationRanks && inputs[s].duration) {
-        let acc = 0;
-        for (let i = 0; i < n; i++) acc += g[base + i] * durationRanks[offset + i];
-        cross.duration[s] += acc;
-      }
+      sums.cost[s] += cross[k][2 * s];
+      sums.duration[s] += cross[k][2 * s + 1];
     }
-    offset += n;
-  }
-  const n = offset;
-  const corrWith = (ranks: Float64Array | null, sums: Float64Array) => {
+  });
+  const n = costRanks.length;
+  const corrWith = (ranks: Float64Array | null, kr: Float64Array) => {
     const out = new Float64Array(m);
     if (!ranks) return out;
     let sr = 0;
@@ -66,14 +54,15 @@ export function rankCorrelations(
     }
     const vr = srr - (sr * sr) / n;
     for (let s = 0; s < m; s++) {
-      const sgr = (sums[s] + 0.5 * sr) * GRADE_UNIT;
+      // Σ g·R with g = (k + ½)·2⁻¹⁶: (Σ k·R + ½ ΣR)·2⁻¹⁶.
+      const sgr = (kr[s] + 0.5 * sr) * GRADE_UNIT;
       const vg = sgg[s] - (sg[s] * sg[s]) / n;
       const cov = sgr - (sg[s] * sr) / n;
       out[s] = vg > 0 && vr > 0 ? cov / Math.sqrt(vg * vr) : 0;
     }
     return out;
   };
-  return { cost: corrWith(costRanks, cross.cost), duration: corrWith(durationRanks, cross.duration) };
+  return { cost: corrWith(costRanks, sums.cost), duration: corrWith(durationRanks, sums.duration) };
 }
 
 /** Entries sorted by |rank correlation|, with variance shares ρ²/Σρ². */

@@ -1,9 +1,17 @@
 // Sensitivity (tornado): Spearman's coefficient of each input with the totals, against the
 // closed form for normals and against Spearman by sorting on the same iterations.
 import { describe, expect, it } from 'vitest';
-import { type BlockOutput, blockLength, GRADE_UNIT, simulateBlock } from '../../../lib/sim/block';
-import { blocksBetween, prepareRun, simulateSync } from '../../../lib/sim/engine';
-import { concatTotals, rollUp } from '../../../lib/sim/rollup';
+import { blockLength, GRADE_UNIT } from '../../../lib/sim/block';
+import {
+  blocksBetween,
+  crossSumsInThread,
+  prepareRun,
+  rankRun,
+  resultOf,
+  simulateRound,
+  simulateSync,
+} from '../../../lib/sim/engine';
+import { allocateRound, blockSink } from '../../../lib/sim/run-data';
 import { item, model, normal, spearmanBySorting, uniform } from './helpers';
 
 describe('rank correlation with the total', () => {
@@ -31,21 +39,24 @@ describe('rank correlation with the total', () => {
       ],
       correlations: [{ a: 'C1', b: 'A1', rho: 0.4 }],
     });
-    const { plan, settings, key } = prepareRun(m, { iterations: 8000, seed: 21 });
-    const blocks: BlockOutput[] = blocksBetween(0, 8000).map((b) =>
-      simulateBlock(plan, key, settings.sampling, b, blockLength(b, 8000)),
-    );
-    const result = rollUp(plan, blocks, { seed: 21, sampling: settings.sampling, elapsedMs: 0 });
-    const cost = concatTotals(blocks, (b) => b.cost);
-    const duration = concatTotals(blocks, (b) => b.duration);
+    const run = prepareRun(m, { iterations: 8000, seed: 21 });
+    const { plan } = run;
+    const store = allocateRound(plan, 0, 8000, false);
+    const blocks = simulateRound(run, store);
+    const totals = rankRun(run, [store]);
+    const result = resultOf(run, blocks, totals, crossSumsInThread(run, [store], totals), {
+      elapsedMs: 0,
+      warnings: [],
+    });
+    const { cost, duration } = store;
     plan.sensitivity.forEach((input, row) => {
       // The stored grade is a monotone function of the input's value (ties kept), so Spearman of
       // the grades with a total is Spearman of the input with it.
       const g = new Float64Array(8000);
-      let off = 0;
-      for (const b of blocks) {
-        for (let i = 0; i < b.n; i++) g[off + i] = (b.grades[row * b.n + i] + 0.5) * GRADE_UNIT;
-        off += b.n;
+      for (const b of blocksBetween(0, 8000)) {
+        const n = blockLength(b, 8000);
+        const { grades } = blockSink(store, b, n);
+        for (let i = 0; i < n; i++) g[b * 1000 + i] = (grades[row * n + i] + 0.5) * GRADE_UNIT;
       }
       if (input.cost) {
         const engine = result.sensitivity.cost.find((s) => s.id === input.id)!.rankCorrelation;
