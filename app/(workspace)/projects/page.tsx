@@ -2,6 +2,7 @@ import Link from 'next/link';
 import { requirePageActor } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/roles';
 import { listProjectsWithEstimates } from '@/lib/services/projects';
+import { latestRunSummaries } from '@/lib/services/runs';
 import { formatMoney } from '@/lib/registers/numbers';
 import { Card, EmptyState } from '@/components/ui/card';
 import { ProjectActions } from '@/components/projects/project-actions';
@@ -17,6 +18,10 @@ export default async function ProjectsPage({
   const actor = await requirePageActor('project:read', '/projects');
   const showArchived = (await searchParams).archived === '1';
   const projects = await listProjectsWithEstimates(actor, { includeArchived: showArchived });
+  const latest = await latestRunSummaries(
+    actor,
+    projects.map((p) => p.id),
+  );
   const mayWrite = can(actor.role, 'project:write');
   return (
     <div className="space-y-5">
@@ -81,7 +86,13 @@ export default async function ProjectsPage({
                   )}
                 </td>
                 <td className="num px-3 py-1.5">
-                  {p.latestRun ? `${formatMoney(p.latestRun.P50)} / ${formatMoney(p.latestRun.P80)}` : '—'}
+                  {latest[p.id] ? (
+                    <Link href={`/projects/${p.id}/runs/${latest[p.id].runId}`} className="hover:underline">
+                      {formatMoney(latest[p.id].costP50)} / {formatMoney(latest[p.id].costP80)}
+                    </Link>
+                  ) : (
+                    '—'
+                  )}
                 </td>
                 {mayWrite ? (
                   <td className="px-3 py-1.5">
