@@ -123,6 +123,102 @@ export function blockLength(block: number, total: number): number {
   return Math.max(0, Math.min(BLOCK_SIZE, total - block * BLOCK_SIZE));
 }
 
+// Small loops as functions of their own: each is optimised once, quickly, whatever the model;
+// one large function holding them all would be recompiled as it meets new distributions.
+
+function addInto(acc: Float64Array, x: Float64Array, n: number): void {
+  for (let i = 0; i < n; i++) acc[i] += x[i];
+}
+
+function addConstant(acc: Float64Array, x: number, n: number): void {
+  for (let i = 0; i < n; i++) acc[i] += x;
+}
+
+function addProduct(acc: Float64Array, x: Float64Array, y: Float64Array, n: number): void {
+  for (let i = 0; i < n; i++) acc[i] += x[i] * y[i];
+}
+
+function addScaled(acc: Float64Array, x: number, y: Float64Array, n: number): void {
+  for (let i = 0; i < n; i++) acc[i] += x * y[i];
+}
+
+function clampAtZero(x: Float64Array, n: number): void {
+  for (let i = 0; i < n; i++) if (x[i] < 0) x[i] = 0;
+}
+
+function occurrences(u: Float64Array, p: number, out: Uint8Array, n: number): void {
+  for (let i = 0; i < n; i++) out[i] = u[i] < p ? 1 : 0;
+}
+
+function addWhere(acc: Float64Array, x: Float64Array, mask: Uint8Array, n: number): void {
+  for (let i = 0; i < n; i++) if (mask[i]) acc[i] += x[i];
+}
+
+function addPositiveWhere(acc: Float64Array, x: Float64Array, mask: Uint8Array, n: number): void {
+  for (let i = 0; i < n; i++) if (mask[i] && x[i] > 0) acc[i] += x[i];
+}
+
+/**
+ * A risk's grade, the mid-distribution value of "impact if it occurs, else 0": (1 − p)/2 when it
+ * does not occur, 1 − p + p·u when it does (u its severity, ½ when the impact is fixed).
+ */
+function riskGrades(
+  mask: Uint8Array,
+  severity: Float64Array | null,
+  p: number,
+  out: Float64Array,
+  n: number,
+): void {
+  const none = (1 - p) / 2;
+  for (let i = 0; i < n; i++) out[i] = mask[i] ? 1 - p + p * (severity ? severity[i] : 0.5) : none;
+}
+
+/** Stores ⌊g·2¹⁶⌋ at grades[off…] and Σg, Σg² of the stored values read back as (k + ½)/2¹⁶. */
+function storeGrades(
+  g: Float64Array,
+  grades: Uint16Array,
+  off: number,
+  sums: Float64Array,
+  row: number,
+  n: number,
+) {
+  let s1 = 0;
+  let s2 = 0;
+  for (let i = 0; i < n; i++) {
+    const x = g[i] * 65536;
+    const k = x >= 65535 ? 65535 : x | 0;
+    grades[off + i] = k;
+    const back = (k + 0.5) * GRADE_UNIT;
+    s1 += back;
+    s2 += back * back;
+  }
+  sums[2 * row] = s1;
+  sums[2 * row + 1] = s2;
+}
+
+/** Σa, Σb, Σa², Σb², Σab into out[at…at+4]. */
+function pairSumsInto(a: Float64Array, b: Float64Array, n: number, out: Float64Array, at: number): void {
+  let sa = 0;
+  let sb = 0;
+  let saa = 0;
+  let sbb = 0;
+  let sab = 0;
+  for (let i = 0; i < n; i++) {
+    const x = a[i];
+    const y = b[i];
+    sa += x;
+    sb += y;
+    saa += x * x;
+    sbb += y * y;
+    sab += x * y;
+  }
+  out[at] = sa;
+  out[at + 1] = sb;
+  out[at + 2] = saa;
+  out[at + 3] = sbb;
+  out[at + 4] = sab;
+}
+
 export function simulateBlock(
   plan: Plan,
   key: Uint32Array,
@@ -147,31 +243,18 @@ export function simulateBlock(
     else fillMonteCarlo(rng, into, n);
     return into;
   };
-  /** Stores ⌊g·2¹⁶⌋ for row `row` and its block sums Σg, Σg² (g read back as (k + ½)/2¹⁶). */
-  const writeGrades = (row: number, g: Float64Array, scale: number) => {
-    const off = row * n;
-    let s1 = 0;
-    let s2 = 0;
-    for (let i = 0; i < n; i++) {
-      const x = g[i] * scale;
-      const k = x >= 65535 ? 65535 : x | 0;
-      grades[off + i] = k;
-      const back = (k + 0.5) * GRADE_UNIT;
-      s1 += back;
-      s2 += back * back;
-    }
-    gradeSums[2 * row] = s1;
-    gradeSums[2 * row + 1] = s2;
-  };
+  /** Uniforms of variable v, their grades stored when v is a tornado input. */
   const column = (v: number, into: Float64Array): Float64Array => {
     const u = uniforms(v, into);
     const row = ws.gradeRowOfVariable[v];
-    if (row >= 0) writeGrades(row, u, 65536);
+    if (row >= 0) storeGrades(u, grades, row * n, gradeSums, row, n);
     return u;
   };
 
   // 1. Correlation groups.
-  plan.groups.forEach((g, k) => induceGroup(g, ws.groupColumns[k], n, key, block, sampling, ws.induction));
+  for (let k = 0; k < plan.groups.length; k++) {
+    induceGroup(plan.groups[k], ws.groupColumns[k], n, key, block, sampling, ws.induction);
+  }
 
   // 2. Durations.
   const acts = plan.activities.length;
@@ -181,50 +264,41 @@ export function simulateBlock(
     if (v < 0) d.fill(Math.max(0, dist.mean), 0, n);
     else {
       dist.quantileInto(column(v, ws.free), d, n);
-      for (let i = 0; i < n; i++) if (d[i] < 0) d[i] = 0;
+      clampAtZero(d, n);
     }
   }
 
   // 3. Line items.
   for (const { dist, v } of plan.costItems) {
-    if (v < 0) {
-      const x = dist.mean;
-      for (let i = 0; i < n; i++) cost[i] += x;
-    } else {
+    if (v < 0) addConstant(cost, dist.mean, n);
+    else {
       dist.quantileInto(column(v, ws.free), tmp, n);
-      for (let i = 0; i < n; i++) cost[i] += tmp[i];
+      addInto(cost, tmp, n);
     }
   }
 
-  // 4. Risks. A risk's grade is the mid-distribution value of "impact if it occurs, else 0":
-  // (1 − p)/2 when it does not occur, 1 − p + p·u when it does (u its severity).
+  // 4. Risks.
   for (let r = 0; r < plan.risks.length; r++) {
     const risk = plan.risks[r];
     const p = risk.probability;
     if (p >= 1) occurred.fill(1, 0, n);
     else if (risk.vOccur < 0) occurred.fill(0, 0, n);
-    else {
-      const u = uniforms(risk.vOccur, ws.free2);
-      for (let i = 0; i < n; i++) occurred[i] = u[i] < p ? 1 : 0;
-    }
+    else occurrences(uniforms(risk.vOccur, ws.free2), p, occurred, n);
     const sev = risk.vSeverity >= 0 ? uniforms(risk.vSeverity, ws.free) : null;
     if (risk.cost) {
       if (sev) risk.cost.quantileInto(sev, tmp, n);
       else tmp.fill(risk.cost.mean, 0, n);
-      for (let i = 0; i < n; i++) if (occurred[i]) cost[i] += tmp[i];
+      addWhere(cost, tmp, occurred, n);
     }
     if (risk.delay && risk.activity >= 0) {
       if (sev) risk.delay.quantileInto(sev, tmp, n);
       else tmp.fill(risk.delay.mean, 0, n);
-      const d = ws.durationColumn[risk.activity];
-      for (let i = 0; i < n; i++) if (occurred[i] && tmp[i] > 0) d[i] += tmp[i];
+      addPositiveWhere(ws.durationColumn[risk.activity], tmp, occurred, n);
     }
     const row = ws.gradeRowOfRisk[r];
     if (row >= 0) {
-      const pc = Math.min(1, Math.max(0, p));
-      const no = (1 - pc) / 2;
-      for (let i = 0; i < n; i++) tmp[i] = occurred[i] ? 1 - pc + pc * (sev ? sev[i] : 0.5) : no;
-      writeGrades(row, tmp, 65536);
+      riskGrades(occurred, sev, Math.min(1, Math.max(0, p)), tmp, n);
+      storeGrades(tmp, grades, row * n, gradeSums, row, n);
     }
   }
 
@@ -236,36 +310,17 @@ export function simulateBlock(
   // 6. Time-dependent items.
   for (const { rate, v, activity } of plan.rateItems) {
     const d = ws.durationColumn[activity];
-    if (v < 0) {
-      const x = rate.mean;
-      for (let i = 0; i < n; i++) cost[i] += x * d[i];
-    } else {
+    if (v < 0) addScaled(cost, rate.mean, d, n);
+    else {
       rate.quantileInto(column(v, ws.free), tmp, n);
-      for (let i = 0; i < n; i++) cost[i] += tmp[i] * d[i];
+      addProduct(cost, tmp, d, n);
     }
   }
 
   // 7. Sums for the achieved correlations (pairs are always within a group).
   const pairSums = new Float64Array(plan.correlations.length * 5);
   plan.correlations.forEach((c, k) => {
-    if (c.va < 0) return;
-    const a = ws.groupedColumn[c.va]!;
-    const b = ws.groupedColumn[c.vb]!;
-    let sa = 0;
-    let sb = 0;
-    let saa = 0;
-    let sbb = 0;
-    let sab = 0;
-    for (let i = 0; i < n; i++) {
-      const x = a[i];
-      const y = b[i];
-      sa += x;
-      sb += y;
-      saa += x * x;
-      sbb += y * y;
-      sab += x * y;
-    }
-    pairSums.set([sa, sb, saa, sbb, sab], k * 5);
+    if (c.va >= 0) pairSumsInto(ws.groupedColumn[c.va]!, ws.groupedColumn[c.vb]!, n, pairSums, 5 * k);
   });
 
   return { block, n, critical, gradeSums, pairSums };

@@ -11,20 +11,31 @@ export interface FixedParams {
   value: number;
 }
 
+/** One class per kind, so the engine's call sites see few targets (one method per kind). */
+class FixedDistribution implements Distribution {
+  readonly kind = 'fixed';
+  readonly variance = 0;
+  readonly degenerate = true;
+  readonly mean: number;
+  readonly base: number;
+  readonly support: readonly [number, number];
+  constructor(private readonly v: number) {
+    this.mean = v;
+    this.base = v;
+    this.support = [v, v];
+  }
+  quantile(): number {
+    return this.v;
+  }
+  cdf(x: number): number {
+    return x < this.v ? 0 : 1;
+  }
+  quantileInto(_u: Float64Array, out: Float64Array, n: number): void {
+    out.fill(this.v, 0, n);
+  }
+}
+
 export function createFixed(p: FixedParams, at: DistLocation): Distribution {
   requireFinite(at, 'value', p.value);
-  const v = p.value;
-  return {
-    kind: 'fixed',
-    mean: v,
-    variance: 0,
-    base: v,
-    support: [v, v],
-    degenerate: true,
-    quantile: () => v,
-    cdf: (x) => (x < v ? 0 : 1),
-    quantileInto(_u, out, n) {
-      out.fill(v, 0, n);
-    },
-  };
+  return new FixedDistribution(p.value);
 }

@@ -19,6 +19,34 @@ export type LognormalParams = { p10: number; p90: number } | { mean: number; sd:
 
 const Z90 = normalQuantile(0.9);
 
+class LognormalDistribution implements Distribution {
+  readonly kind = 'lognormal';
+  readonly degenerate = false;
+  readonly support: readonly [number, number] = [0, Infinity];
+  readonly mean: number;
+  readonly variance: number;
+  readonly base: number;
+  constructor(
+    private readonly mu: number,
+    private readonly sigma: number,
+  ) {
+    const s2 = sigma * sigma;
+    this.mean = Math.exp(mu + s2 / 2);
+    this.variance = Math.expm1(s2) * Math.exp(2 * mu + s2);
+    this.base = Math.exp(mu);
+  }
+  quantile(u: number): number {
+    return Math.exp(this.mu + this.sigma * normalQuantile(u));
+  }
+  cdf(x: number): number {
+    return x <= 0 ? 0 : normalCdf((Math.log(x) - this.mu) / this.sigma);
+  }
+  quantileInto(u: Float64Array, out: Float64Array, n: number): void {
+    const { mu, sigma } = this;
+    for (let i = 0; i < n; i++) out[i] = Math.exp(mu + sigma * normalQuantile(u[i]));
+  }
+}
+
 export function createLognormal(p: LognormalParams, at: DistLocation): Distribution {
   let mu: number;
   let sigma: number;
@@ -40,18 +68,5 @@ export function createLognormal(p: LognormalParams, at: DistLocation): Distribut
   } else {
     fail(at, '', 'a lognormal needs either p10 and p90 or mean and sd');
   }
-  const s2 = sigma * sigma;
-  return {
-    kind: 'lognormal',
-    mean: Math.exp(mu + s2 / 2),
-    variance: Math.expm1(s2) * Math.exp(2 * mu + s2),
-    base: Math.exp(mu),
-    support: [0, Infinity],
-    degenerate: false,
-    quantile: (u) => Math.exp(mu + sigma * normalQuantile(u)),
-    cdf: (x) => (x <= 0 ? 0 : normalCdf((Math.log(x) - mu) / sigma)),
-    quantileInto(u, out, n) {
-      for (let i = 0; i < n; i++) out[i] = Math.exp(mu + sigma * normalQuantile(u[i]));
-    },
-  };
+  return new LognormalDistribution(mu, sigma);
 }

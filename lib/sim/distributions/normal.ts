@@ -17,23 +17,34 @@ export interface NormalParams {
   sd: number;
 }
 
+class NormalDistribution implements Distribution {
+  readonly kind = 'normal';
+  readonly degenerate = false;
+  readonly support: readonly [number, number] = [-Infinity, Infinity];
+  readonly variance: number;
+  readonly base: number;
+  constructor(
+    readonly mean: number,
+    private readonly sigma: number,
+  ) {
+    this.variance = sigma * sigma;
+    this.base = mean;
+  }
+  quantile(u: number): number {
+    return this.mean + this.sigma * normalQuantile(u);
+  }
+  cdf(x: number): number {
+    return normalCdf((x - this.mean) / this.sigma);
+  }
+  quantileInto(u: Float64Array, out: Float64Array, n: number): void {
+    const { mean, sigma } = this;
+    for (let i = 0; i < n; i++) out[i] = mean + sigma * normalQuantile(u[i]);
+  }
+}
+
 export function createNormal(p: NormalParams, at: DistLocation): Distribution {
   requireFinite(at, 'mean', p.mean);
   requireFinite(at, 'sd', p.sd);
   requirePositive(at, 'sd', p.sd);
-  const mu = p.mean;
-  const sigma = p.sd;
-  return {
-    kind: 'normal',
-    mean: mu,
-    variance: sigma * sigma,
-    base: mu,
-    support: [-Infinity, Infinity],
-    degenerate: false,
-    quantile: (u) => mu + sigma * normalQuantile(u),
-    cdf: (x) => normalCdf((x - mu) / sigma),
-    quantileInto(u, out, n) {
-      for (let i = 0; i < n; i++) out[i] = mu + sigma * normalQuantile(u[i]);
-    },
-  };
+  return new NormalDistribution(p.mean, p.sd);
 }

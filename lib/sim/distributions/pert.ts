@@ -28,30 +28,49 @@ function standardPertQuantile(r: number, u: number): number {
   return jStat.ibetainv(u, 1 + LAMBDA * r, 1 + LAMBDA * (1 - r));
 }
 
+class PertDistribution implements Distribution {
+  readonly kind = 'pert';
+  readonly degenerate = false;
+  readonly mean: number;
+  readonly variance: number;
+  readonly base: number;
+  readonly support: readonly [number, number];
+  private readonly w: number;
+  private readonly alpha: number;
+  private readonly beta: number;
+  private table: BetaQuantileTable | null = null;
+  constructor(
+    private readonly a: number,
+    c: number,
+    b: number,
+  ) {
+    const w = b - a;
+    this.w = w;
+    this.alpha = 1 + (LAMBDA * (c - a)) / w;
+    this.beta = 1 + (LAMBDA * (b - c)) / w;
+    this.mean = (a + LAMBDA * c + b) / (LAMBDA + 2);
+    this.variance = ((this.mean - a) * (b - this.mean)) / 7;
+    this.base = c;
+    this.support = [a, b];
+  }
+  private getTable(): BetaQuantileTable {
+    return (this.table ??= createBetaQuantileTable(this.alpha, this.beta));
+  }
+  quantile(u: number): number {
+    return this.a + this.w * this.getTable().quantile(u);
+  }
+  cdf(x: number): number {
+    const { a, w } = this;
+    return x <= a ? 0 : x >= a + w ? 1 : jStat.ibeta((x - a) / w, this.alpha, this.beta);
+  }
+  quantileInto(u: Float64Array, out: Float64Array, n: number): void {
+    this.getTable().scaledQuantileInto(u, out, n, this.a, this.w);
+  }
+}
+
 export function createPert(p: ThreePointParams, at: DistLocation): Distribution {
   checkThreePoint(p, at);
-  const c = p.mode;
-  let a = p.low;
-  let b = p.high;
-  if (p.range === 'p10-p90')
-    ({ low: a, high: b } = fitBoundsToP10P90(p.low, c, p.high, standardPertQuantile));
-  const w = b - a;
-  const alpha = 1 + (LAMBDA * (c - a)) / w;
-  const beta = 1 + (LAMBDA * (b - c)) / w;
-  const mean = (a + LAMBDA * c + b) / (LAMBDA + 2);
-  let table: BetaQuantileTable | null = null;
-  const getTable = () => (table ??= createBetaQuantileTable(alpha, beta));
-  return {
-    kind: 'pert',
-    mean,
-    variance: ((mean - a) * (b - mean)) / 7,
-    base: c,
-    support: [a, b],
-    degenerate: false,
-    quantile: (u) => a + w * getTable().quantile(u),
-    cdf: (x) => (x <= a ? 0 : x >= b ? 1 : jStat.ibeta((x - a) / w, alpha, beta)),
-    quantileInto(u, out, n) {
-      getTable().scaledQuantileInto(u, out, n, +a, +w);
-    },
-  };
+  if (p.range !== 'p10-p90') return new PertDistribution(p.low, p.mode, p.high);
+  const { low, high } = fitBoundsToP10P90(p.low, p.mode, p.high, standardPertQuantile);
+  return new PertDistribution(low, p.mode, high);
 }

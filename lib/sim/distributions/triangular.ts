@@ -38,40 +38,48 @@ export function checkThreePoint(p: ThreePointParams, at: DistLocation): void {
   requireBetween(at, 'mode', p.mode, p.low, p.high);
 }
 
+class TriangularDistribution implements Distribution {
+  readonly kind = 'triangular';
+  readonly degenerate = false;
+  readonly mean: number;
+  readonly variance: number;
+  readonly base: number;
+  readonly support: readonly [number, number];
+  private readonly left: number;
+  private readonly right: number;
+  private readonly fc: number;
+  constructor(
+    private readonly a: number,
+    private readonly c: number,
+    private readonly b: number,
+  ) {
+    this.left = (b - a) * (c - a);
+    this.right = (b - a) * (b - c);
+    this.fc = (c - a) / (b - a);
+    this.mean = (a + b + c) / 3;
+    this.variance = (a * a + b * b + c * c - a * b - a * c - b * c) / 18;
+    this.base = c;
+    this.support = [a, b];
+  }
+  quantile(u: number): number {
+    return u < this.fc ? this.a + Math.sqrt(u * this.left) : this.b - Math.sqrt((1 - u) * this.right);
+  }
+  cdf(x: number): number {
+    const { a, b, c, left, right } = this;
+    return x <= a ? 0 : x >= b ? 1 : x <= c ? ((x - a) * (x - a)) / left : 1 - ((b - x) * (b - x)) / right;
+  }
+  quantileInto(u: Float64Array, out: Float64Array, n: number): void {
+    const { a, b, fc, left, right } = this;
+    for (let i = 0; i < n; i++) {
+      const v = u[i];
+      out[i] = v < fc ? a + Math.sqrt(v * left) : b - Math.sqrt((1 - v) * right);
+    }
+  }
+}
+
 export function createTriangular(p: ThreePointParams, at: DistLocation): Distribution {
   checkThreePoint(p, at);
-  const c = p.mode;
-  let a = p.low;
-  let b = p.high;
-  if (p.range === 'p10-p90')
-    ({ low: a, high: b } = fitBoundsToP10P90(p.low, c, p.high, standardTriangularQuantile));
-  const w = b - a;
-  const left = (b - a) * (c - a);
-  const right = (b - a) * (b - c);
-  const fc = (c - a) / w;
-  const quantile = (u: number) => (u < fc ? a + Math.sqrt(u * left) : b - Math.sqrt((1 - u) * right));
-  const mean = (a + b + c) / 3;
-  return {
-    kind: 'triangular',
-    mean,
-    variance: (a * a + b * b + c * c - a * b - a * c - b * c) / 18,
-    base: c,
-    support: [a, b],
-    degenerate: false,
-    quantile,
-    cdf: (x) =>
-      x <= a ? 0 : x >= b ? 1 : x <= c ? ((x - a) * (x - a)) / left : 1 - ((b - x) * (b - x)) / right,
-    quantileInto(u, out, n) {
-      // Locals, not captured bindings, in the hot loop (V8 re-reads mutable captured ones).
-      const lo = a;
-      const hi = b;
-      const f = fc;
-      const l = left;
-      const r = right;
-      for (let i = 0; i < n; i++) {
-        const v = u[i];
-        out[i] = v < f ? lo + Math.sqrt(v * l) : hi - Math.sqrt((1 - v) * r);
-      }
-    },
-  };
+  if (p.range !== 'p10-p90') return new TriangularDistribution(p.low, p.mode, p.high);
+  const { low, high } = fitBoundsToP10P90(p.low, p.mode, p.high, standardTriangularQuantile);
+  return new TriangularDistribution(low, p.mode, high);
 }

@@ -15,23 +15,38 @@ export interface UniformParams {
   high: number;
 }
 
+class UniformDistribution implements Distribution {
+  readonly kind = 'uniform';
+  readonly degenerate = false;
+  readonly mean: number;
+  readonly variance: number;
+  readonly base: number;
+  readonly support: readonly [number, number];
+  constructor(
+    private readonly a: number,
+    private readonly w: number,
+  ) {
+    this.mean = a + w / 2;
+    this.base = this.mean;
+    this.variance = (w * w) / 12;
+    this.support = [a, a + w];
+  }
+  quantile(u: number): number {
+    return this.a + u * this.w;
+  }
+  cdf(x: number): number {
+    const { a, w } = this;
+    return x <= a ? 0 : x >= a + w ? 1 : (x - a) / w;
+  }
+  quantileInto(u: Float64Array, out: Float64Array, n: number): void {
+    const { a, w } = this;
+    for (let i = 0; i < n; i++) out[i] = a + u[i] * w;
+  }
+}
+
 export function createUniform(p: UniformParams, at: DistLocation): Distribution {
   requireFinite(at, 'low', p.low);
   requireFinite(at, 'high', p.high);
   requireGreater(at, 'high', p.high, 'low', p.low);
-  const a = p.low;
-  const w = p.high - p.low;
-  return {
-    kind: 'uniform',
-    mean: a + w / 2,
-    variance: (w * w) / 12,
-    base: a + w / 2,
-    support: [a, a + w],
-    degenerate: false,
-    quantile: (u) => a + u * w,
-    cdf: (x) => (x <= a ? 0 : x >= a + w ? 1 : (x - a) / w),
-    quantileInto(u, out, n) {
-      for (let i = 0; i < n; i++) out[i] = a + u[i] * w;
-    },
-  };
+  return new UniformDistribution(p.low, p.high - p.low);
 }

@@ -57,9 +57,11 @@ export function createTaskPool(file: string, threads: number, data: WorkerData):
   // One internal signal for all tasks (each task listens to it), fed by the callers' signals.
   const tasks = new AbortController();
   setMaxListeners(0, tasks.signal);
+  const followed = new WeakSet<AbortSignal>();
   return {
     async run<R extends WorkerReply>(task: WorkerTask, signal?: AbortSignal) {
-      if (signal) {
+      if (signal && !followed.has(signal)) {
+        followed.add(signal);
         if (signal.aborted) tasks.abort();
         else signal.addEventListener('abort', () => tasks.abort(), { once: true });
       }

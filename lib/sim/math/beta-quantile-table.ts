@@ -37,7 +37,7 @@ export interface BetaQuantileTable {
 }
 
 /** Table 1: an accurate inverse through the x-space table. */
-function xSpaceInverse(alpha: number, beta: number, density: (x: number) => number): (u: number) => number {
+function xSpaceInverse(alpha: number, beta: number, density: (x: number) => number): XSpaceInverse {
   const x = new Float64Array(K + 1);
   const F = new Float64Array(K + 1);
   const coef = new Float64Array(4 * K);
@@ -80,12 +80,26 @@ function xSpaceInverse(alpha: number, beta: number, density: (x: number) => numb
     while (k < K - 1 && F[k + 1] <= g / CELLS) k++;
     cellStart[g] = k;
   }
-  return (u: number): number => {
+  return new XSpaceInverse(alpha, beta, x, F, coef, cellStart);
+}
+
+class XSpaceInverse {
+  constructor(
+    private readonly alpha: number,
+    private readonly beta: number,
+    private readonly x: Float64Array,
+    private readonly F: Float64Array,
+    private readonly coef: Float64Array,
+    private readonly cellStart: Int32Array,
+  ) {}
+
+  invert(u: number): number {
+    const { x, F, coef } = this;
     if (!(u > 0)) return 0;
     if (!(u < 1)) return 1;
-    let k = cellStart[(u * CELLS) | 0];
+    let k = this.cellStart[(u * CELLS) | 0];
     while (k < K - 1 && F[k + 1] <= u) k++;
-    if (k === 0 || k === K - 1) return jStat.ibetainv(u, alpha, beta);
+    if (k === 0 || k === K - 1) return jStat.ibetainv(u, this.alpha, this.beta);
     const j = 4 * k;
     const c0 = coef[j];
     const c1 = coef[j + 1];
@@ -100,13 +114,61 @@ function xSpaceInverse(alpha: number, beta: number, density: (x: number) => numb
       t = t < 0 ? 0 : t > 1 ? 1 : t;
     }
     return x[k] + t * (x[k + 1] - x[k]);
-  };
+  }
+}
+
+/** A class (not closures) so the engine's call site sees one target for every table. */
+class QuantileTable implements BetaQuantileTable {
+  private readonly one = new Float64Array(1);
+  private readonly result = new Float64Array(1);
+  constructor(
+    private readonly node: Float64Array,
+    private readonly flagged: Uint8Array,
+    private readonly slow: XSpaceInverse,
+  ) {}
+
+  /** The cubic of cell g at t ∈ [0, 1]. */
+  cubic(g: number, t: number): number {
+    const nd = this.node;
+    const x0 = nd[2 * g];
+    const m0 = nd[2 * g + 1];
+    const d = nd[2 * g + 2] - x0;
+    const m1 = nd[2 * g + 3];
+    return x0 + t * (m0 + t * (3 * d - 2 * m0 - m1 + t * (m0 + m1 - 2 * d)));
+  }
+
+  quantile(u: number): number {
+    this.one[0] = u;
+    this.scaledQuantileInto(this.one, this.result, 1, 0, 1);
+    return this.result[0];
+  }
+
+  scaledQuantileInto(u: Float64Array, out: Float64Array, n: number, a: number, w: number): void {
+    const nd = this.node;
+    const fl = this.flagged;
+    for (let i = 0; i < n; i++) {
+      const s = u[i] * G;
+      const g = s | 0;
+      if (g >= G || fl[g] === 1 || !(s > 0)) {
+        out[i] = a + w * this.slow.invert(u[i]);
+        continue;
+      }
+      const t = s - g;
+      const j = 2 * g;
+      const x0 = nd[j];
+      const m0 = nd[j + 1];
+      const d = nd[j + 2] - x0;
+      const m1 = nd[j + 3];
+      out[i] = a + w * (x0 + t * (m0 + t * (3 * d - 2 * m0 - m1 + t * (m0 + m1 - 2 * d))));
+    }
+  }
 }
 
 export function createBetaQuantileTable(alpha: number, beta: number): BetaQuantileTable {
   const lnB = jStat.betaln(alpha, beta);
   const density = (t: number) => Math.exp((alpha - 1) * Math.log(t) + (beta - 1) * Math.log1p(-t) - lnB) || 0;
-  const slow = xSpaceInverse(alpha, beta, density);
+  const inverse = xSpaceInverse(alpha, beta, density);
+  const slow = (u: number) => inverse.invert(u);
 
   // Table 2: cubic Hermite cells of x(u) on u = g/G, slope h/f(x) per cell.
   const nodeX = new Float64Array(G + 1);
@@ -122,47 +184,11 @@ export function createBetaQuantileTable(alpha: number, beta: number): BetaQuanti
     node[2 * g] = nodeX[g];
     node[2 * g + 1] = nodeSlope[g];
   }
-  const cubic = (g: number, t: number) => {
-    const x0 = node[2 * g];
-    const m0 = node[2 * g + 1];
-    const d = node[2 * g + 2] - x0;
-    const m1 = node[2 * g + 3];
-    return x0 + t * (m0 + t * (3 * d - 2 * m0 - m1 + t * (m0 + m1 - 2 * d)));
-  };
   const flagged = new Uint8Array(G);
+  const table = new QuantileTable(node, flagged, inverse);
   for (let g = 0; g < G; g++) {
     const ok = Number.isFinite(node[2 * g + 1]) && Number.isFinite(node[2 * g + 3]);
-    flagged[g] = ok && Math.abs(cubic(g, 0.5) - slow((g + 0.5) / G)) <= TOLERANCE ? 0 : 1;
+    flagged[g] = ok && Math.abs(table.cubic(g, 0.5) - slow((g + 0.5) / G)) <= TOLERANCE ? 0 : 1;
   }
-
-  const scaledQuantileInto = (u: Float64Array, out: Float64Array, n: number, a: number, w: number) => {
-    const nd = node;
-    const fl = flagged;
-    for (let i = 0; i < n; i++) {
-      const s = u[i] * G;
-      const g = s | 0;
-      if (g >= G || fl[g] === 1 || !(s > 0)) {
-        out[i] = a + w * slow(u[i]);
-        continue;
-      }
-      const t = s - g;
-      const j = 2 * g;
-      const x0 = nd[j];
-      const m0 = nd[j + 1];
-      const d = nd[j + 2] - x0;
-      const m1 = nd[j + 3];
-      out[i] = a + w * (x0 + t * (m0 + t * (3 * d - 2 * m0 - m1 + t * (m0 + m1 - 2 * d))));
-    }
-  };
-
-  const one = new Float64Array(1);
-  const result = new Float64Array(1);
-  return {
-    quantile(u: number) {
-      one[0] = u;
-      scaledQuantileInto(one, result, 1, 0, 1);
-      return result[0];
-    },
-    scaledQuantileInto,
-  };
+  return table;
 }
