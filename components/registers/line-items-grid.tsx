@@ -11,7 +11,7 @@ import { registerQueryKey, type GridRow, type SavedRow } from '@/components/grid
 import { Skeleton } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 import { activityBaseDurations, lineBase } from '@/lib/registers/base-estimate';
-import { specFromParts, summarise, type DistType } from '@/lib/registers/dist-fields';
+import { meanOf, specFromParts, summarise, type DistType } from '@/lib/registers/dist-fields';
 import { formatMoney } from '@/lib/registers/numbers';
 import { wbsLevel } from '@/lib/registers/wbs';
 import { distColumns } from './dist-columns';
@@ -21,6 +21,17 @@ import { ImportExport } from './import-export';
 import { nextCode, useRegisterPage } from './use-register-page';
 
 type Summary = { mean: number | null; p10: number | null; p90: number | null };
+
+/** The line's mean without its percentiles (for the total row). */
+function lineMean(row: GridRow, meanDays: Map<string, number>): number | null {
+  const type = row.distType as DistType | null;
+  if (!type) return typeof row.base === 'number' ? row.base : null;
+  const r = specFromParts({ ...(row as object), type } as never);
+  if (!r.ok) return null;
+  if (row.basis !== 'per-day') return meanOf(r.spec);
+  const days = meanDays.get(String(row.activityCode ?? ''));
+  return days === undefined ? null : meanOf(r.spec) * days;
+}
 
 function lineSummary(row: GridRow, meanDays: Map<string, number>): Summary {
   const type = row.distType as DistType | null;
@@ -183,7 +194,7 @@ export function LineItemsGrid({
     let mean = 0;
     for (const r of register.rows) {
       base += lineBase(r as never, durations.base) ?? 0;
-      mean += summaries(r).mean ?? 0;
+      mean += lineMean(r, durations.mean) ?? 0;
     }
     return {
       _key: 'total',
@@ -196,7 +207,7 @@ export function LineItemsGrid({
       _id: null,
       _version: null,
     };
-  }, [register.rows, durations, summaries, currency]);
+  }, [register.rows, durations, currency]);
 
   const totalRow = useMemo(() => ({ ...total, _p10: null, _p90: null }), [total]);
 

@@ -159,6 +159,20 @@ export function summarise(spec: DistSpec): DistSummary {
   return s;
 }
 
+const means = new Map<string, number>();
+
+/** The mean alone: no quantiles, so no tables are built (totals over thousands of lines). */
+export function meanOf(spec: DistSpec): number {
+  const key = JSON.stringify(spec);
+  let m = means.get(key);
+  if (m === undefined) {
+    m = createDistribution(spec, { where: '', field: '' }).mean;
+    if (means.size > 20_000) means.clear();
+    means.set(key, m);
+  }
+  return m;
+}
+
 /** The distribution's base (mode, midpoint, mean, median or value) without computing quantiles. */
 export function baseOf(spec: DistSpec): number {
   return createDistribution(spec, { where: '', field: '' }).base;

@@ -27,7 +27,7 @@ import {
   type RegisterRow,
   type RiskRow,
 } from './rows';
-import { insertRows, TABLES } from './insert';
+import { insertRows, TABLES, upsertRows } from './insert';
 import { ENTITY, loadState, MODELS, rowCode, type RegisterState } from './state';
 
 export type ParsedBatch = {
@@ -226,15 +226,39 @@ export async function applyBatch<K extends RegisterKind>(
       audit.push({ entity, entityId: id, action: 'delete', before: rowData(byId.get(id)!), after: null });
   }
   const updatedRows: AnyRow[] = [];
-  for (const row of next) {
-    if (!changedIds.has(row.id)) continue;
-    const saved = await writeUpdate(kind, row, state, scope, transaction);
-    updatedRows.push(saved);
+  const changed = next.filter((row) => changedIds.has(row.id));
+  const renames = changed.some(
+    (row) =>
+      kind !== 'correlations' &&
+      (row as { code: string }).code !== (byId.get(row.id) as { code: string }).code,
+  );
+  if (changed.length > 20 && !renames) {
+    // Many rows, no code changes (a paste of figures): one upsert statement. The project row
+    // lock and the version check above make this equivalent to row-by-row updates.
+    await upsertRows(
+      TABLES[kind],
+      changed.map((row) => {
+        const values: Record<string, unknown> = {
+          ...attributesOf(kind, row, state),
+          ...scope,
+          id: row.id,
+          version: row.version + 1,
+        };
+        if (kind !== 'correlations') values.sortOrder = row.sortOrder;
+        return values;
+      }),
+      transaction,
+    );
+    for (const row of changed) updatedRows.push({ ...row, version: row.version + 1 });
+  } else {
+    for (const row of changed) updatedRows.push(await writeUpdate(kind, row, state, scope, transaction));
+  }
+  for (const saved of updatedRows) {
     audit.push({
       entity,
-      entityId: row.id,
+      entityId: saved.id,
       action: options.auditAction ?? 'update',
-      before: rowData(byId.get(row.id)!),
+      before: rowData(byId.get(saved.id)!),
       after: rowData(saved),
     });
   }

@@ -1,4 +1,4 @@
-// Inserting many register rows in one statement. The register models do not declare
+// Writing many register rows in one statement. The register models do not declare
 // organizationId as an attribute (only as a foreign-key type), so a model insert would drop
 // it; a query-interface insert writes the columns exactly as given.
 
@@ -12,6 +12,8 @@ export const TABLES = {
   correlations: 'Correlations',
 } as const;
 
+type Table = (typeof TABLES)[keyof typeof TABLES];
+
 const JSON_COLUMNS = new Set([
   'dist',
   'ratePerDay',
@@ -23,21 +25,35 @@ const JSON_COLUMNS = new Set([
   'postDelayImpact',
 ]);
 
-export async function insertRows(
-  table: (typeof TABLES)[keyof typeof TABLES],
-  rows: Record<string, unknown>[],
-  transaction: Transaction,
-): Promise<void> {
-  if (!rows.length) return;
+function prepare(rows: Record<string, unknown>[]) {
   const now = new Date();
-  const prepared = rows.map((r) => {
+  return rows.map((r) => {
     const out: Record<string, unknown> = { createdAt: now, updatedAt: now };
     for (const [k, v] of Object.entries(r))
       out[k] = JSON_COLUMNS.has(k) && v !== null && v !== undefined ? JSON.stringify(v) : v;
     return out;
   });
+}
+
+export async function insertRows(table: Table, rows: Record<string, unknown>[], transaction: Transaction) {
+  const prepared = prepare(rows);
   // Chunks keep each statement well under the server's packet limit.
   for (let i = 0; i < prepared.length; i += 1000) {
     await sequelize.getQueryInterface().bulkInsert(table, prepared.slice(i, i + 1000), { transaction });
+  }
+}
+
+/**
+ * Updates existing rows (matched by id) with one INSERT … ON DUPLICATE KEY UPDATE. Only for
+ * rows whose codes do not change: a code taken from another row would match that row's key.
+ */
+export async function upsertRows(table: Table, rows: Record<string, unknown>[], transaction: Transaction) {
+  const prepared = prepare(rows);
+  if (!prepared.length) return;
+  const updateOnDuplicate = Object.keys(prepared[0]).filter((k) => k !== 'id' && k !== 'createdAt');
+  for (let i = 0; i < prepared.length; i += 1000) {
+    await sequelize
+      .getQueryInterface()
+      .bulkInsert(table, prepared.slice(i, i + 1000), { transaction, updateOnDuplicate } as object);
   }
 }

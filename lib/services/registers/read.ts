@@ -14,7 +14,7 @@ export async function listRegister<K extends RegisterKind>(
   kind: K,
 ): Promise<RegisterRow[K][]> {
   const project = await findProject(actor, projectId);
-  const state = await loadState(project.id, actor.organizationId);
+  const state = await loadState(project.id, actor.organizationId, undefined, kind);
   return state[kind] as RegisterRow[K][];
 }
 

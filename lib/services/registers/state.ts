@@ -32,13 +32,16 @@ export async function loadState(
   projectId: number,
   organizationId: number,
   transaction?: Transaction,
+  only?: RegisterKind,
 ): Promise<RegisterState> {
   const where = { projectId, organizationId };
+  // A read of one register loads only it (and the activities its rows name).
+  const want = (k: RegisterKind) => !only || only === k || (k === 'activities' && only !== 'correlations');
   const [activities, items, risks, correlations] = await Promise.all([
-    Activity.findAll({ where, order: ORDER, transaction }),
-    CostItem.findAll({ where, order: ORDER, transaction }),
-    RiskEvent.findAll({ where, order: ORDER, transaction }),
-    Correlation.findAll({ where, order: [['id', 'ASC']], transaction }),
+    want('activities') ? Activity.findAll({ where, order: ORDER, transaction }) : [],
+    want('items') ? CostItem.findAll({ where, order: ORDER, transaction }) : [],
+    want('risks') ? RiskEvent.findAll({ where, order: ORDER, transaction }) : [],
+    want('correlations') ? Correlation.findAll({ where, order: [['id', 'ASC']], transaction }) : [],
   ]);
   const activityCodeById = new Map(activities.map((a) => [a.id, a.code]));
   return {

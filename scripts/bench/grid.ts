@@ -1,0 +1,121 @@
+// Grid benchmark: how long a 2,000-line register takes to become interactive in Chromium, and
+// how long a 500-row paste takes to save.
+//
+//   1. Start the app with the demo data (npm start, or next start after npm run db:seed).
+//   2. npm run bench:grid                      (APP_URL defaults to http://localhost:3000)
+//      APP_URL=http://localhost:3120 npm run bench:grid   to point at another server.
+//
+// It signs in as the demo estimator, creates a project BENCH-… with 2,000 line items through
+// the API, opens its Line items tab and times (a) navigation start → first rows drawn and a
+// cell's editor opening on double-click, and (b) a pasted 3×500 block → "All changes saved"
+// (the one-transaction batch save included). The bench project is archived at the end.
+import { chromium } from '@playwright/test';
+
+const APP_URL = process.env.APP_URL ?? 'http://localhost:3000';
+const LINES = 2000;
+const PASTE_ROWS = 500;
+const RUNS = Number(process.env.RUNS ?? 3);
+
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+
+async function main() {
+  const browser = await chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--no-first-run'],
+  });
+  const page = await browser.newPage({ viewport: { width: 1280, height: 860 } });
+  await page.goto(`${APP_URL}/sign-in`);
+  await page.getByLabel('E-mail').fill('estimator@kestrelvale.example');
+  await page.getByLabel('Password').fill('demo-outturn-2026');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL(/\/projects/);
+
+  const code = `BENCH-${Date.now().toString(36).toUpperCase()}`;
+  const created = await page.request.post(`${APP_URL}/api/projects`, {
+    data: {
+      name: 'Grid benchmark',
+      code,
+      currency: 'EUR',
+      estimateClass: 4,
+      stage: 'Concept',
+      baseDate: '2027-01-04',
+    },
+  });
+  if (created.status() !== 201)
+    throw new Error(`could not create the bench project: ${await created.text()}`);
+  const projectId = (await created.json()).project.id as number;
+  const types = ['triangular', 'pert', 'uniform', 'normal', 'lognormal'];
+  const upserts = Array.from({ length: LINES }, (_, i) => {
+    const base = 10_000 + ((i * 7919) % 90_000);
+    const type = types[i % types.length];
+    const params =
+      type === 'normal'
+        ? { mean: base, sd: base * 0.1 }
+        : type === 'lognormal'
+          ? { low: base * 0.8, high: base * 1.4 }
+          : type === 'uniform'
+            ? { low: base * 0.9, high: base * 1.3 }
+            : { low: base * 0.85, mode: base, high: base * 1.5 };
+    return {
+      code: `${1 + Math.floor(i / 100)}.${(i % 100) + 1}`,
+      description: `Line ${i + 1}`,
+      distType: type,
+      ...params,
+    };
+  });
+  const seeded = await page.request.post(`${APP_URL}/api/projects/${projectId}/items`, { data: { upserts } });
+  if (seeded.status() !== 200) throw new Error(`could not create the lines: ${await seeded.text()}`);
+
+  const interactive: number[] = [];
+  const saves: number[] = [];
+  const cell = (row: number, field: string) =>
+    page.locator(
+      `[aria-label="Line items"] .ag-grid-scrolling-rows .ag-row[row-index="${row}"] [col-id="${field}"]`,
+    );
+  for (let run = 0; run < RUNS; run++) {
+    await page.goto(`${APP_URL}/projects/${projectId}/items`, { waitUntil: 'commit' });
+    const start = await page.evaluate(() => performance.timeOrigin);
+    await cell(0, 'description').waitFor();
+    await cell(0, 'description').dblclick();
+    await page.locator('[aria-label="Line items"] .ag-cell-inline-editing input').waitFor();
+    const ready = await page.evaluate(() => performance.timeOrigin + performance.now());
+    interactive.push(ready - start);
+    await page.keyboard.press('Escape');
+
+    await cell(0, 'low').click();
+    const block = Array.from({ length: PASTE_ROWS }, (_, i) =>
+      [8000 + i + run, 9000 + i + run, 20000 + i + run].join('\t'),
+    ).join('\n');
+    const saved = page.waitForResponse(
+      (r) => r.url().endsWith(`/api/projects/${projectId}/items`) && r.request().method() === 'POST',
+    );
+    const t0 = await page.evaluate((text) => {
+      const data = new DataTransfer();
+      data.setData('text/plain', text);
+      const t = performance.now();
+      document.activeElement!.dispatchEvent(
+        new ClipboardEvent('paste', { clipboardData: data, bubbles: true, cancelable: true }),
+      );
+      return t;
+    }, block);
+    const response = await saved;
+    if (response.status() !== 200)
+      throw new Error(`the paste was not saved: ${response.status()} ${await response.text()}`);
+    await page.getByText('All changes saved').waitFor();
+    saves.push((await page.evaluate(() => performance.now())) - t0);
+  }
+  await page.request.patch(`${APP_URL}/api/projects/${projectId}`, { data: { archived: true } });
+  await browser.close();
+
+  const fmt = (xs: number[]) =>
+    `${(median(xs) / 1000).toFixed(2)} s (runs: ${xs.map((x) => (x / 1000).toFixed(2)).join(', ')})`;
+  console.log(
+    `Grid of ${LINES.toLocaleString('en-GB')} lines interactive: ${fmt(interactive)}   aim ≤ 1.5 s`,
+  );
+  console.log(`Paste of ${PASTE_ROWS} rows × 3 cells saved:      ${fmt(saves)}   aim ≤ 1 s`);
+}
+
+main().catch((e) => {
+  console.error(e);
+  process.exit(1);
+});
