@@ -81,16 +81,18 @@ export const markerPlugin: Plugin = {
       }
       ctx.stroke();
       ctx.setLineDash([]);
-      ctx.fillStyle = m.color;
       ctx.font = '600 11px system-ui, sans-serif';
-      if (vertical) {
-        // Stagger the labels so that close markers stay readable.
-        ctx.textAlign = at > area.right - 60 ? 'right' : 'left';
-        ctx.fillText(m.label, at + (ctx.textAlign === 'right' ? -4 : 4), area.top + 12 + (i % 3) * 13);
-      } else {
-        ctx.textAlign = 'right';
-        ctx.fillText(m.label, area.right - 4, at - 4);
-      }
+      // Stagger vertical markers' labels so that close markers stay readable.
+      const right = vertical ? at > area.right - 90 : true;
+      const x = vertical ? at + (right ? -4 : 4) : area.right - 4;
+      const y = vertical ? area.top + 12 + (i % 3) * 14 : at - 4;
+      const width = ctx.measureText(m.label).width;
+      // A paper-coloured box behind the text keeps it legible over bars and curves.
+      ctx.fillStyle = 'rgba(255, 253, 248, 0.85)';
+      ctx.fillRect(right ? x - width - 2 : x - 2, y - 10, width + 4, 13);
+      ctx.fillStyle = m.color;
+      ctx.textAlign = right ? 'right' : 'left';
+      ctx.fillText(m.label, x, y);
     });
     ctx.restore();
   },

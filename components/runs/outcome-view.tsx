@@ -64,6 +64,9 @@ function Figure({
   );
 }
 
+/** Long schedules show their most critical activities only, so the chart stays readable. */
+const MAX_CRITICALITY_ROWS = 20;
+
 const ci = (c: [number, number], f: (v: number) => string) => `95 % interval ${f(c[0])} – ${f(c[1])}`;
 
 export function OutcomeView({ project, run, result, charts, names }: OutcomeViewProps) {
@@ -119,8 +122,11 @@ export function OutcomeView({ project, run, result, charts, names }: OutcomeView
 
   const costWithin = cost.probabilityWithinTarget;
   const durationWithin = duration?.probabilityWithinTarget;
-  const criticality = Object.entries(result.criticality)
-    .sort((a, b) => b[1] - a[1])
+  const allCriticality = Object.entries(result.criticality).sort(
+    (a, b) => b[1] - a[1] || a[0].localeCompare(b[0]),
+  );
+  const criticality = allCriticality
+    .slice(0, MAX_CRITICALITY_ROWS)
     .map(([id, value]) => ({ label: `${id} ${nameOf(id)}`.trim(), value }));
 
   return (
@@ -189,7 +195,7 @@ export function OutcomeView({ project, run, result, charts, names }: OutcomeView
       </div>
 
       <Section title="Cost">
-        <div className="grid grid-cols-[1fr_400px] gap-4">
+        <div className="grid grid-cols-[1fr_480px] gap-4">
           <ChartFrame
             title="Total cost: distribution and S-curve"
             testId="chart-cost-histogram"
@@ -225,7 +231,7 @@ export function OutcomeView({ project, run, result, charts, names }: OutcomeView
 
       {duration ? (
         <Section title="Finish date">
-          <div className="grid grid-cols-[1fr_400px] gap-4">
+          <div className="grid grid-cols-[1fr_480px] gap-4">
             <ChartFrame
               title="Finish date: distribution and S-curve"
               testId="chart-finish-curve"
@@ -417,6 +423,11 @@ export function OutcomeView({ project, run, result, charts, names }: OutcomeView
               testId="chart-criticality"
               reading={`${criticality[0].label} is on the critical path in ${formatShare(criticality[0].value, 0)} of iterations.`}
               height={Math.max(140, criticality.length * 22 + 50)}
+              note={
+                allCriticality.length > criticality.length
+                  ? `The ${criticality.length} most critical of ${allCriticality.length} activities.`
+                  : undefined
+              }
             >
               <CriticalityChart rows={criticality} />
             </ChartFrame>

@@ -113,7 +113,7 @@ export type SampleCharts = {
   of: number;
   cost: Histogram;
   duration: Histogram | null;
-  /** (duration, cost) points for the scatter, thinned evenly to at most `maxPoints`. */
+  /** (duration, cost) points for the scatter, thinned evenly to at most `maxPoints`, sorted by duration. */
   scatter: Point[];
 };
 
@@ -126,6 +126,8 @@ export function sampleCharts(
   const scatter: Point[] = [];
   if (sample.duration) {
     for (let i = 0; i < sample.n; i += step) scatter.push({ x: sample.duration[i], y: sample.cost[i] });
+    // The charts skip parsing for speed, and Chart.js then needs the points sorted along x.
+    scatter.sort((a, b) => a.x - b.x);
   }
   return {
     n: sample.n,

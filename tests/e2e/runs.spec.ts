@@ -22,8 +22,8 @@ test('an estimator runs the demo project, watches it progress and reads the outc
   const runId = await runs.start({
     iterations: 1_000_000,
     seed: 20261201,
-    costTarget: '30000000',
-    finishTarget: '2029-06-29',
+    costTarget: '56000000',
+    finishTarget: '2030-03-29',
   });
 
   const bar = runs.progressBar();

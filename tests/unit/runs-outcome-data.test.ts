@@ -4,6 +4,7 @@ import {
   empiricalCurve,
   histogram,
   percentileCurve,
+  sampleCharts,
   shareWithin,
   topDrivers,
 } from '@/lib/runs/outcome-data';
@@ -78,5 +79,16 @@ describe('chart data shaping', () => {
 
   it('counts the share of points within both targets', () => {
     expect(shareWithin([1, 2, 3, 4], [10, 30, 20, 40], 3, 25)).toBe(0.5);
+  });
+
+  it('thins the scatter evenly and sorts it along the duration axis, keeping each pair together', () => {
+    const duration = Array.from({ length: 5000 }, (_, i) => (i * 7919) % 5000);
+    const cost = duration.map((d) => 10 * d + 3);
+    const charts = sampleCharts({ n: 5000, of: 10_000, cost, duration }, 2500);
+    expect(charts.scatter).toHaveLength(2500);
+    for (let i = 1; i < charts.scatter.length; i++)
+      expect(charts.scatter[i].x).toBeGreaterThanOrEqual(charts.scatter[i - 1].x);
+    for (const p of charts.scatter) expect(p.y).toBe(10 * p.x + 3);
+    expect(charts.cost.counts.reduce((a, b) => a + b, 0)).toBe(5000);
   });
 });

@@ -47,7 +47,7 @@ export function PercentileTable({
                 {format(v)}
               </td>
               {extra ? <td className="num py-0.5 pr-2">{extra.cell(v)}</td> : null}
-              <td className="num py-0.5 pr-2 text-ink-soft">
+              <td className="num whitespace-nowrap py-0.5 pr-2 text-xs text-ink-soft">
                 {ci[k] ? `${format(ci[k][0])} – ${format(ci[k][1])}` : '—'}
               </td>
               {withContingency ? <td className="num py-0.5">{format(v - summary.base)}</td> : null}

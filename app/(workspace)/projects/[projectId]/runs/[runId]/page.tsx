@@ -35,7 +35,9 @@ export default async function RunPage({ params }: { params: Promise<{ projectId:
           </h1>
           <p className="text-sm text-ink-soft">
             {settingsText(run.settings)}
-            {outcome ? ` · ${outcome.result.iterations.toLocaleString('en-GB')} iterations run` : ''}
+            {outcome && run.settings.precision
+              ? ` · stopped at ${outcome.result.iterations.toLocaleString('en-GB')} iterations`
+              : ''}
           </p>
           <p className="text-xs text-ink-faint">
             Started by {run.startedBy?.name ?? 'a former member'} on {when.format(new Date(run.createdAt))}{' '}
