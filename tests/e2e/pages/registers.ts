@@ -17,7 +17,9 @@ export class RegisterPages {
 
   /** A body cell (not the pinned total row) by row index and field. */
   cell(row: number, field: string, label = 'Line items'): Locator {
-    return this.grid(label).locator(`.ag-grid-scrolling-rows .ag-row[row-index="${row}"] [col-id="${field}"]`);
+    return this.grid(label).locator(
+      `.ag-grid-scrolling-rows .ag-row[row-index="${row}"] [col-id="${field}"]`,
+    );
   }
 
   async typeInto(row: number, field: string, text: string) {
