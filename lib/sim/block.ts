@@ -23,7 +23,7 @@ import { allocateForwardPass, type ForwardPassBuffers, forwardPass } from './sch
 import type { Sampling } from './types';
 
 /** Iterations per block; fixed, so that the split does not depend on the thread count. */
-export const BLOCK_SIZE = 1000;
+export const BLOCK_SIZE = 2000;
 
 /** Value of one step of a stored grade: grades are kept as ⌊g·2¹⁶⌋ and read as (k + ½)/2¹⁶. */
 export const GRADE_UNIT = 1 / 65536;

@@ -82,6 +82,8 @@ export interface Plan {
   base: { cost: number; duration: number | null };
   targets: { cost?: number; duration?: number };
   warnings: string[];
+  /** Distinct (α, β) of the beta-PERT distributions sampled (their quantile tables). */
+  betaShapes: [number, number][];
 }
 
 /** Probability mass below zero above which a duration or delay warns that it is cut at 0. */
@@ -231,7 +233,18 @@ export function compileModel(model: Model): Plan {
     durationBase = total[0];
   }
 
+  const shapes = new Map<string, [number, number]>();
+  const sampled = [
+    ...costItems.map((c) => c.dist),
+    ...rateItems.map((r) => r.rate),
+    ...activities.map((a) => a.dist),
+    ...risks.flatMap((r) => [r.cost, r.delay]),
+  ];
+  for (const d of sampled)
+    if (d?.betaShape) shapes.set(d.betaShape.join(':'), [d.betaShape[0], d.betaShape[1]]);
+
   return {
+    betaShapes: [...shapes.values()],
     variables: variableIds.length,
     variableIds,
     costItems,

@@ -19,10 +19,16 @@ export interface PreparedRun {
   model: Model;
 }
 
-export function prepareRun(modelJson: unknown, options: SimulationOptions = {}): PreparedRun {
+/** Validated model, settings and run key: all a worker thread needs to start. */
+export function resolveRun(modelJson: unknown, options: SimulationOptions = {}): Omit<PreparedRun, 'plan'> {
   const model = parseModel(modelJson);
   const settings = resolveSettings(model, options);
-  return { model, plan: compileModel(model), settings, key: runKeyFromSeed(settings.seed) };
+  return { model, settings, key: runKeyFromSeed(settings.seed) };
+}
+
+export function prepareRun(modelJson: unknown, options: SimulationOptions = {}): PreparedRun {
+  const run = resolveRun(modelJson, options);
+  return { ...run, plan: compileModel(run.model) };
 }
 
 /** Blocks covering iterations [from, to); from is a multiple of BLOCK_SIZE. */

@@ -5,7 +5,9 @@
 
 import { availableParallelism } from 'node:os';
 import { type BlockSummary, blockLength, simulateBlock } from './block';
-import { blocksBetween, crossSumsInThread, prepareRun, rankRun, resultOf } from './engine';
+import { compileModel } from './compile';
+import { packBetaTables } from './math/beta-quantile-table';
+import { blocksBetween, crossSumsInThread, type PreparedRun, rankRun, resolveRun, resultOf } from './engine';
 import { SimulationCancelledError } from './errors';
 import { createTaskPool, type TaskPool } from './exec/pool';
 import { defaultWorkerFile, ensureWorkerFile } from './exec/worker-file';
@@ -13,11 +15,14 @@ import type { RunOptions } from './options';
 import { allocateRound, blockSink, type RoundStore } from './run-data';
 import { nextRound } from './schedule-of-rounds';
 import type { SimulationResult } from './types';
+import { warmUp } from './warm-up';
 
 const yieldToEventLoop = () => new Promise<void>((resolve) => setImmediate(resolve));
 
 /** Blocks per cross-sum task: enough work per message, enough tasks to share. */
-const CROSS_CHUNK = 8;
+const CROSS_CHUNK = 4;
+/** In this thread, warm the engine up (./warm-up) only for runs of at least this many blocks. */
+const WARM_UP_FROM = 8;
 
 export async function runSimulation(modelJson: unknown, options: RunOptions = {}): Promise<SimulationResult> {
   const started = performance.now();
@@ -26,8 +31,8 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
     if (signal?.aborted) throw new SimulationCancelledError();
   };
   throwIfAborted();
-  const run = prepareRun(modelJson, options);
-  const { plan, settings, key, model } = run;
+  const resolved = resolveRun(modelJson, options);
+  const { settings, key, model } = resolved;
   const threads = Math.max(1, Math.floor(options.threads ?? availableParallelism()));
   // A single block is not worth starting threads for.
   const pooled = threads > 1 && settings.iterations > blockLength(0, settings.iterations);
@@ -41,6 +46,11 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
       throwIfAborted();
       pool = createTaskPool(file, threads, { model, key: Array.from(key), sampling: settings.sampling });
     }
+    // While the workers start and compile their copy: the plan here, and the beta-PERT tables
+    // once for all threads.
+    const run: PreparedRun = { ...resolved, plan: compileModel(model) };
+    const { plan } = run;
+    const tables = pool ? packBetaTables(plan.betaShapes) : null;
     let done = 0;
     for (let round = nextRound(settings, plan, 0, rounds, warnings); round !== null;) {
       const total = round;
@@ -54,6 +64,7 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
         onProgress?.({ done: finished, total });
       };
       const todo = blocksBetween(done, total);
+      if (!pool && done === 0 && todo.length >= WARM_UP_FROM) warmUp(plan, settings.sampling);
       if (!pool) {
         for (const b of todo) {
           throwIfAborted();
@@ -66,7 +77,9 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
         await guard(
           Promise.all(
             todo.map((b) =>
-              p.run<BlockSummary[]>({ kind: 'blocks', blocks: [b], store }, signal).then(progress),
+              p
+                .run<BlockSummary[]>({ kind: 'blocks', blocks: [b], store, tables: tables! }, signal)
+                .then(progress),
             ),
           ),
         );

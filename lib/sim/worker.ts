@@ -1,13 +1,16 @@
 // Worker-thread entry, bundled to .build/sim-worker.mjs (scripts/build-worker.mjs, or on demand
-// by ./exec/worker-file). Each worker compiles the model once from its workerData, then runs
-// tasks: compute blocks into the round's shared store, or the tornado's cross sums of blocks.
-// Only small per-block sums travel back.
+// by ./exec/worker-file). Each worker compiles the model once from its workerData (while the
+// parent builds the beta-PERT tables that the first task brings), then runs tasks: compute
+// blocks into the round's shared store, or the tornado's cross sums of blocks. Only small
+// per-block sums travel back.
 
 import { workerData } from 'node:worker_threads';
 import { type BlockSummary, blockLength, simulateBlock } from './block';
 import { compileModel } from './compile';
+import { type PackedBetaTables, unpackBetaTables } from './math/beta-quantile-table';
 import { blockCrossSums, blockSink, type RoundStore } from './run-data';
 import type { Model, Sampling } from './types';
+import { warmUp } from './warm-up';
 
 export interface WorkerData {
   model: Model;
@@ -16,7 +19,13 @@ export interface WorkerData {
 }
 
 export type WorkerTask =
-  | { kind: 'blocks'; blocks: number[]; store: RoundStore }
+  | {
+      kind: 'blocks';
+      blocks: number[];
+      store: RoundStore;
+      /** Beta-PERT quantile tables built by the parent thread, so that no worker rebuilds them. */
+      tables: PackedBetaTables;
+    }
   | {
       kind: 'cross';
       blocks: number[];
@@ -30,10 +39,16 @@ export type WorkerReply = BlockSummary[] | Float64Array[];
 const data = workerData as WorkerData;
 const plan = compileModel(data.model);
 const key = Uint32Array.from(data.key);
+let warm = false;
 
 export default function runTask(task: WorkerTask): WorkerReply {
   const { store } = task;
   if (task.kind === 'blocks') {
+    if (!warm) {
+      unpackBetaTables(task.tables);
+      warmUp(plan, data.sampling);
+      warm = true;
+    }
     return task.blocks.map((b) => {
       const n = blockLength(b, store.total);
       return simulateBlock(plan, key, data.sampling, b, n, blockSink(store, b, n));

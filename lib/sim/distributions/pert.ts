@@ -15,7 +15,7 @@
  */
 
 import jStat from 'jstat';
-import { type BetaQuantileTable, createBetaQuantileTable } from '../math/beta-quantile-table';
+import { type BetaQuantileTable, betaQuantileTable } from '../math/beta-quantile-table';
 import type { DistLocation } from './checks';
 import { fitBoundsToP10P90 } from './fit-p10-p90';
 import { checkThreePoint, type ThreePointParams } from './triangular';
@@ -38,6 +38,8 @@ class PertDistribution implements Distribution {
   private readonly w: number;
   private readonly alpha: number;
   private readonly beta: number;
+  /** (α, β) of the underlying beta distribution, for sharing its quantile table. */
+  readonly betaShape: readonly [number, number];
   private table: BetaQuantileTable | null = null;
   constructor(
     private readonly a: number,
@@ -48,13 +50,14 @@ class PertDistribution implements Distribution {
     this.w = w;
     this.alpha = 1 + (LAMBDA * (c - a)) / w;
     this.beta = 1 + (LAMBDA * (b - c)) / w;
+    this.betaShape = [this.alpha, this.beta];
     this.mean = (a + LAMBDA * c + b) / (LAMBDA + 2);
     this.variance = ((this.mean - a) * (b - this.mean)) / 7;
     this.base = c;
     this.support = [a, b];
   }
   private getTable(): BetaQuantileTable {
-    return (this.table ??= createBetaQuantileTable(this.alpha, this.beta));
+    return (this.table ??= betaQuantileTable(this.alpha, this.beta));
   }
   quantile(u: number): number {
     return this.a + this.w * this.getTable().quantile(u);

@@ -14,6 +14,8 @@ export interface Distribution {
   readonly base: number;
   /** Smallest and largest possible values (±Infinity when unbounded). */
   readonly support: readonly [number, number];
+  /** For beta-based distributions, the shape (α, β) whose quantile table it samples from. */
+  readonly betaShape?: readonly [number, number];
   /** True when the distribution has no spread (it needs no random number). */
   readonly degenerate: boolean;
   /** Inverse distribution function, u in (0, 1). */

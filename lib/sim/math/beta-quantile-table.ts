@@ -37,11 +37,15 @@ export interface BetaQuantileTable {
 }
 
 /** Table 1: an accurate inverse through the x-space table. */
+/** The cosine-spaced nodes, the same for every table. */
+const X_NODES = Float64Array.from({ length: K + 1 }, (_, k) =>
+  k === K ? 1 : 0.5 * (1 - Math.cos((Math.PI * k) / K)),
+);
+
 function xSpaceInverse(alpha: number, beta: number, density: (x: number) => number): XSpaceInverse {
-  const x = new Float64Array(K + 1);
+  const x = X_NODES;
   const F = new Float64Array(K + 1);
   const coef = new Float64Array(4 * K);
-  for (let k = 0; k <= K; k++) x[k] = k === K ? 1 : 0.5 * (1 - Math.cos((Math.PI * k) / K));
   // F at the nodes. Exact at x₁ and x_{K−1}; in between, the masses of the intervals by 4-point
   // Gauss–Legendre in θ, where x = sin²(θ/2) makes the nodes equally spaced and the integrand
   // f(x) dx/dθ = sin^(2α−1)(θ/2) cos^(2β−1)(θ/2) / B(α, β) smooth away from the ends; the partial
@@ -80,21 +84,21 @@ function xSpaceInverse(alpha: number, beta: number, density: (x: number) => numb
     while (k < K - 1 && F[k + 1] <= g / CELLS) k++;
     cellStart[g] = k;
   }
-  return new XSpaceInverse(alpha, beta, x, F, coef, cellStart);
+  return new XSpaceInverse(alpha, beta, F, coef, cellStart);
 }
 
 class XSpaceInverse {
   constructor(
-    private readonly alpha: number,
-    private readonly beta: number,
-    private readonly x: Float64Array,
-    private readonly F: Float64Array,
-    private readonly coef: Float64Array,
-    private readonly cellStart: Int32Array,
+    readonly alpha: number,
+    readonly beta: number,
+    readonly F: Float64Array,
+    readonly coef: Float64Array,
+    readonly cellStart: Int32Array,
   ) {}
 
   invert(u: number): number {
-    const { x, F, coef } = this;
+    const { F, coef } = this;
+    const x = X_NODES;
     if (!(u > 0)) return 0;
     if (!(u < 1)) return 1;
     let k = this.cellStart[(u * CELLS) | 0];
@@ -122,9 +126,9 @@ class QuantileTable implements BetaQuantileTable {
   private readonly one = new Float64Array(1);
   private readonly result = new Float64Array(1);
   constructor(
-    private readonly node: Float64Array,
-    private readonly flagged: Uint8Array,
-    private readonly slow: XSpaceInverse,
+    readonly node: Float64Array,
+    readonly flagged: Uint8Array,
+    readonly slow: XSpaceInverse,
   ) {}
 
   /** The cubic of cell g at t ∈ [0, 1]. */
@@ -164,7 +168,82 @@ class QuantileTable implements BetaQuantileTable {
   }
 }
 
+// Tables by shape, so a shape is built once per thread (and a long-lived server reuses them).
+const CACHE_LIMIT = 1024;
+const cache = new Map<string, QuantileTable>();
+const keyOf = (alpha: number, beta: number) => `${alpha}:${beta}`;
+
+function remember(key: string, table: QuantileTable): QuantileTable {
+  if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value!);
+  cache.set(key, table);
+  return table;
+}
+
+/** The table of shape (α, β), built on first request. */
+export function betaQuantileTable(alpha: number, beta: number): BetaQuantileTable {
+  const key = keyOf(alpha, beta);
+  return cache.get(key) ?? remember(key, buildTable(alpha, beta));
+}
+
+/** Tables of several shapes packed in one SharedArrayBuffer: cheap to hand to every thread. */
+export interface PackedBetaTables {
+  buffer: SharedArrayBuffer;
+  /** (α, β) per table, in pack order. */
+  shapes: Float64Array;
+}
+
+const DOUBLES = K + 1 + 4 * K + 2 * (G + 1);
+const BYTES_PER_TABLE = Math.ceil((8 * DOUBLES + 4 * (CELLS + 1) + G) / 8) * 8;
+
+function views(buffer: SharedArrayBuffer, i: number) {
+  const at = i * BYTES_PER_TABLE;
+  const d = new Float64Array(buffer, at, DOUBLES);
+  return {
+    F: d.subarray(0, K + 1),
+    coef: d.subarray(K + 1, 5 * K + 1),
+    node: d.subarray(5 * K + 1),
+    cellStart: new Int32Array(buffer, at + 8 * DOUBLES, CELLS + 1),
+    flagged: new Uint8Array(buffer, at + 8 * DOUBLES + 4 * (CELLS + 1), G),
+  };
+}
+
+export function packBetaTables(shapes: readonly (readonly [number, number])[]): PackedBetaTables {
+  const buffer = new SharedArrayBuffer(Math.max(8, shapes.length * BYTES_PER_TABLE));
+  const flat = new Float64Array(2 * shapes.length);
+  shapes.forEach(([alpha, beta], i) => {
+    const t = betaQuantileTable(alpha, beta) as QuantileTable;
+    const v = views(buffer, i);
+    v.F.set(t.slow.F);
+    v.coef.set(t.slow.coef);
+    v.node.set(t.node);
+    v.cellStart.set(t.slow.cellStart);
+    v.flagged.set(t.flagged);
+    flat[2 * i] = alpha;
+    flat[2 * i + 1] = beta;
+  });
+  return { buffer, shapes: flat };
+}
+
+export function unpackBetaTables(pack: PackedBetaTables): void {
+  for (let i = 0; i < pack.shapes.length / 2; i++) {
+    const alpha = pack.shapes[2 * i];
+    const beta = pack.shapes[2 * i + 1];
+    const key = keyOf(alpha, beta);
+    if (cache.has(key)) continue;
+    const v = views(pack.buffer, i);
+    remember(
+      key,
+      new QuantileTable(v.node, v.flagged, new XSpaceInverse(alpha, beta, v.F, v.coef, v.cellStart)),
+    );
+  }
+}
+
+/** A new table (uncached; betaQuantileTable is the usual entry). */
 export function createBetaQuantileTable(alpha: number, beta: number): BetaQuantileTable {
+  return buildTable(alpha, beta);
+}
+
+function buildTable(alpha: number, beta: number): QuantileTable {
   const lnB = jStat.betaln(alpha, beta);
   const density = (t: number) => Math.exp((alpha - 1) * Math.log(t) + (beta - 1) * Math.log1p(-t) - lnB) || 0;
   const inverse = xSpaceInverse(alpha, beta, density);

@@ -1,7 +1,7 @@
 // Sensitivity (tornado): Spearman's coefficient of each input with the totals, against the
 // closed form for normals and against Spearman by sorting on the same iterations.
 import { describe, expect, it } from 'vitest';
-import { blockLength, GRADE_UNIT } from '../../../lib/sim/block';
+import { BLOCK_SIZE, blockLength, GRADE_UNIT } from '../../../lib/sim/block';
 import {
   blocksBetween,
   crossSumsInThread,
@@ -56,7 +56,7 @@ describe('rank correlation with the total', () => {
       for (const b of blocksBetween(0, 8000)) {
         const n = blockLength(b, 8000);
         const { grades } = blockSink(store, b, n);
-        for (let i = 0; i < n; i++) g[b * 1000 + i] = (grades[row * n + i] + 0.5) * GRADE_UNIT;
+        for (let i = 0; i < n; i++) g[b * BLOCK_SIZE + i] = (grades[row * n + i] + 0.5) * GRADE_UNIT;
       }
       if (input.cost) {
         const engine = result.sensitivity.cost.find((s) => s.id === input.id)!.rankCorrelation;

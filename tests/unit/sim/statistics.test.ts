@@ -3,6 +3,7 @@
 // run-until-precise option.
 import jStat from 'jstat';
 import { describe, expect, it } from 'vitest';
+import { BLOCK_SIZE } from '../../../lib/sim/block';
 import { simulateSync } from '../../../lib/sim/engine';
 import { quantileIntervalRanks } from '../../../lib/sim/stats/order-statistics';
 import { iterationsForPrecision, relativeHalfWidth } from '../../../lib/sim/stats/precision';
@@ -163,7 +164,7 @@ describe('convergence and precision', () => {
       sampling: 'mc',
       precision: { relative: 0.005, maxIterations: 200_000 },
     });
-    expect(r.iterations % 1000).toBe(0);
+    expect(r.iterations % BLOCK_SIZE).toBe(0);
     expect(r.iterations).toBeGreaterThan(1000);
     expect(relativeHalfWidth(r.cost.percentiles.P80, r.cost.percentileCI95.P80)).toBeLessThanOrEqual(0.005);
     // A run of that size gives the same result: rounds extend one another.
