@@ -15,7 +15,6 @@ await build({
   format: 'esm',
   target: 'node20',
   outfile,
-  external: ['piscina'],
   logLevel: 'warning',
 });
 console.log(`built ${path.relative(root, outfile)}`);

@@ -7,15 +7,19 @@
 import { existsSync, readdirSync, renameSync, statSync } from 'node:fs';
 import path from 'node:path';
 
-export const defaultWorkerFile = () => path.join(process.cwd(), '.build', 'sim-worker.mjs');
-const sourceDir = () => path.join(process.cwd(), 'lib', 'sim');
+export const defaultWorkerFile = () =>
+  path.join(/* turbopackIgnore: true */ process.cwd(), '.build', 'sim-worker.mjs');
+const sourceDir = () => path.join(/* turbopackIgnore: true */ process.cwd(), 'lib', 'sim');
 
+// The paths below are only known at run time; the comments keep Next.js's file tracing from
+// taking them for the whole project.
 function newestSource(dir: string): number {
   let newest = 0;
-  for (const entry of readdirSync(dir, { withFileTypes: true })) {
-    const p = path.join(dir, entry.name);
+  for (const entry of readdirSync(/* turbopackIgnore: true */ dir, { withFileTypes: true })) {
+    const p = path.join(/* turbopackIgnore: true */ dir, entry.name);
     if (entry.isDirectory()) newest = Math.max(newest, newestSource(p));
-    else if (entry.name.endsWith('.ts')) newest = Math.max(newest, statSync(p).mtimeMs);
+    else if (entry.name.endsWith('.ts'))
+      newest = Math.max(newest, statSync(/* turbopackIgnore: true */ p).mtimeMs);
   }
   return newest;
 }
@@ -25,8 +29,10 @@ let building: Promise<string> | null = null;
 /** The worker file, built first if it is missing or stale (and the sources are at hand). */
 export async function ensureWorkerFile(file = defaultWorkerFile()): Promise<string> {
   const src = sourceDir();
-  const haveSources = existsSync(path.join(src, 'worker.ts'));
-  if (existsSync(file) && (!haveSources || statSync(file).mtimeMs >= newestSource(src))) return file;
+  const haveSources = existsSync(/* turbopackIgnore: true */ path.join(src, 'worker.ts'));
+  const built = existsSync(/* turbopackIgnore: true */ file);
+  if (built && (!haveSources || statSync(/* turbopackIgnore: true */ file).mtimeMs >= newestSource(src)))
+    return file;
   if (!haveSources) {
     throw new Error(
       `The simulation worker ${file} is missing; build it with "node scripts/build-worker.mjs".`,
@@ -48,9 +54,8 @@ async function buildWorker(entry: string, outfile: string): Promise<string> {
     format: 'esm',
     target: 'node20',
     outfile: tmp,
-    external: ['piscina'],
     logLevel: 'silent',
   });
-  renameSync(tmp, outfile);
+  renameSync(/* turbopackIgnore: true */ tmp, outfile);
   return outfile;
 }
