@@ -173,7 +173,7 @@ function riskGrades(
   for (let i = 0; i < n; i++) out[i] = mask[i] ? 1 - p + p * (severity ? severity[i] : 0.5) : none;
 }
 
-/** Stores ⌊g·2¹⁶⌋ at grades[off…] and Σg, Σg² of the stored values read back as (k + ½)/2¹⁶. */
+/** Stores k = ⌊g·2¹⁶⌋ at grades[off…] and Σg, Σg² of the stored values read back as (k + ½)/2¹⁶. */
 function storeGrades(
   g: Float64Array,
   grades: Uint16Array,
@@ -182,18 +182,19 @@ function storeGrades(
   row: number,
   n: number,
 ) {
+  // Integer sums (exact in double precision for any block size used here), scaled once.
   let s1 = 0;
   let s2 = 0;
   for (let i = 0; i < n; i++) {
     const x = g[i] * 65536;
     const k = x >= 65535 ? 65535 : x | 0;
     grades[off + i] = k;
-    const back = (k + 0.5) * GRADE_UNIT;
-    s1 += back;
-    s2 += back * back;
+    s1 += k;
+    s2 += k * k;
   }
-  sums[2 * row] = s1;
-  sums[2 * row + 1] = s2;
+  // Σ(k + ½) = Σk + n/2 and Σ(k + ½)² = Σk² + Σk + n/4.
+  sums[2 * row] = (s1 + n / 2) * GRADE_UNIT;
+  sums[2 * row + 1] = (s2 + s1 + n / 4) * GRADE_UNIT * GRADE_UNIT;
 }
 
 /** Σa, Σb, Σa², Σb², Σab into out[at…at+4]. */

@@ -12,6 +12,7 @@
  */
 
 import { normalCdf, normalQuantile } from '../math/normal';
+import { normalQuantilesInto } from '../math/normal-quantile-table';
 import { type DistLocation, fail, requireFinite, requireGreater, requirePositive } from './checks';
 import type { Distribution } from './types';
 
@@ -42,8 +43,8 @@ class LognormalDistribution implements Distribution {
     return x <= 0 ? 0 : normalCdf((Math.log(x) - this.mu) / this.sigma);
   }
   quantileInto(u: Float64Array, out: Float64Array, n: number): void {
-    const { mu, sigma } = this;
-    for (let i = 0; i < n; i++) out[i] = Math.exp(mu + sigma * normalQuantile(u[i]));
+    normalQuantilesInto(u, out, n, this.mu, this.sigma);
+    for (let i = 0; i < n; i++) out[i] = Math.exp(out[i]);
   }
 }
 

@@ -3,12 +3,14 @@
  *
  *   F(x) = Φ((x − μ)/σ);   Q(u) = μ + σ Φ⁻¹(u);   E = μ;   Var = σ².
  *
- * Φ and Φ⁻¹ are in ../math/normal (Hart 1968 / West 2005; Wichura 1988, AS 241).
+ * Φ and Φ⁻¹ are in ../math/normal (Hart 1968 / West 2005; Wichura 1988, AS 241); batches of
+ * quantiles use the shared table of ../math/normal-quantile-table (within 1e-9·σ).
  * Reference: Johnson, Kotz & Balakrishnan (1994), "Continuous Univariate Distributions",
  * vol. 1, 2nd ed., ch. 13.
  */
 
 import { normalCdf, normalQuantile } from '../math/normal';
+import { normalQuantilesInto } from '../math/normal-quantile-table';
 import { type DistLocation, requireFinite, requirePositive } from './checks';
 import type { Distribution } from './types';
 
@@ -37,8 +39,7 @@ class NormalDistribution implements Distribution {
     return normalCdf((x - this.mean) / this.sigma);
   }
   quantileInto(u: Float64Array, out: Float64Array, n: number): void {
-    const { mean, sigma } = this;
-    for (let i = 0; i < n; i++) out[i] = mean + sigma * normalQuantile(u[i]);
+    normalQuantilesInto(u, out, n, this.mean, this.sigma);
   }
 }
 

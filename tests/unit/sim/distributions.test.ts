@@ -13,6 +13,7 @@ import {
 } from '../../../lib/sim/distributions';
 import { createBetaQuantileTable } from '../../../lib/sim/math/beta-quantile-table';
 import { normalCdf, normalQuantile } from '../../../lib/sim/math/normal';
+import { normalQuantilesInto } from '../../../lib/sim/math/normal-quantile-table';
 import fits from '../../fixtures/sim/p10-p90-fits.json';
 
 const at = { where: 'X1', field: 'dist' };
@@ -35,6 +36,22 @@ describe('standard normal', () => {
       // Relative to the smaller tail; Φ near 1 is computed as 1 − tail, so allow 1e-9.
       expect(Math.abs(normalCdf(normalQuantile(p)) - p) / Math.min(p, 1 - p)).toBeLessThan(1e-9);
     }
+  });
+});
+
+describe('batch normal quantiles (shared table)', () => {
+  it('are within 1e-9 of the exact Φ⁻¹ everywhere', () => {
+    const n = 400_000;
+    const u = Float64Array.from({ length: n }, (_, i) => (i + 0.37) / n);
+    const out = new Float64Array(n);
+    normalQuantilesInto(u, out, n, 0, 1);
+    let worst = 0;
+    for (let i = 0; i < n; i++) worst = Math.max(worst, Math.abs(out[i] - normalQuantile(u[i])));
+    expect(worst).toBeLessThan(1e-9);
+    const lognormal = createLognormal({ p10: 80, p90: 200 }, at);
+    const batch = new Float64Array(grid.length);
+    lognormal.quantileInto(Float64Array.from(grid), batch, grid.length);
+    grid.forEach((p, i) => expect(rel(batch[i], lognormal.quantile(p))).toBeLessThan(1e-8));
   });
 });
 
