@@ -19,10 +19,12 @@ export function RunsHistory({
   projectId,
   currency,
   initial,
+  mayStart,
 }: {
   projectId: number;
   currency: string;
   initial: RunView[];
+  mayStart: boolean;
 }) {
   const router = useRouter();
   const { data: runs = initial } = useQuery({
@@ -37,7 +39,9 @@ export function RunsHistory({
   if (runs.length === 0) {
     return (
       <EmptyState title="No runs yet">
-        Choose the settings above and start the first run; its outcome will be listed here.
+        {mayStart
+          ? 'Choose the settings above and start the first run; its outcome will be listed here.'
+          : 'An estimator or owner starts the runs of this project; they will be listed here.'}
       </EmptyState>
     );
   }

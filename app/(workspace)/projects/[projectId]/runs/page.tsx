@@ -15,10 +15,11 @@ export default async function RunsPage({ params }: { params: Promise<{ projectId
   const actor = await requirePageActor('run:read', `/projects/${projectId}/runs`);
   const project = await projectFor(actor, projectId);
   const runs = await listRuns(actor, project.id);
+  const mayStart = can(actor.role, 'run:start');
   return (
     <div className="space-y-5">
       <h1 className="text-xl font-semibold">Runs</h1>
-      {can(actor.role, 'run:start') ? (
+      {mayStart ? (
         <Card title="Start a run">
           <RunSettingsForm
             projectId={project.id}
@@ -32,7 +33,7 @@ export default async function RunsPage({ params }: { params: Promise<{ projectId
           Estimators and owners start runs; you can read every run below.
         </p>
       )}
-      <RunsHistory projectId={project.id} currency={project.currency} initial={runs} />
+      <RunsHistory projectId={project.id} currency={project.currency} initial={runs} mayStart={mayStart} />
     </div>
   );
 }
