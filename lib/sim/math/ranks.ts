@@ -1,10 +1,11 @@
 /**
  * Ranks without comparator callbacks.
  *
- *  - createRanker: ranks of a short column as a permutation, by a least-significant-digit radix
- *    sort (Knuth 1998, TAOCP vol. 3, §5.2.5) of 32-bit keys, the values mapped linearly from
- *    [min, max] onto 0…2³²−1, three passes of 11 bits. Values closer than (max − min)/2³² share a
- *    key and keep their order of appearance; all others are ranked exactly.
+ *  - createRanker: ranks of a short column (a block) as a permutation, by a least-significant-
+ *    digit radix sort (Knuth 1998, TAOCP vol. 3, §5.2.5) of 22-bit keys, the values mapped
+ *    linearly from [min, max] onto 0…2²²−1, two passes of 11 bits. Values closer than
+ *    (max − min)/2²² share a key and keep their order of appearance (for the normal scores of a
+ *    block, a swap of neighbours a few millionths apart); all others are ranked exactly.
  *  - midRanks: average rank of tied values (Kendall & Gibbons 1990, "Rank Correlation Methods",
  *    5th ed., §3.8), for Spearman's coefficient, by binary search in the sorted copy.
  */
@@ -15,13 +16,14 @@ export interface Ranker {
 }
 
 const DIGIT = 2048;
+/** 22-bit keys: two passes of 11 bits. */
+const KEY_RANGE = DIGIT * DIGIT;
 
 export function createRanker(capacity: number): Ranker {
-  const keysA = new Uint32Array(capacity);
-  const keysB = new Uint32Array(capacity);
+  const keys = new Uint32Array(capacity);
   const idxA = new Int32Array(capacity);
   const idxB = new Int32Array(capacity);
-  const hist = new Int32Array(3 * DIGIT);
+  const hist = new Int32Array(2 * DIGIT);
   return {
     rank(values, n, rank) {
       let lo = Infinity;
@@ -31,16 +33,15 @@ export function createRanker(capacity: number): Ranker {
         if (v < lo) lo = v;
         if (v > hi) hi = v;
       }
-      const scale = hi > lo ? 4294967295 / (hi - lo) : 0;
+      const scale = hi > lo ? (KEY_RANGE - 1) / (hi - lo) : 0;
       hist.fill(0);
       for (let i = 0; i < n; i++) {
-        const k = Math.min(4294967295, Math.floor((values[i] - lo) * scale)) >>> 0;
-        keysA[i] = k;
-        hist[k & 2047]++;
-        hist[DIGIT + ((k >>> 11) & 2047)]++;
-        hist[2 * DIGIT + (k >>> 22)]++;
+        const k = Math.floor((values[i] - lo) * scale);
+        keys[i] = k;
+        hist[k & (DIGIT - 1)]++;
+        hist[DIGIT + (k >>> 11)]++;
       }
-      for (let h = 0; h < 3 * DIGIT; h += DIGIT) {
+      for (let h = 0; h < 2 * DIGIT; h += DIGIT) {
         let sum = 0;
         for (let b = h; b < h + DIGIT; b++) {
           const c = hist[b];
@@ -48,19 +49,11 @@ export function createRanker(capacity: number): Ranker {
           sum += c;
         }
       }
+      for (let i = 0; i < n; i++) idxA[hist[keys[i] & (DIGIT - 1)]++] = i;
       for (let i = 0; i < n; i++) {
-        const k = keysA[i];
-        const p = hist[k & 2047]++;
-        keysB[p] = k;
-        idxB[p] = i;
+        const j = idxA[i];
+        idxB[hist[DIGIT + (keys[j] >>> 11)]++] = j;
       }
-      for (let i = 0; i < n; i++) {
-        const k = keysB[i];
-        const p = hist[DIGIT + ((k >>> 11) & 2047)]++;
-        keysA[p] = k;
-        idxA[p] = idxB[i];
-      }
-      for (let i = 0; i < n; i++) idxB[hist[2 * DIGIT + (keysA[i] >>> 22)]++] = idxA[i];
       for (let r = 0; r < n; r++) rank[idxB[r]] = r;
     },
   };
