@@ -8,6 +8,7 @@ export default tseslint.config(
     ignores: [
       'node_modules/',
       '.next/',
+      '.next-test-*/',
       '.build/',
       '.data/',
       'next-env.d.ts',

@@ -14,5 +14,10 @@ if [ -f "$dist/BUILD_ID" ] && [ -f "$stamp" ] && [ "$(cat "$stamp")" = "$hash" ]
   exit 0
 fi
 echo "Building the app (next build)…"
+# next build adds its build folder to tsconfig.json when that folder is not .next:
+# keep the file as committed, even when the build fails.
+backup="$(mktemp)"
+cp tsconfig.json "$backup"
+trap 'cp "$backup" tsconfig.json; rm -f "$backup"' EXIT
 node_modules/.bin/next build
 echo "$hash" > "$stamp"
