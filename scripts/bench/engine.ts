@@ -132,11 +132,12 @@ async function main() {
     `speed-up over the baseline (fastest runs): ${fmt(ratio1, 1)}× (1 thread), ${fmt(ratio2, 1)}× (2 threads); ` +
       `medians: ${fmt(perSecond(twoMedian) / perSecond(baseMedian), 1)}× (2 threads)`,
   );
-  const peak = Math.max(...runs.flatMap((r) => [r.best.maxRssMiB, r.median.maxRssMiB]));
+  // The engine's runs (the baseline is not held to the target).
+  const peak = Math.max(...runs.slice(0, 2).flatMap((r) => [r.best.maxRssMiB, r.median.maxRssMiB]));
   const targets = [
     [`100,000 iterations on 2 threads ≤ 2.5 s`, two.runMs <= 2500, `${fmt(two.runMs / 1000, 2)} s`],
     [`≥ 60× the baseline's iterations/s`, ratio2 >= 60, `${fmt(ratio2, 1)}×`],
-    [`peak memory < 1 GiB`, peak < 1024, `${fmt(peak)} MiB`],
+    [`peak memory of the engine < 1 GiB`, peak < 1024, `${fmt(peak)} MiB`],
   ] as const;
   for (const [what, ok, got] of targets) console.log(`${ok ? 'met   ' : 'MISSED'}  ${what}: ${got}`);
 }
