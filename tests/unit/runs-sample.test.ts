@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { simulateSync } from '@/lib/sim';
+import { BLOCK_SIZE, simulateSync } from '@/lib/sim';
 import type { Model } from '@/lib/sim/types';
 import { sampleOfRun } from '@/lib/services/runs/sample';
 
@@ -49,10 +49,14 @@ describe('the sample of a run', () => {
   });
 
   it('is capped, and then is the first iterations of the longer run', async () => {
-    const long = await sampleOfRun(model, { iterations: 10_000, seed: 11, sampling: 'lhs' }, 3000);
-    const short = await sampleOfRun(model, { iterations: 3000, seed: 11, sampling: 'lhs' });
-    expect(long.n).toBe(3000);
-    expect(long.of).toBe(10_000);
+    // Blocks are whole units of the run, so a run of two blocks is the first two blocks of any
+    // longer run with the same seed.
+    const two = 2 * BLOCK_SIZE;
+    const long = await sampleOfRun(model, { iterations: 10 * BLOCK_SIZE, seed: 11, sampling: 'lhs' }, two);
+    const short = await sampleOfRun(model, { iterations: two, seed: 11, sampling: 'lhs' });
+    expect(long.n).toBe(two);
+    expect(long.of).toBe(10 * BLOCK_SIZE);
     expect(long.cost).toEqual(short.cost);
+    expect(long.duration).toEqual(short.duration);
   });
 });
