@@ -2,7 +2,7 @@
 const nextConfig = {
   // Sequelize loads its driver dynamically and piscina spawns workers from files:
   // both must stay plain Node modules rather than be bundled.
-  serverExternalPackages: ['sequelize', 'mariadb', 'piscina', 'pdfkit', 'exceljs', 'nodemailer'],
+  serverExternalPackages: ['sequelize', 'mariadb', 'piscina', 'pdfkit', 'exceljs', 'nodemailer', 'esbuild'],
   poweredByHeader: false,
   // A second test slot builds into its own folder (see scripts/test.sh).
   distDir: process.env.NEXT_DIST_DIR || '.next',

@@ -6,14 +6,15 @@ cd "$ROOT"
 export NEXT_TELEMETRY_DISABLED=1
 dist="${NEXT_DIST_DIR:-.next}"
 stamp="$dist/.source-hash"
-hash="$( (git ls-files -co --exclude-standard -- app components lib models types public proxy.ts instrumentation.ts \
+hash="$( (git ls-files -co --exclude-standard -- app components lib models types public proxy.ts instrumentation.ts scripts/build-worker.mjs \
   next.config.mjs tailwind.config.ts postcss.config.mjs tsconfig.json package-lock.json 2>/dev/null || true) \
   | sort | xargs -r sha1sum 2>/dev/null | sha1sum | cut -d' ' -f1)"
 if [ -f "$dist/BUILD_ID" ] && [ -f "$stamp" ] && [ "$(cat "$stamp")" = "$hash" ]; then
   echo "Production build is up to date."
   exit 0
 fi
-echo "Building the app (next build)…"
+echo "Building the engine's worker and the app (next build)…"
+node scripts/build-worker.mjs
 # next build adds its build folder to tsconfig.json when that folder is not .next:
 # keep the file as committed, even when the build fails.
 backup="$(mktemp)"
