@@ -184,13 +184,7 @@ export function CorrelationsPanel({ projectId, readOnly }: { projectId: number; 
         </div>
       </div>
       {formError ? <Notice tone="invalid">{formError}</Notice> : null}
-      <RegisterNotice
-        notice={register.notice}
-        conflicts={register.conflicts}
-        onReapply={register.reapplyMine}
-        onKeepTheirs={register.keepTheirs}
-        onDismiss={() => register.setNotice(null)}
-      />
+      <RegisterNotice register={register} />
       {check.warnings.length ? (
         <Notice tone="caution" title="These coefficients do not form a valid correlation matrix">
           The engine will use the nearest valid matrix (Higham 2002); the “Used” column shows the coefficients

@@ -231,13 +231,7 @@ export function LineItemsGrid({
       >
         <ImportExport projectId={projectId} register="items" readOnly={readOnly} />
       </RegisterToolbar>
-      <RegisterNotice
-        notice={register.notice}
-        conflicts={register.conflicts}
-        onReapply={register.reapplyMine}
-        onKeepTheirs={register.keepTheirs}
-        onDismiss={() => register.setNotice(null)}
-      />
+      <RegisterNotice register={register} />
       {register.rows.length === 0 && readOnly ? <p className="text-ink-soft">No line items yet.</p> : null}
       <RegisterGrid
         label="Line items"

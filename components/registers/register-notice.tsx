@@ -2,21 +2,17 @@
 // What happened to the last save: refused (why), or changed by someone else (re-apply or keep).
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import type { Notice as NoticeValue } from '@/components/grid/use-register-rows';
+import type { useRegisterRows } from '@/components/grid/use-register-rows';
 
-export function RegisterNotice({
-  notice,
-  conflicts,
-  onReapply,
-  onKeepTheirs,
-  onDismiss,
-}: {
-  notice: NoticeValue;
-  conflicts: number;
-  onReapply: () => void;
-  onKeepTheirs: () => void;
-  onDismiss: () => void;
-}) {
+type SaveState = Pick<
+  ReturnType<typeof useRegisterRows>,
+  'notice' | 'conflicts' | 'reapplyMine' | 'keepTheirs' | 'setNotice'
+>;
+
+/** Takes the rows hook's save state as it is, so every register tab wires it the same way. */
+export function RegisterNotice({ register }: { register: SaveState }) {
+  const { notice, conflicts, reapplyMine: onReapply, keepTheirs: onKeepTheirs } = register;
+  const onDismiss = () => register.setNotice(null);
   if (conflicts > 0) {
     return (
       <Notice tone="caution" title="Someone else changed these rows">

@@ -250,13 +250,7 @@ export function RiskEventsGrid({
       >
         <ImportExport projectId={projectId} register="risks" readOnly={readOnly} />
       </RegisterToolbar>
-      <RegisterNotice
-        notice={register.notice}
-        conflicts={register.conflicts}
-        onReapply={register.reapplyMine}
-        onKeepTheirs={register.keepTheirs}
-        onDismiss={() => register.setNotice(null)}
-      />
+      <RegisterNotice register={register} />
       <div className="grid grid-cols-[1fr_auto] gap-3">
         <div className="min-w-0">
           <RegisterGrid

@@ -137,13 +137,7 @@ export function ScheduleGrid({ projectId, readOnly }: { projectId: number; readO
       >
         <ImportExport projectId={projectId} register="activities" readOnly={readOnly} />
       </RegisterToolbar>
-      <RegisterNotice
-        notice={register.notice}
-        conflicts={register.conflicts}
-        onReapply={register.reapplyMine}
-        onKeepTheirs={register.keepTheirs}
-        onDismiss={() => register.setNotice(null)}
-      />
+      <RegisterNotice register={register} />
       <RegisterGrid
         label="Schedule"
         rows={rows}
