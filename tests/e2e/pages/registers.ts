@@ -7,7 +7,10 @@ export class RegisterPages {
   async open(projectId: number, tab: 'items' | 'risks' | 'schedule' | 'correlations') {
     await this.page.goto(`/projects/${projectId}/${tab}`);
     await expect(
-      this.page.locator('.ag-grid-scrolling-rows .ag-row').first().or(this.page.getByText('0 lines')),
+      this.page
+        .locator('.ag-grid-scrolling-rows .ag-row')
+        .first()
+        .or(this.page.getByText(/^0 lines\b/)),
     ).toBeVisible();
   }
 
