@@ -1,7 +1,7 @@
 import { Op, type Transaction } from 'sequelize';
 import { Invitation, Membership, Subscription } from '@/models';
 import { PAID_ROLES, ROLE_LABELS, type Role } from '@/lib/auth/roles';
-import { AppError } from '@/lib/errors';
+import { seatsFull } from '@/lib/errors';
 
 export const BILLING_LINK = '/settings/billing';
 const PAID = [...PAID_ROLES];
@@ -47,12 +47,10 @@ export async function assertSeatAvailable(
   const used = await Membership.count({ where: { organizationId, role: PAID }, transaction });
   if (used + 1 <= subscription.seats) return;
   const seats = subscription.seats;
-  throw new AppError(
-    400,
-    'seats_full',
+  throw seatsFull(
     `All ${seats} paid seats are taken (owners and estimators take a seat; sponsors and billing members are free). ` +
       `Buy more seats in Billing and seats (${BILLING_LINK}) to add another ${ROLE_LABELS[role].toLowerCase()}.`,
-    [{ path: 'role', message: `All ${seats} paid seats are taken.` }],
+    `All ${seats} paid seats are taken.`,
     { link: BILLING_LINK, seats, used },
   );
 }

@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
 import { Subscription } from '@/models';
-import { AppError } from '@/lib/errors';
+import { paymentRequired } from '@/lib/errors';
 import { READ_ONLY_MESSAGES, accessOf, type Access } from '@/lib/billing/access';
 
 /** Whether the organisation is read-only now, and why; pages show a banner from this. */
@@ -17,7 +17,7 @@ export async function organizationAccess(organizationId: number, transaction?: T
 export async function assertWritable(organizationId: number, transaction?: Transaction): Promise<void> {
   const access = await organizationAccess(organizationId, transaction);
   if (access.readOnly && access.reason) {
-    throw new AppError(402, 'read_only', READ_ONLY_MESSAGES[access.reason], undefined, {
+    throw paymentRequired(READ_ONLY_MESSAGES[access.reason], {
       reason: access.reason,
       link: '/settings/billing',
     });
