@@ -1,6 +1,6 @@
 // The base (deterministic) estimate: each line's base amount, or its distribution's base
-// (DESIGN.md: mode, midpoint, mean, median or value); a per-day line is its rate's base times
-// its activity's base duration.
+// (mode, midpoint, mean, median or value; see "base" in docs/model-format.md); a per-day line is
+// its rate's base times its activity's base duration.
 
 import { specFromParts, baseOf, type DistParts, type DistType } from './dist-fields';
 

@@ -13,7 +13,7 @@ import { assertWritable } from './write-access';
 export type RiskValues = 'pre' | 'post';
 
 /**
- * The project's registers as the engine's model file (DESIGN.md, "The engine contract"):
+ * The project's registers as the engine's model file (docs/model-format.md):
  * codes become ids, links by row id become links by code. With `riskValues: 'post'` each
  * risk uses its post-mitigation probability and impacts where they are given.
  */
