@@ -1,17 +1,19 @@
-// What every tab of a project needs: the signed-in actor, the project (404 for another
-// organisation's) and whether the actor may change it.
-import { notFound } from 'next/navigation';
+// What every page of a project needs: the signed-in actor, the project (the not-found page for
+// another organisation's, an unknown or a malformed id) and whether the actor may change it.
 import { requirePageActor } from '@/lib/auth/guard';
-import { can } from '@/lib/auth/roles';
-import { isAppError } from '@/lib/errors';
+import { can, type Action } from '@/lib/auth/roles';
+import { idParam } from '@/lib/http/params';
+import { loadOrNotFound } from '@/lib/http/page';
 import { getProject } from '@/lib/services/projects';
 
-export async function loadProjectPage(params: Promise<{ projectId: string }>, tab: string) {
+/** `path`: the page below the project, for the sign-in page to come back to. */
+export async function loadProjectPage(
+  params: Promise<{ projectId: string }>,
+  path: string,
+  action: Action = 'project:read',
+) {
   const { projectId } = await params;
-  const actor = await requirePageActor('project:read', `/projects/${projectId}/${tab}`);
-  const project = await getProject(actor, Number(projectId)).catch((e) => {
-    if (isAppError(e) && e.status === 404) notFound();
-    throw e;
-  });
+  const actor = await requirePageActor(action, `/projects/${projectId}/${path}`);
+  const project = await loadOrNotFound(() => getProject(actor, idParam(projectId, 'Project')));
   return { actor, project, readOnly: !can(actor.role, 'project:write') || project.archived };
 }

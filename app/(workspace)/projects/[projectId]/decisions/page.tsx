@@ -1,23 +1,13 @@
 import Link from 'next/link';
-import { notFound } from 'next/navigation';
-import { requirePageActor } from '@/lib/auth/guard';
-import { isAppError } from '@/lib/errors';
-import { getProject } from '@/lib/services/projects';
 import { listDecisions } from '@/lib/services/approvals';
 import { dateText } from '@/lib/brief/format';
 import { Card, EmptyState } from '@/components/ui/card';
 import { DecisionHistory } from '@/components/brief/decision-history';
+import { loadProjectPage } from '../project-page';
 
 export default async function DecisionsPage({ params }: { params: Promise<{ projectId: string }> }) {
-  const { projectId } = await params;
-  const actor = await requirePageActor('project:read', `/projects/${projectId}/decisions`);
-  const [project, decisions] = await Promise.all([
-    getProject(actor, Number(projectId)),
-    listDecisions(actor, Number(projectId)),
-  ]).catch((e) => {
-    if (isAppError(e) && e.status === 404) notFound();
-    throw e;
-  });
+  const { actor, project } = await loadProjectPage(params, 'decisions');
+  const decisions = await listDecisions(actor, project.id);
   const baseline = decisions.find((d) => d.decision === 'approved');
   return (
     <div className="space-y-4">

@@ -1,19 +1,16 @@
 import { randomInt } from 'node:crypto';
-import { requirePageActor } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/roles';
 import { listRuns } from '@/lib/services/runs';
 import { MAX_SEED } from '@/lib/validation/runs';
 import { Card } from '@/components/ui/card';
 import { RunSettingsForm } from '@/components/runs/run-settings-form';
 import { RunsHistory } from '@/components/runs/runs-history';
-import { projectFor } from './page-data';
+import { loadProjectPage } from '../project-page';
 
 export const metadata = { title: 'Runs' };
 
 export default async function RunsPage({ params }: { params: Promise<{ projectId: string }> }) {
-  const { projectId } = await params;
-  const actor = await requirePageActor('run:read', `/projects/${projectId}/runs`);
-  const project = await projectFor(actor, projectId);
+  const { actor, project } = await loadProjectPage(params, 'runs', 'run:read');
   const runs = await listRuns(actor, project.id);
   const mayStart = can(actor.role, 'run:start');
   return (

@@ -1,8 +1,4 @@
 import Link from 'next/link';
-import { notFound } from 'next/navigation';
-import { requirePageActor } from '@/lib/auth/guard';
-import { isAppError } from '@/lib/errors';
-import { getProject } from '@/lib/services/projects';
 import { listBaselines } from '@/lib/services/approvals';
 import { formatMoney } from '@/lib/runs/format';
 import { dateText } from '@/lib/brief/format';
@@ -10,17 +6,11 @@ import { Card, EmptyState } from '@/components/ui/card';
 import { ResultCautions } from '@/components/ui/notice';
 import { TrendChart } from '@/components/brief/trend-chart';
 import { TrendTable } from '@/components/brief/trend-table';
+import { loadProjectPage } from '../project-page';
 
 export default async function TrendPage({ params }: { params: Promise<{ projectId: string }> }) {
-  const { projectId } = await params;
-  const actor = await requirePageActor('project:read', `/projects/${projectId}/trend`);
-  const [project, rows] = await Promise.all([
-    getProject(actor, Number(projectId)),
-    listBaselines(actor, Number(projectId)),
-  ]).catch((e) => {
-    if (isAppError(e) && e.status === 404) notFound();
-    throw e;
-  });
+  const { actor, project } = await loadProjectPage(params, 'trend');
+  const rows = await listBaselines(actor, project.id);
   const current = rows[rows.length - 1];
   return (
     <div className="space-y-4">

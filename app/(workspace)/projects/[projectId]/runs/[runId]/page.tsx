@@ -1,24 +1,20 @@
 import Link from 'next/link';
-import { requirePageActor } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/roles';
-import { getRun, getRunOutcome } from '@/lib/services/runs';
+import { getRunOutcome } from '@/lib/services/runs';
 import { sampleCharts } from '@/lib/runs/outcome-data';
 import { buttonClass } from '@/components/ui/button';
 import { OutcomeView } from '@/components/runs/outcome-view';
 import { RunProgress } from '@/components/runs/run-progress';
 import { RunStatusBadge } from '@/components/runs/run-status';
 import { settingsText } from '@/components/runs/settings-text';
-import { orNotFound, projectFor } from '../page-data';
+import { loadRunPage, type RunParams } from './run-page';
 
 export const metadata = { title: 'Run outcome' };
 
 const when = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' });
 
-export default async function RunPage({ params }: { params: Promise<{ projectId: string; runId: string }> }) {
-  const { projectId, runId } = await params;
-  const actor = await requirePageActor('run:read', `/projects/${projectId}/runs/${runId}`);
-  const project = await projectFor(actor, projectId);
-  const run = await orNotFound(getRun(actor, project.id, Number(runId)));
+export default async function RunPage({ params }: { params: RunParams }) {
+  const { actor, project, run } = await loadRunPage(params, '', 'run:read');
   const outcome = run.status === 'succeeded' ? await getRunOutcome(actor, project.id, run.id) : null;
   const names: Record<string, string> = {};
   if (outcome) {

@@ -1,10 +1,11 @@
 import Link from 'next/link';
-import { requirePageActor } from '@/lib/auth/guard';
 import { compareRuns } from '@/lib/services/runs';
 import { EmptyState } from '@/components/ui/card';
 import { CompareView } from '@/components/runs/compare-view';
 import { isAppError } from '@/lib/errors';
-import { orNotFound, projectFor } from '../page-data';
+import { idParam } from '@/lib/http/params';
+import { loadOrNotFound } from '@/lib/http/page';
+import { loadProjectPage } from '../../project-page';
 
 export const metadata = { title: 'Compare runs' };
 
@@ -15,10 +16,8 @@ export default async function CompareRunsPage({
   params: Promise<{ projectId: string }>;
   searchParams: Promise<{ a?: string; b?: string }>;
 }) {
-  const { projectId } = await params;
   const { a, b } = await searchParams;
-  const actor = await requirePageActor('run:read', `/projects/${projectId}/runs/compare`);
-  const project = await projectFor(actor, projectId);
+  const { actor, project } = await loadProjectPage(params, 'runs/compare', 'run:read');
   const back = (
     <Link href={`/projects/${project.id}/runs`} className="text-cost hover:underline">
       Back to the runs
@@ -33,7 +32,9 @@ export default async function CompareRunsPage({
   }
   let comparison;
   try {
-    comparison = await orNotFound(compareRuns(actor, project.id, Number(a), Number(b)));
+    comparison = await loadOrNotFound(() =>
+      compareRuns(actor, project.id, idParam(a, 'Run'), idParam(b, 'Run')),
+    );
   } catch (e) {
     if (isAppError(e) && e.status === 409) {
       return (

@@ -1,8 +1,7 @@
 import Link from 'next/link';
-import { notFound } from 'next/navigation';
-import { requirePageActor } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/roles';
 import { isAppError } from '@/lib/errors';
+import { loadOrNotFound } from '@/lib/http/page';
 import { getBrief } from '@/lib/services/brief';
 import type { BriefData } from '@/lib/brief/build';
 import { dateTimeText, moneyWithInterval, probabilityText } from '@/lib/brief/format';
@@ -28,7 +27,7 @@ import { SCurveSvg } from '@/components/brief/s-curve-svg';
 import { SendToSponsors } from '@/components/brief/send-to-sponsors';
 import { TornadoSvg } from '@/components/brief/tornado-svg';
 
-type Params = { params: Promise<{ projectId: string; runId: string }> };
+import { loadRunPage, type RunParams } from '../run-page';
 
 function Section({ title, children, id }: { title: string; children: React.ReactNode; id?: string }) {
   return (
@@ -59,20 +58,18 @@ function Summary({ brief }: { brief: BriefData }) {
   );
 }
 
-export default async function BriefPage({ params }: Params) {
-  const { projectId, runId } = await params;
-  const actor = await requirePageActor('brief:read', `/projects/${projectId}/runs/${runId}/brief`);
+export default async function BriefPage({ params }: { params: RunParams }) {
+  const { actor, ...found } = await loadRunPage(params, 'brief', 'brief:read');
   let brief: BriefData;
   try {
-    brief = await getBrief(actor, Number(projectId), Number(runId));
+    brief = await loadOrNotFound(() => getBrief(actor, found.project.id, found.run.id));
   } catch (e) {
-    if (isAppError(e) && e.status === 404) notFound();
     if (isAppError(e) && e.status === 409)
       return (
         <EmptyState title="The brief is not ready">
           <p>{e.message} A brief is made from a run that has succeeded.</p>
           <p className="mt-3">
-            <Link className="text-cost underline" href={`/projects/${projectId}/runs/${runId}`}>
+            <Link className="text-cost underline" href={`/projects/${found.project.id}/runs/${found.run.id}`}>
               Open the run
             </Link>
           </p>
