@@ -4,6 +4,9 @@
 // and meet the JSON and session checks instead.
 const STATE_CHANGING = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 
+// Signed with its own secret over the raw body, and sent by the payment service, not a browser.
+export const ORIGIN_EXEMPT_PATHS: ReadonlySet<string> = new Set(['/api/webhooks/payments']);
+
 export function isForeignOrigin(
   method: string,
   origin: string | null,

@@ -1,6 +1,7 @@
 import { NextResponse } from 'next/server';
-import { AppError, badRequest, isAppError } from '@/lib/errors';
+import { AppError, badRequest, forbidden, isAppError } from '@/lib/errors';
 import { describeError } from './log-error';
+import { isForeignOrigin, ORIGIN_EXEMPT_PATHS } from './origin';
 
 /** Maps a thrown error to a JSON reply; unexpected errors are logged and never shown. */
 export function errorResponse(error: unknown): NextResponse {
@@ -17,10 +18,21 @@ export function errorResponse(error: unknown): NextResponse {
   );
 }
 
+/** 403 for a state-changing request that a page of another origin sent. */
+function assertSameOrigin(request: unknown) {
+  if (!(request instanceof Request)) return;
+  if (ORIGIN_EXEMPT_PATHS.has(new URL(request.url).pathname)) return;
+  const { headers } = request;
+  if (isForeignOrigin(request.method, headers.get('origin'), headers.get('host'))) {
+    throw forbidden('Requests from another origin are refused.');
+  }
+}
+
 /** Wraps a route handler so that every typed error becomes its status code. */
 export function handle<Args extends unknown[]>(fn: (...args: Args) => Promise<Response>) {
   return async (...args: Args): Promise<Response> => {
     try {
+      assertSameOrigin(args[0]);
       return await fn(...args);
     } catch (error) {
       return errorResponse(error);

@@ -34,7 +34,7 @@ export class Client {
       headers['content-type'] = 'application/x-www-form-urlencoded';
       body = new URLSearchParams(init.form).toString();
     } else if (init.body !== undefined) {
-      headers['content-type'] = 'application/json';
+      headers['content-type'] ??= 'application/json';
       body = typeof init.body === 'string' ? init.body : JSON.stringify(init.body);
     }
     const response = await fetch(APP_URL + path, {
