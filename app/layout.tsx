@@ -9,6 +9,9 @@ const inter = localFont({
   display: 'swap',
 });
 
+// Every page is rendered per request, so that it carries the nonce of its content security policy.
+export const dynamic = 'force-dynamic';
+
 export const metadata: Metadata = {
   title: { default: 'Outturn', template: '%s · Outturn' },
   description: 'Probabilistic cost and schedule risk analysis for capital projects.',

@@ -12,6 +12,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare email: string;
   declare name: string;
   declare passwordHash: string;
+  /** Raised on sign-out and password reset: sessions that carry an older value are refused. */
+  declare sessionVersion: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -22,6 +24,7 @@ User.init(
     email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
     name: { type: DataTypes.STRING(120), allowNull: false },
     passwordHash: { type: DataTypes.STRING(100), allowNull: false },
+    sessionVersion: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

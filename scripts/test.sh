@@ -20,6 +20,8 @@ export PORT=$((3100 + slot * 10)) MAIL_UI_PORT=$((2581 + slot * 10)) SMTP_PORT=$
 export STRIPE_FAKE_PORT=$((12112 + slot * 10))
 export APP_URL="http://localhost:$PORT" NEXTAUTH_URL="http://localhost:$PORT"
 export RUN="$ROOT/.data/run-test-$slot"
+# The tests stand where a reverse proxy would: the app believes the X-Forwarded-For they send.
+export TRUSTED_PROXIES="127.0.0.1,::1"
 mkdir -p "$RUN"
 
 echo "== Static checks"

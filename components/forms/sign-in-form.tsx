@@ -6,6 +6,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { signIn } from 'next-auth/react';
 import { useRouter, useSearchParams } from 'next/navigation';
 import { signInSchema } from '@/lib/validation/auth';
+import { safeCallbackPath } from '@/lib/auth/callback-url';
 import { Field, TextInput } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -29,8 +30,7 @@ export function SignInForm() {
       );
       return;
     }
-    const target = params.get('callbackUrl');
-    router.push(target && target.startsWith('/') ? target : '/projects');
+    router.push(safeCallbackPath(params.get('callbackUrl')));
     router.refresh();
   }
 

@@ -38,8 +38,11 @@ export function SignUpForm() {
       password: values.password,
       redirect: false,
     });
-    if (result?.error) {
-      setFailure('Your organisation was created, but signing in failed. Try signing in.');
+    if (!result || result.error) {
+      // The address already had an account: its owner has been mailed, and we say no more here.
+      setFailure(
+        'We could not sign you in. Check your mail: if this address already has an Outturn account, we sent it a way back in.',
+      );
       return;
     }
     router.push('/projects');

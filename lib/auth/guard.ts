@@ -4,13 +4,23 @@ import { authOptions } from './options';
 import { can, type Action } from './roles';
 import type { Actor } from './actor';
 import { forbidden, unauthorized } from '@/lib/errors';
-import { loadActor } from '@/lib/services/accounts';
+import { loadActor, loadSessionUser } from '@/lib/services/accounts';
 
-/** The signed-in actor with their current role, or null when signed out or no longer a member. */
+/**
+ * The signed-in actor with their current role, or null when signed out, no longer a member,
+ * or holding a session that ended (signed out elsewhere, password reset).
+ */
 export async function currentActor(): Promise<Actor | null> {
   const session = await getServerSession(authOptions);
-  if (!session?.userId || !session.organizationId) return null;
-  return loadActor(session.userId, session.organizationId);
+  if (!session?.userId || !session.organizationId || typeof session.sessionVersion !== 'number') return null;
+  return loadActor(session.userId, session.organizationId, session.sessionVersion);
+}
+
+/** The signed-in person, member of any organisation or none; null when the session has ended. */
+export async function currentUser() {
+  const session = await getServerSession(authOptions);
+  if (!session?.userId || typeof session.sessionVersion !== 'number') return null;
+  return loadSessionUser(session.userId, session.sessionVersion);
 }
 
 /** For route handlers and server actions: 401 when signed out, 403 when the role may not. */

@@ -1,15 +1,11 @@
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
-import { verifyCredentials } from '@/lib/services/accounts';
+import { endSessions, verifyCredentials } from '@/lib/services/accounts';
 import { signInSchema } from '@/lib/validation/auth';
 import type { Role } from './roles';
 import { assertMaySignIn, recordFailedSignIn, recordSuccessfulSignIn } from './sign-in-limit';
-
-function clientAddress(headers: Record<string, string | string[] | undefined> | undefined): string {
-  const forwarded = headers?.['x-forwarded-for'];
-  const first = Array.isArray(forwarded) ? forwarded[0] : forwarded;
-  return first?.split(',')[0]?.trim() || String(headers?.['x-real-ip'] ?? 'local');
-}
+import { clientAddress } from './client-address';
+import { sameSiteRedirect } from './callback-url';
 
 export const authOptions: NextAuthOptions = {
   session: { strategy: 'jwt', maxAge: 12 * 60 * 60 },
@@ -25,7 +21,7 @@ export const authOptions: NextAuthOptions = {
         const parsed = signInSchema.safeParse(credentials);
         if (!parsed.success) throw new Error('Enter your e-mail address and password.');
         const { email, password } = parsed.data;
-        const address = clientAddress(req?.headers);
+        const address = clientAddress(req?.headers?.['x-forwarded-for']);
         await assertMaySignIn(email, address);
         const user = await verifyCredentials(email, password);
         if (!user) {
@@ -39,6 +35,7 @@ export const authOptions: NextAuthOptions = {
           name: user.name,
           organizationId: user.organizationId,
           role: user.role,
+          sessionVersion: user.sessionVersion,
         };
       },
     }),
@@ -47,9 +44,10 @@ export const authOptions: NextAuthOptions = {
     async jwt({ token, user }) {
       if (user) {
         token.userId = Number(user.id);
-        const signedIn = user as unknown as { organizationId: number; role: Role };
+        const signedIn = user as unknown as { organizationId: number; role: Role; sessionVersion: number };
         token.organizationId = signedIn.organizationId;
         token.role = signedIn.role;
+        token.sessionVersion = signedIn.sessionVersion;
       }
       return token;
     },
@@ -57,7 +55,19 @@ export const authOptions: NextAuthOptions = {
       session.userId = token.userId as number;
       session.organizationId = token.organizationId as number;
       session.role = token.role as Role;
+      session.sessionVersion = token.sessionVersion as number;
       return session;
+    },
+    async redirect({ url, baseUrl }) {
+      return sameSiteRedirect(url, baseUrl);
+    },
+  },
+  events: {
+    // Signing out ends the session everywhere, so a copied token dies with it. One version per
+    // user: signing out on one device signs out the others too.
+    async signOut({ token }) {
+      const userId = Number(token?.userId);
+      if (Number.isInteger(userId) && userId > 0) await endSessions(userId);
     },
   },
 };

@@ -15,7 +15,10 @@ function createSequelize(): Sequelize {
     username: process.env.DB_USER ?? 'outturn',
     password: process.env.DB_PASSWORD,
     timezone: '+00:00',
+    // Neither Sequelize nor the driver may write bound values (password hashes, tokens) to
+    // a log or into an error message.
     logging: false,
+    dialectOptions: { logParam: false },
     pool: { max: 10, min: 0, idle: 10_000 },
   });
 }

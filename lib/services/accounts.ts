@@ -1,6 +1,5 @@
 import bcrypt from 'bcryptjs';
 import { Membership, Organization, User, sequelize } from '@/models';
-import { badRequest } from '@/lib/errors';
 import { parseOrThrow } from '@/lib/validation/parse';
 import { signUpSchema } from '@/lib/validation/auth';
 import type { Actor } from '@/lib/auth/actor';
@@ -12,17 +11,23 @@ let dummyHash: string | undefined;
 
 export const hashPassword = (password: string) => bcrypt.hash(password, HASH_ROUNDS);
 
-/** Creates an organisation, its first owner and its trial subscription in one transaction. */
-export async function signUp(input: unknown): Promise<{ userId: number; organizationId: number }> {
+export const SIGN_UP_REPLY =
+  'Check your mail: if this address already has an Outturn account, we sent it a way back in.';
+
+export type SignUpOutcome = { created: true; email: string } | { created: false; email: string };
+
+/**
+ * Creates an organisation, its first owner and its trial subscription in one transaction.
+ * A taken address creates nothing; the caller answers SIGN_UP_REPLY either way and mails the
+ * existing account, so that sign-up never tells a stranger which addresses have accounts.
+ */
+export async function signUp(input: unknown): Promise<SignUpOutcome> {
   const data = parseOrThrow(signUpSchema, input);
+  // Hashed before the look-up, so both answers cost the same work.
   const passwordHash = await hashPassword(data.password);
   return sequelize.transaction(async (transaction) => {
     const existing = await User.findOne({ where: { email: data.email }, transaction });
-    if (existing) {
-      throw badRequest('An account with this e-mail already exists. Sign in instead.', [
-        { path: 'email', message: 'An account with this e-mail already exists. Sign in instead.' },
-      ]);
-    }
+    if (existing) return { created: false, email: data.email };
     const organization = await Organization.create({ name: data.organizationName }, { transaction });
     const user = await User.create({ email: data.email, name: data.name, passwordHash }, { transaction });
     await Membership.create(
@@ -30,7 +35,7 @@ export async function signUp(input: unknown): Promise<{ userId: number; organiza
       { transaction },
     );
     await startTrial(organization.id, transaction);
-    return { userId: user.id, organizationId: organization.id };
+    return { created: true, email: data.email };
   });
 }
 
@@ -49,16 +54,24 @@ export async function verifyCredentials(email: string, password: string) {
     name: user.name,
     organizationId: membership.organizationId,
     role: membership.role as Role,
+    sessionVersion: user.sessionVersion,
   };
 }
 
-/** Reloads the actor from the database so a changed or removed role takes effect at once. */
-export async function loadActor(userId: number, organizationId: number): Promise<Actor | null> {
+/**
+ * Reloads the actor from the database so a changed or removed role takes effect at once, and
+ * a session older than the user's last sign-out or password reset ends.
+ */
+export async function loadActor(
+  userId: number,
+  organizationId: number,
+  sessionVersion: number,
+): Promise<Actor | null> {
   const membership = await Membership.findOne({
     where: { userId, organizationId },
     include: [{ model: User, as: 'user' }],
   });
-  if (!membership?.user) return null;
+  if (!membership?.user || membership.user.sessionVersion !== sessionVersion) return null;
   return {
     userId,
     organizationId,
@@ -66,6 +79,18 @@ export async function loadActor(userId: number, organizationId: number): Promise
     email: membership.user.email,
     name: membership.user.name,
   };
+}
+
+/** The signed-in person whatever their organisations, or null when the session has ended. */
+export async function loadSessionUser(userId: number, sessionVersion: number) {
+  const user = await User.findByPk(userId);
+  if (!user || user.sessionVersion !== sessionVersion) return null;
+  return { userId: user.id, email: user.email, name: user.name };
+}
+
+/** Ends every session of the user, on every device: each carries an older version from now on. */
+export async function endSessions(userId: number): Promise<void> {
+  await User.increment('sessionVersion', { by: 1, where: { id: userId } });
 }
 
 export async function organizationName(organizationId: number): Promise<string> {

@@ -1,5 +1,5 @@
 import crypto from 'node:crypto';
-import { Op } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import { Invitation, Membership, Organization, User, sequelize } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
 import { can, ROLE_LABELS, type Role } from '@/lib/auth/roles';
@@ -202,61 +202,102 @@ export async function revokeInvitation(actor: Actor, invitationId: number): Prom
   if (!deleted) throw notFound('Invitation');
 }
 
-/** What the accept page shows before the invitee answers. */
+/** What the accept page shows before the invitee answers: never whether the address has an account. */
 export async function describeInvitation(token: string) {
   const invitation = await Invitation.findOne({ where: { token }, include: ['organization'] });
   if (!invitation || invitation.acceptedAt || invitation.expiresAt < new Date()) return null;
-  const existingUser = await User.findOne({ where: { email: invitation.email } });
   return {
     email: invitation.email,
     role: invitation.role,
     organizationName: invitation.organization?.name ?? '',
-    hasAccount: Boolean(existingUser),
   };
 }
 
+export const ACCEPT_SIGNED_OUT_REPLY =
+  'If this address is new to Outturn, your account is ready: sign in with it. If it already has an account, sign in with that account and open the invitation again to accept.';
+
+export type SessionUser = { userId: number; email: string };
+export type AcceptOutcome = { message: string };
+
+async function lockOpenInvitation(token: string, transaction: Transaction) {
+  const invitation = await Invitation.findOne({
+    where: { token },
+    transaction,
+    lock: transaction.LOCK.UPDATE,
+  });
+  if (!invitation) throw notFound('Invitation');
+  if (!invitation.acceptedAt && invitation.expiresAt < new Date())
+    throw badRequest('This invitation has expired. Ask the owner for a new one.');
+  return invitation;
+}
+
+async function join(invitation: Invitation, userId: number, transaction: Transaction) {
+  const already = await Membership.findOne({
+    where: { userId, organizationId: invitation.organizationId },
+    transaction,
+  });
+  if (!already) {
+    await assertSeatAvailable(invitation.organizationId, invitation.role, null, transaction);
+    await Membership.create(
+      { userId, organizationId: invitation.organizationId, role: invitation.role },
+      { transaction },
+    );
+  }
+  await invitation.update({ acceptedAt: new Date() }, { transaction });
+}
+
 /**
- * Accepts an invitation: a new user is created with the given name and password; an existing
- * user proves the invitation is theirs with their password and gains the membership.
+ * Accepts an invitation.
+ *
+ * Signed in, only as the invited address: that account joins, with no password asked.
+ * Signed out: a new account is made with the name and password given. When the address
+ * already has an account nothing is written and no password is checked (its owner signs in
+ * and accepts); the reply is the same either way, so the invitation's sender learns nothing
+ * about the address and has no password to guess against.
  */
-export async function acceptInvitation(token: string, input: unknown): Promise<{ email: string }> {
+export async function acceptInvitation(
+  token: string,
+  input: unknown,
+  signedIn: SessionUser | null,
+): Promise<AcceptOutcome> {
+  if (signedIn) return acceptAsSignedIn(token, signedIn);
   const data = parseOrThrow(acceptInvitationSchema, input);
+  // Hashed before the look-up, so both answers cost the same work.
+  const passwordHash = await hashPassword(data.password);
   return sequelize.transaction(async (transaction) => {
-    const invitation = await Invitation.findOne({
-      where: { token },
-      transaction,
-      lock: transaction.LOCK.UPDATE,
-    });
-    if (!invitation || invitation.acceptedAt) throw notFound('Invitation');
-    if (invitation.expiresAt < new Date())
-      throw badRequest('This invitation has expired. Ask the owner for a new one.');
-    let user = await User.findOne({ where: { email: invitation.email }, transaction });
-    if (user) {
-      const bcrypt = (await import('bcryptjs')).default;
-      if (!(await bcrypt.compare(data.password, user.passwordHash))) {
-        throw badRequest('That password does not match the existing account for this e-mail.', [
-          { path: 'password', message: 'Wrong password for this account.' },
-        ]);
-      }
+    const invitation = await lockOpenInvitation(token, transaction);
+    if (invitation.acceptedAt) throw notFound('Invitation');
+    // Checked before the look-up, so that a full organisation answers alike for both.
+    await assertSeatAvailable(invitation.organizationId, invitation.role, null, transaction);
+    const existing = await User.findOne({ where: { email: invitation.email }, transaction });
+    if (!existing) {
+      const user = await User.create(
+        { email: invitation.email, name: data.name, passwordHash },
+        { transaction },
+      );
+      await join(invitation, user.id, transaction);
+    }
+    return { message: ACCEPT_SIGNED_OUT_REPLY };
+  });
+}
+
+async function acceptAsSignedIn(token: string, user: SessionUser): Promise<AcceptOutcome> {
+  return sequelize.transaction(async (transaction) => {
+    const invitation = await lockOpenInvitation(token, transaction);
+    if (invitation.email !== user.email.toLowerCase())
+      throw forbidden(
+        'This invitation is for another e-mail address. Sign out, then open the link again to accept it.',
+      );
+    if (invitation.acceptedAt) {
+      // Accepting twice (a new account signs in and confirms) is fine once the member is in.
+      const member = await Membership.findOne({
+        where: { userId: user.userId, organizationId: invitation.organizationId },
+        transaction,
+      });
+      if (!member) throw notFound('Invitation');
     } else {
-      if (!data.name) throw badRequest('Enter your name.', [{ path: 'name', message: 'Enter your name.' }]);
-      user = await User.create(
-        { email: invitation.email, name: data.name, passwordHash: await hashPassword(data.password) },
-        { transaction },
-      );
+      await join(invitation, user.userId, transaction);
     }
-    const already = await Membership.findOne({
-      where: { userId: user.id, organizationId: invitation.organizationId },
-      transaction,
-    });
-    if (!already) {
-      await assertSeatAvailable(invitation.organizationId, invitation.role, null, transaction);
-      await Membership.create(
-        { userId: user.id, organizationId: invitation.organizationId, role: invitation.role },
-        { transaction },
-      );
-    }
-    await invitation.update({ acceptedAt: new Date() }, { transaction });
-    return { email: user.email };
+    return { message: 'You have joined the organisation.' };
   });
 }

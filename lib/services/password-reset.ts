@@ -43,10 +43,33 @@ async function consumeLimits(email: string, address: string) {
   }
 }
 
-/** Sends a reset link when the address has an account; the caller answers NEUTRAL_RESET_REPLY either way. */
-export async function requestPasswordReset(input: unknown, address: string): Promise<void> {
+/**
+ * Checks the request and counts it against both limits; returns the address to send a link to.
+ * The caller answers NEUTRAL_RESET_REPLY at once and sends the link after replying
+ * (sendResetLinkIfAccount), so the reply takes the same time whether or not the account exists.
+ */
+export async function requestPasswordReset(input: unknown, address: string): Promise<string> {
   const { email } = parseOrThrow(requestSchema, input);
   await consumeLimits(email, address);
+  return email;
+}
+
+/**
+ * For a sign-up with an address that already has an account: the owner gets a reset link,
+ * within the per-address hourly limit so that sign-ups cannot flood an inbox.
+ */
+export async function offerResetLink(email: string): Promise<void> {
+  try {
+    await perEmail.consume(email);
+  } catch (e) {
+    if (e instanceof RateLimiterRes) return;
+    throw e;
+  }
+  await sendResetLinkIfAccount(email);
+}
+
+/** Sends a reset link when the address has an account, and does nothing otherwise. */
+export async function sendResetLinkIfAccount(email: string): Promise<void> {
   const user = await User.findOne({ where: { email } });
   if (!user) return;
   const token = crypto.randomBytes(32).toString('base64url');
@@ -102,7 +125,8 @@ export async function resetPassword(token: string, input: unknown): Promise<{ em
     if (row.expiresAt <= new Date()) throw badRequest('This link has expired. Ask for a new one.');
     const user = await User.findByPk(row.userId, { transaction, lock: transaction.LOCK.UPDATE });
     if (!user) throw notFound('Reset link');
-    await user.update({ passwordHash }, { transaction });
+    // A new session version ends every session issued before the reset.
+    await user.update({ passwordHash, sessionVersion: user.sessionVersion + 1 }, { transaction });
     await PasswordResetToken.update(
       { usedAt: new Date() },
       { where: { userId: user.id, usedAt: null }, transaction },

@@ -1,10 +1,15 @@
 import { z } from 'zod';
 import { ROLES } from '@/lib/auth/roles';
 
+// 254 characters is the longest address SMTP can carry (RFC 5321, section 4.5.3.1.3, as
+// corrected by erratum 1690), and the width of the stored column.
+export const EMAIL_MAX = 254;
+
 export const emailSchema = z
   .string()
   .trim()
   .toLowerCase()
+  .max(EMAIL_MAX, { message: `Use an e-mail address of at most ${EMAIL_MAX} characters.` })
   .pipe(z.email({ message: 'Enter a valid e-mail address, like name@company.com.' }));
 
 export const passwordSchema = z
@@ -40,7 +45,8 @@ export const roleSchema = z.enum(ROLES, { message: 'Choose one of: owner, estima
 export const inviteSchema = z.object({ email: emailSchema, role: roleSchema });
 export const changeRoleSchema = z.object({ role: roleSchema });
 
+/** A new account made by accepting an invitation while signed out. */
 export const acceptInvitationSchema = z.object({
-  name: personNameSchema.optional(),
+  name: personNameSchema,
   password: passwordSchema,
 });

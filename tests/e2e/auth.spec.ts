@@ -39,3 +39,34 @@ test('the landing page says what the product does', async ({ page }) => {
   await expect(page.getByRole('heading', { level: 1 })).toContainText('finally cost');
   await expect(page.getByRole('link', { name: 'Sign in' }).first()).toBeVisible();
 });
+
+test('sign-in never follows a callback to another site', async ({ page, baseURL }) => {
+  const email = `e2e-callback-${Date.now()}@test.example`;
+  const password = 'a sensible passphrase';
+  const auth = new AuthPages(page);
+  await auth.signUp({ name: 'Cal Back', organization: 'Callback Works', email, password });
+  await expect(page).toHaveURL(/\/projects$/);
+  await auth.signOut();
+  for (const target of ['//evil.example/x', '/\\evil.example/x']) {
+    await page.goto(`/sign-in?callbackUrl=${encodeURIComponent(target)}`);
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password').fill(password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await expect(page).toHaveURL(`${baseURL}/projects`);
+    await auth.signOut();
+  }
+});
+
+test('pages run their scripts under the content security policy', async ({ page }) => {
+  const violations: string[] = [];
+  page.on('console', (message) => {
+    if (/Content Security Policy/i.test(message.text())) violations.push(message.text());
+  });
+  const response = await page.goto('/sign-in');
+  expect(response?.headers()['content-security-policy']).toMatch(/script-src 'self' 'nonce-/);
+  // Hydrated: the client-side check answers without a page load.
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByText('Enter a valid e-mail address')).toBeVisible();
+  await page.goto('/');
+  expect(violations).toEqual([]);
+});

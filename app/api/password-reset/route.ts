@@ -1,17 +1,24 @@
-import { NextResponse } from 'next/server';
+import { after, NextResponse } from 'next/server';
 import { handle, readJson } from '@/lib/http/route';
-import { NEUTRAL_RESET_REPLY, requestPasswordReset } from '@/lib/services/password-reset';
+import { describeError } from '@/lib/http/log-error';
+import { clientAddress } from '@/lib/auth/client-address';
+import {
+  NEUTRAL_RESET_REPLY,
+  requestPasswordReset,
+  sendResetLinkIfAccount,
+} from '@/lib/services/password-reset';
 
-function clientAddress(request: Request): string {
-  return (
-    request.headers.get('x-forwarded-for')?.split(',')[0]?.trim() ||
-    request.headers.get('x-real-ip') ||
-    'local'
-  );
-}
-
-// Public: anyone may ask. The reply never says whether the address has an account.
+// Public: anyone may ask. The reply never says whether the address has an account, and it
+// goes before the account is even looked up, so its timing says nothing either.
 export const POST = handle(async (request: Request) => {
-  await requestPasswordReset(await readJson(request), clientAddress(request));
+  const email = await requestPasswordReset(
+    await readJson(request),
+    clientAddress(request.headers.get('x-forwarded-for')),
+  );
+  after(() =>
+    sendResetLinkIfAccount(email).catch((error: unknown) =>
+      console.error('Sending a reset link failed:', describeError(error)),
+    ),
+  );
   return NextResponse.json({ message: NEUTRAL_RESET_REPLY }, { status: 202 });
 });

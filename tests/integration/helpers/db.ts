@@ -35,3 +35,21 @@ export async function closeDb() {
   await db?.close();
   db = undefined;
 }
+
+/** One query on its own short-lived connection, for helpers used by files that never call closeDb. */
+export async function rowsOnce<T extends object>(sql: string, replacements: unknown[] = []): Promise<T[]> {
+  const once = new Sequelize({
+    dialect: 'mariadb',
+    host: process.env.DB_HOST ?? '127.0.0.1',
+    port: Number(process.env.DB_PORT ?? 3307),
+    database: process.env.DB_NAME ?? 'outturn_test',
+    username: process.env.DB_USER ?? 'outturn',
+    password: process.env.DB_PASSWORD,
+    logging: false,
+  });
+  try {
+    return await once.query<T>(sql, { replacements, type: QueryTypes.SELECT });
+  } finally {
+    await once.close();
+  }
+}

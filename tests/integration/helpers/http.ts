@@ -1,5 +1,6 @@
 // A small HTTP client with a cookie jar, signed in through the real next-auth endpoints.
 import crypto from 'node:crypto';
+import { rowsOnce } from './db';
 
 export const APP_URL = process.env.APP_URL ?? 'http://localhost:3100';
 export const DEMO_PASSWORD = 'demo-outturn-2026';
@@ -33,7 +34,7 @@ export class Client {
       headers['content-type'] = 'application/x-www-form-urlencoded';
       body = new URLSearchParams(init.form).toString();
     } else if (init.body !== undefined) {
-      headers['content-type'] = 'application/json';
+      headers['content-type'] ??= 'application/json';
       body = typeof init.body === 'string' ? init.body : JSON.stringify(init.body);
     }
     const response = await fetch(APP_URL + path, {
@@ -73,6 +74,22 @@ export class Client {
     return error;
   }
 
+  /** Signs out through next-auth's own route, as the sign-out button does. */
+  async signOut() {
+    const csrf = await this.get('/api/auth/csrf');
+    return this.request('/api/auth/signout', {
+      method: 'POST',
+      form: { csrfToken: csrf.json.csrfToken, json: 'true' },
+    });
+  }
+
+  /** A second client holding the same cookies: a copied session token. */
+  copy(): Client {
+    const twin = new Client();
+    for (const [k, v] of this.cookies) twin.cookies.set(k, v);
+    return twin;
+  }
+
   get signedIn() {
     return [...this.cookies.keys()].some((k) => k.endsWith('next-auth.session-token'));
   }
@@ -94,10 +111,15 @@ export async function newOrganisation(label: string) {
     email,
     password,
   });
-  if (res.status !== 201) throw new Error(`sign-up failed: ${res.status} ${res.text}`);
+  if (res.status !== 202) throw new Error(`sign-up failed: ${res.status} ${res.text}`);
   const error = await client.signIn(email, password);
   if (error) throw new Error(`sign-in failed: ${error}`);
-  return { client, email, password, organizationId: res.json.organizationId as number };
+  // The sign-up reply says nothing about the account (it reads the same for a taken address).
+  const [owned] = await rowsOnce<{ organizationId: number }>(
+    'SELECT m.organizationId FROM Memberships m JOIN Users u ON u.id = m.userId WHERE u.email = ?',
+    [email],
+  );
+  return { client, email, password, organizationId: owned.organizationId };
 }
 
 /** Invites someone with a role and accepts the invitation; returns their signed-in client. */

@@ -1,7 +1,8 @@
 import Link from 'next/link';
 import { describeInvitation } from '@/lib/services/members';
+import { currentUser } from '@/lib/auth/guard';
 import { ROLE_LABELS } from '@/lib/auth/roles';
-import { AcceptInvitationForm } from '@/components/forms/accept-invitation-form';
+import { AcceptInvitationForm, AcceptSignedInForm } from '@/components/forms/accept-invitation-form';
 
 export const metadata = { title: 'Invitation' };
 
@@ -21,13 +22,27 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
       </>
     );
   }
+  const user = await currentUser();
+  const back = `/invitations/${encodeURIComponent(token)}`;
   return (
     <>
       <h1 className="text-xl font-semibold">Join {invitation.organizationName}</h1>
       <p className="mb-4 mt-1 text-sm text-ink-soft">
         {invitation.email} is invited as <strong>{ROLE_LABELS[invitation.role]}</strong>.
       </p>
-      <AcceptInvitationForm token={token} email={invitation.email} hasAccount={invitation.hasAccount} />
+      {user ? (
+        <AcceptSignedInForm token={token} invitedEmail={invitation.email} signedInEmail={user.email} />
+      ) : (
+        <>
+          <AcceptInvitationForm token={token} email={invitation.email} />
+          <p className="mt-4 text-sm text-ink-soft">
+            Already have an Outturn account with this address?{' '}
+            <Link href={`/sign-in?callbackUrl=${encodeURIComponent(back)}`} className="text-cost underline">
+              Sign in to accept
+            </Link>
+          </p>
+        </>
+      )}
     </>
   );
 }
