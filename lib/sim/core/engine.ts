@@ -1,5 +1,5 @@
 // The engine in one thread: validate, compile, run the blocks, roll up. `simulateSync` is the
-// plain form (tests, small models); runSimulation in ./run adds threads, progress and cancel.
+// plain form (tests, small models); runSimulation (../runtime) adds threads, progress and cancel.
 
 import { type BlockSummary, blockLength, BLOCK_SIZE, simulateBlock } from './block';
 import { compileModel, type Plan } from './compile';
