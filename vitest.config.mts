@@ -11,8 +11,11 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'unit',
-          include: ['tests/unit/**/*.test.ts'],
+          // Tests of the engine's internals live beside it, in lib/sim/**/__tests__.
+          include: ['tests/unit/**/*.test.ts', 'lib/**/__tests__/**/*.test.ts'],
           environment: 'node',
+          // The threaded runs load the engine's bundled worker: build it from the current sources.
+          globalSetup: ['scripts/build-worker.mjs'],
           testTimeout: 60_000,
         },
       },

@@ -7,7 +7,7 @@ import {
   type InferCreationAttributes,
 } from 'sequelize';
 import { sequelize } from '@/lib/db/sequelize';
-import type { DistSpec } from '@/lib/sim/types';
+import type { DistSpec } from '@/lib/sim';
 import type { Activity } from './activity';
 import type { Organization } from './organization';
 import type { Project } from './project';

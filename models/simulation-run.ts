@@ -45,6 +45,9 @@ export class SimulationRun extends Model<
   declare result: CreationOptional<string | null>;
   declare resultSample: CreationOptional<string | null>;
   declare summary: CreationOptional<RunSummary | null>;
+  /** The engine version and block size the run was computed with (null for older runs). */
+  declare engineVersion: CreationOptional<string | null>;
+  declare blockSize: CreationOptional<number | null>;
   declare startedAt: CreationOptional<Date | null>;
   declare finishedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
@@ -67,6 +70,8 @@ SimulationRun.init(
     result: { type: DataTypes.TEXT('long'), allowNull: true },
     resultSample: { type: DataTypes.TEXT('long'), allowNull: true },
     summary: { type: DataTypes.JSON, allowNull: true },
+    engineVersion: { type: DataTypes.STRING(32), allowNull: true },
+    blockSize: { type: DataTypes.INTEGER, allowNull: true },
     startedAt: { type: DataTypes.DATE, allowNull: true },
     finishedAt: { type: DataTypes.DATE, allowNull: true },
     createdAt: DataTypes.DATE,

@@ -10,6 +10,8 @@ hash="$( (git ls-files -co --exclude-standard -- app components lib models types
   next.config.mjs tailwind.config.ts postcss.config.mjs tsconfig.json package-lock.json 2>/dev/null || true) \
   | sort | xargs -r sha1sum 2>/dev/null | sha1sum | cut -d' ' -f1)"
 if [ -f "$dist/BUILD_ID" ] && [ -f "$stamp" ] && [ "$(cat "$stamp")" = "$hash" ]; then
+  # The engine never builds its worker at run time: make sure it is there.
+  [ -f .build/sim-worker.mjs ] || node scripts/build-worker.mjs
   echo "Production build is up to date."
   exit 0
 fi

@@ -3,13 +3,12 @@
 // Prints a short summary; with --out writes the result file. A model that fails validation
 // exits with status 1 and a message per offending entry, and nothing is written.
 
-import { readFileSync, writeFileSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { parseArgs } from 'node:util';
-import { runSimulation } from '../lib/sim/run';
-import { summaryText } from '../lib/sim/report/summary-text';
-import type { Sampling } from '../lib/sim/types';
-import { validateModel } from '../lib/sim/validate';
+import { summaryText, validateModel, type Sampling } from '../lib/sim';
+import { BUILD_WORKER_COMMAND, defaultWorkerFile, runSimulation } from '../lib/sim/runtime';
 
 const USAGE =
   'usage: npm run simulate -- MODEL.json [--iterations N] [--seed S] [--sampling mc|lhs] [--threads T] [--out RESULT.json]';
@@ -24,6 +23,14 @@ function positiveInt(name: string, value: string | undefined): number | undefine
   if (!/^\d+$/.test(value) || Number(value) < 1)
     fail(`--${name} must be a positive integer (got "${value}")\n${USAGE}`, 2);
   return Number(value);
+}
+
+/** Threads load the bundled worker: build it with the build script when it is missing. */
+function ensureWorker() {
+  if (existsSync(defaultWorkerFile())) return;
+  // The build script's own output goes to stderr, so stdout stays the summary alone.
+  const built = spawnSync(process.execPath, ['scripts/build-worker.mjs'], { stdio: ['ignore', 2, 2] });
+  if (built.status !== 0) fail(`The engine worker did not build; run "${BUILD_WORKER_COMMAND}".`, 1);
 }
 
 async function main() {
@@ -76,6 +83,7 @@ async function main() {
     );
   }
   const model = checked.model;
+  if (threads > 1) ensureWorker();
   const showProgress = process.stderr.isTTY;
   const result = await runSimulation(model, {
     iterations,

@@ -2,7 +2,7 @@
 
 import { Line } from 'react-chartjs-2';
 import type { ChartData, ChartOptions } from 'chart.js';
-import type { ConvergenceSeries } from '@/lib/sim/types';
+import type { ConvergenceSeries } from '@/lib/sim';
 import { COLORS } from './setup';
 
 /** Running P50 and P80 as the iterations accumulate, each inside its 95% interval band. */

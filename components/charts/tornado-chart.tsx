@@ -2,7 +2,7 @@
 
 import { Bar } from 'react-chartjs-2';
 import type { ChartOptions } from 'chart.js';
-import type { SensitivityEntry } from '@/lib/sim/types';
+import type { SensitivityEntry } from '@/lib/sim';
 import { COLORS } from './setup';
 
 /** Drivers as horizontal bars of their rank correlation with the total, strongest on top. */

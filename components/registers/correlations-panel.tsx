@@ -16,7 +16,7 @@ import { Button } from '@/components/ui/button';
 import { Skeleton } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 import { readNumber } from '@/lib/registers/numbers';
-import { planCorrelations } from '@/lib/sim/correlation/plan';
+import { planCorrelations } from '@/lib/sim';
 import { rowIssues } from '@/lib/validation/registers';
 import { ImportExport } from './import-export';
 import { RegisterNotice } from './register-notice';

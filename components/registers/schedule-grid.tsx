@@ -9,7 +9,7 @@ import { Skeleton } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 import { specFromParts, summarise, type DistType } from '@/lib/registers/dist-fields';
 import { formatNumber } from '@/lib/registers/numbers';
-import { checkNetwork } from '@/lib/sim/schedule/network';
+import { checkNetwork } from '@/lib/sim';
 import { distColumns } from './dist-columns';
 import { ImportExport } from './import-export';
 import { RegisterNotice } from './register-notice';

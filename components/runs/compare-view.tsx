@@ -4,7 +4,7 @@ import '@/components/charts/setup';
 import { ChartFrame } from '@/components/charts/chart-frame';
 import { SCurveCompare } from '@/components/charts/s-curve-compare';
 import { ResultCautions } from '@/components/ui/notice';
-import type { PercentileKey, SimulationResult, TotalSummary } from '@/lib/sim/types';
+import type { PercentileKey, SimulationResult, TotalSummary } from '@/lib/sim';
 import type { RunView } from '@/lib/services/runs/view';
 import type { SnapshotDiff } from '@/lib/runs/snapshot-diff';
 import { percentileCurve } from '@/lib/runs/outcome-data';

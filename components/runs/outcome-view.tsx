@@ -9,7 +9,7 @@ import { ConvergenceChart } from '@/components/charts/convergence-chart';
 import { CriticalityChart } from '@/components/charts/criticality-chart';
 import { CostFinishScatter } from '@/components/charts/cost-finish-scatter';
 import { ResultCautions } from '@/components/ui/notice';
-import type { SimulationResult, TotalSummary } from '@/lib/sim/types';
+import type { SimulationResult, TotalSummary } from '@/lib/sim';
 import type { RunView } from '@/lib/services/runs/view';
 import { contingencyAt, percentileCurve, topDrivers, type SampleCharts } from '@/lib/runs/outcome-data';
 import { finishDate } from '@/lib/runs/working-days';

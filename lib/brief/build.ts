@@ -5,7 +5,7 @@
 import { checkAgainstClass, type ClassCheck } from './estimate-class';
 import { topRiskExposures, type RiskExposure } from './risk-exposure';
 import { percentileCurve, topDrivers, type Point } from '@/lib/runs/outcome-data';
-import type { Interval, Model, PercentileKey, SimulationResult, TotalSummary } from '@/lib/sim/types';
+import type { Interval, Model, PercentileKey, SimulationResult, TotalSummary } from '@/lib/sim';
 
 export const BRIEF_LEVELS = ['P10', 'P50', 'P80', 'P90'] as const;
 export type BriefLevel = (typeof BRIEF_LEVELS)[number];

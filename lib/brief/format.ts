@@ -1,7 +1,7 @@
 // Texts the brief repeats on the page, in the PDF and in the e-mails, so that all three say
 // the same figure the same way.
 import { formatMoney } from '@/lib/runs/format';
-import type { Interval } from '@/lib/sim/types';
+import type { Interval } from '@/lib/sim';
 
 /** "€25,340,000 (95 % interval €25,100,000 – €25,590,000)". */
 export function moneyWithInterval(value: number, ci95: Interval | undefined, currency: string): string {

@@ -6,8 +6,7 @@
  * (the expected value of a Bernoulli(p) occurrence times an independent impact). Read from the
  * run's input snapshot, not the live register, so that the brief matches the run it reports.
  */
-import { createDistribution } from '@/lib/sim/distributions';
-import type { DistSpec, ModelRisk } from '@/lib/sim/types';
+import { createDistribution, type DistSpec, type ModelRisk } from '@/lib/sim';
 
 type WithRisks = { risks?: readonly ModelRisk[] };
 

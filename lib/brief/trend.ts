@@ -3,7 +3,7 @@
  * them. Contingency is measured at P80 for every baseline (P80 − base), so that the drawdown
  * compares like with like even when runs were started to fund at different levels.
  */
-import type { SimulationResult } from '@/lib/sim/types';
+import type { SimulationResult } from '@/lib/sim';
 
 export type BaselineSource = {
   approvalId: number;

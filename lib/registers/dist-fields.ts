@@ -2,9 +2,7 @@
 // back to the engine's DistSpec. The engine's factories check the parameters, so the messages
 // the grid shows are the engine's own, moved onto the cell that holds the parameter.
 
-import { createDistribution, type Distribution } from '@/lib/sim/distributions';
-import { InputError } from '@/lib/sim/errors';
-import type { DistSpec } from '@/lib/sim/types';
+import { createDistribution, InputError, type Distribution, type DistSpec } from '@/lib/sim';
 
 export const DIST_TYPES = ['fixed', 'uniform', 'triangular', 'pert', 'normal', 'lognormal'] as const;
 export type DistType = (typeof DIST_TYPES)[number];

@@ -3,7 +3,7 @@
  * Pure functions on plain numbers, shared by the server (summaries) and the charts.
  */
 
-import type { PercentileKey, SensitivityEntry, TotalSummary } from '@/lib/sim/types';
+import type { PercentileKey, SensitivityEntry, TotalSummary } from '@/lib/sim';
 import type { ConfidenceLevel } from '@/lib/validation/runs';
 
 export type Point = { x: number; y: number };

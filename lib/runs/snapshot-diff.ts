@@ -4,7 +4,7 @@
  * changes to the targets and the run settings.
  */
 
-import type { Model } from '@/lib/sim/types';
+import type { Model } from '@/lib/sim';
 import { canonicalJson } from './canonical-json';
 
 export type LineKind = 'item' | 'risk' | 'activity' | 'correlation';

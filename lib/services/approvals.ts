@@ -14,7 +14,7 @@ import { parseOrThrow } from '@/lib/validation/parse';
 import { notifyDecision, recipientsWithRole } from '@/lib/mail';
 import { moneyWithInterval } from '@/lib/brief/format';
 import { trendRows, type TrendRow } from '@/lib/brief/trend';
-import type { SimulationResult } from '@/lib/sim/types';
+import type { SimulationResult } from '@/lib/sim';
 import { recordAudit } from './audit';
 import { findProject } from './projects';
 

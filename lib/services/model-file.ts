@@ -2,8 +2,7 @@ import { Activity, CostItem, Correlation, Project, RiskEvent, sequelize } from '
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
 import { badRequest, forbidden } from '@/lib/errors';
-import type { Model, ModelActivity, ModelItem, ModelRisk } from '@/lib/sim/types';
-import { validateModel } from '@/lib/sim/validate';
+import { validateModel, type Model, type ModelActivity, type ModelItem, type ModelRisk } from '@/lib/sim';
 import { recordAudit } from './audit';
 import { findProject } from './projects';
 import { insertRows } from './registers/insert';

@@ -1,19 +1,53 @@
-// Public API of the simulation engine (pure TypeScript: no Next.js, React or database).
+// The engine's core door: pure TypeScript with no Node.js built-ins, workers, Next.js, React or
+// database behind it, so client components may import it. The threaded runner for server code,
+// scripts and the command line is the other door, ./runtime.
 //
 //   validateModel(json)               → { ok, model } | { ok: false, issues: [{ path, message }] }
-//   runSimulation(model, options)     → Promise<SimulationResult>  (threads, progress, cancel)
 //   simulateSync(model, options)      → SimulationResult           (one thread, no yielding)
 //   iterationsForPrecision(p, ε, c)   → iterations for a probability known to ±ε
+//
+// Model and result shapes: docs/model-format.md and docs/result-format.md.
 
-export { runSimulation } from './run';
-export { simulateSync, prepareRun } from './engine';
-export { validateModel, parseModel, formatPath, type FieldIssue, type ValidationResult } from './validate';
-export { modelSchema, distSchema, settingsSchema } from './schema';
-export { iterationsForPrecision } from './stats/precision';
-export { InputError, ModelValidationError, SimulationCancelledError } from './errors';
-export { createDistribution } from './distributions';
-export type { Distribution } from './distributions';
-export { BLOCK_SIZE } from './block';
-export { ensureWorkerFile, defaultWorkerFile } from './exec/worker-file';
-export type { RunOptions, SimulationOptions, PrecisionGoal } from './options';
-export type * from './types';
+// Model file: validation and schemas.
+export {
+  validateModel,
+  parseModel,
+  formatPath,
+  type FieldIssue,
+  type ValidationResult,
+} from './core/validate';
+export { modelSchema, distSchema, settingsSchema } from './core/schema';
+export { InputError, ModelValidationError, SimulationCancelledError } from './core/errors';
+export type * from './core/formats';
+
+// Running in one thread, and what identifies the engine's numbers.
+export { simulateSync } from './core/engine';
+export type { SimulationOptions, PrecisionGoal } from './core/options';
+export { firstIterationBlocks, type IterationBlock } from './core/first-iterations';
+export { BLOCK_SIZE } from './core/block';
+export { ENGINE_VERSION } from './core/version';
+
+// Distributions and the base estimate.
+export {
+  createDistribution,
+  type Distribution,
+  type DistributionKind,
+  type DistLocation,
+} from './core/distributions';
+export { baseOf, baseDurationOf } from './core/distributions/base';
+
+// Percentiles, contingency and precision.
+export { PERCENTILES, PERCENTILE_KEYS, contingencyOf } from './core/stats/percentiles';
+export { iterationsForPrecision } from './core/stats/precision';
+
+// Checks that the registers run before a model is built.
+export {
+  planCorrelations,
+  type CorrelationRequest,
+  type CorrelationPlan,
+  type CorrelationGroup,
+} from './core/correlation/plan';
+export { checkNetwork, type NetworkProblem } from './core/schedule/network';
+
+// The command line's printed summary.
+export { summaryText, type SummaryContext } from './core/report/summary-text';

@@ -6,7 +6,7 @@
 // both totals and criticality.
 
 import jStat from 'jstat';
-import type { DistSpec, Model } from '../../lib/sim/types';
+import type { DistSpec, Model } from '../../lib/sim';
 
 const Z90 = 1.2815515655446004;
 

@@ -3,14 +3,7 @@
 // and 100 correlations in small clusters.
 
 import seedrandom from 'seedrandom';
-import type {
-  DistSpec,
-  Model,
-  ModelActivity,
-  ModelCorrelation,
-  ModelItem,
-  ModelRisk,
-} from '../../lib/sim/types';
+import type { DistSpec, Model, ModelActivity, ModelCorrelation, ModelItem, ModelRisk } from '../../lib/sim';
 
 export interface BenchSize {
   items: number;

@@ -8,7 +8,7 @@ import {
   shareWithin,
   topDrivers,
 } from '@/lib/runs/outcome-data';
-import type { TotalSummary } from '@/lib/sim/types';
+import type { TotalSummary } from '@/lib/sim';
 
 describe('chart data shaping', () => {
   it('bins values into equal-width bins that hold every value once', () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { BLOCK_SIZE, simulateSync } from '@/lib/sim';
-import type { Model } from '@/lib/sim/types';
+import { BLOCK_SIZE, simulateSync, type Model } from '@/lib/sim';
+import { CURRENT_ENGINE } from '@/lib/services/runs/engine-match';
 import { sampleOfRun } from '@/lib/services/runs/sample';
 
 const model: Model = {
@@ -38,7 +38,7 @@ describe('the sample of a run', () => {
   it('holds the run’s own iterations: its P80 and joint share equal the result’s when it holds them all', async () => {
     const settings = { iterations: 3000, seed: 11, sampling: 'lhs' as const };
     const result = simulateSync(model, settings);
-    const sample = await sampleOfRun(model, settings);
+    const sample = await sampleOfRun(model, { ...settings, ...CURRENT_ENGINE });
     expect(sample.n).toBe(3000);
     expect(sample.of).toBe(3000);
     expect(nearestRank(sample.cost, 0.8)).toBe(result.cost.percentiles.P80);
@@ -52,8 +52,12 @@ describe('the sample of a run', () => {
     // Blocks are whole units of the run, so a run of two blocks is the first two blocks of any
     // longer run with the same seed.
     const two = 2 * BLOCK_SIZE;
-    const long = await sampleOfRun(model, { iterations: 10 * BLOCK_SIZE, seed: 11, sampling: 'lhs' }, two);
-    const short = await sampleOfRun(model, { iterations: two, seed: 11, sampling: 'lhs' });
+    const long = await sampleOfRun(
+      model,
+      { iterations: 10 * BLOCK_SIZE, seed: 11, sampling: 'lhs', ...CURRENT_ENGINE },
+      two,
+    );
+    const short = await sampleOfRun(model, { iterations: two, seed: 11, sampling: 'lhs', ...CURRENT_ENGINE });
     expect(long.n).toBe(two);
     expect(long.of).toBe(10 * BLOCK_SIZE);
     expect(long.cost).toEqual(short.cost);

@@ -3,7 +3,7 @@ import { createHash } from 'node:crypto';
 import { canonicalJson } from '@/lib/runs/canonical-json';
 import { snapshotHash } from '@/lib/runs/snapshot-hash';
 import { diffSnapshots } from '@/lib/runs/snapshot-diff';
-import type { Model } from '@/lib/sim/types';
+import type { Model } from '@/lib/sim';
 
 const model = (over: Partial<Model> = {}): Model => ({
   format: 'outturn-model',

@@ -1,4 +1,4 @@
-import type { AchievedCorrelation } from '@/lib/sim/types';
+import type { AchievedCorrelation } from '@/lib/sim';
 
 /** Target, used (after any repair) and achieved rank correlation of each pair. */
 export function CorrelationsTable({

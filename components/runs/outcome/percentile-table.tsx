@@ -1,4 +1,4 @@
-import type { PercentileKey, TotalSummary } from '@/lib/sim/types';
+import type { PercentileKey, TotalSummary } from '@/lib/sim';
 import { TABLE_KEYS } from '@/lib/runs/outcome-data';
 
 /**

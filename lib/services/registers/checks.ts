@@ -2,7 +2,7 @@
 // registers, since codes are the model file's ids), links to activities, the activity network
 // (no unknown predecessor, no cycle) and correlations between known inputs.
 
-import { checkNetwork } from '@/lib/sim/schedule/network';
+import { checkNetwork } from '@/lib/sim';
 import type { FieldIssue } from '@/lib/errors';
 import type { RegisterKind } from '@/lib/validation/registers';
 import type { ActivityRow, CorrelationRow, LineItemRow, RiskRow } from './rows';

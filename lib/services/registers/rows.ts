@@ -3,7 +3,7 @@
 
 import type { Activity, Correlation, CostItem, RiskEvent } from '@/models';
 import { partsFromSpec, specFromParts, type DistParts } from '@/lib/registers/dist-fields';
-import type { DistSpec } from '@/lib/sim/types';
+import type { DistSpec } from '@/lib/sim';
 import {
   impactParts,
   type ActivityData,

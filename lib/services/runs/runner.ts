@@ -6,12 +6,13 @@
 
 import { availableParallelism } from 'node:os';
 import { Op, type InferAttributes } from 'sequelize';
-import { runSimulation, SimulationCancelledError } from '@/lib/sim';
-import type { SimulationResult } from '@/lib/sim/types';
+import { SimulationCancelledError, type SimulationResult } from '@/lib/sim';
+import { runSimulation } from '@/lib/sim/runtime';
 import { Project, SimulationRun, User } from '@/models';
 import type { RunSummary } from '@/models/simulation-run';
 import { formatMoney } from '@/lib/runs/format';
 import { enqueue, setExecutor, type Job } from './queue';
+import { CURRENT_ENGINE } from './engine-match';
 import { sampleOfRun } from './sample';
 
 export const PROGRESS_INTERVAL_MS = 250;
@@ -107,7 +108,7 @@ async function execute(job: Job, signal: AbortSignal): Promise<void> {
   const now = new Date();
   // Only a run still queued starts: a cancel may have come first.
   const [started] = await SimulationRun.update(
-    { status: 'running', startedAt: now, progress: 0, iterationsDone: 0 },
+    { status: 'running', startedAt: now, progress: 0, iterationsDone: 0, ...CURRENT_ENGINE },
     { where: { id: job.runId, status: 'queued' } },
   );
   if (!started) return;
@@ -141,6 +142,7 @@ async function execute(job: Job, signal: AbortSignal): Promise<void> {
       iterations: result.iterations,
       seed: s.seed,
       sampling: s.sampling,
+      ...CURRENT_ENGINE,
     });
     await finish({
       status: 'succeeded',

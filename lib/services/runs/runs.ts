@@ -8,8 +8,7 @@ import { can, type Action } from '@/lib/auth/roles';
 import { badRequest, conflict, forbidden, notFound } from '@/lib/errors';
 import { parseOrThrow } from '@/lib/validation/parse';
 import { MAX_SEED, runSettingsInputSchema, type RunSettings } from '@/lib/validation/runs';
-import { validateModel } from '@/lib/sim';
-import type { Model, SimulationResult } from '@/lib/sim/types';
+import { validateModel, type Model, type SimulationResult } from '@/lib/sim';
 import { workingDaysThrough } from '@/lib/runs/working-days';
 import { snapshotHash } from '@/lib/runs/snapshot-hash';
 import { recordAudit } from '../audit';
@@ -37,6 +36,8 @@ const LIST_ATTRIBUTES = [
   'failureReason',
   'inputHash',
   'summary',
+  'engineVersion',
+  'blockSize',
   'startedAt',
   'finishedAt',
   'createdAt',

@@ -3,6 +3,7 @@
 
 import type { SimulationRun, RunStatus, RunSummary } from '@/models/simulation-run';
 import type { RunSettings } from '@/lib/validation/runs';
+import { engineDifference } from './engine-match';
 
 export type RunView = {
   id: number;
@@ -24,6 +25,11 @@ export type RunView = {
   /** Estimated milliseconds left, for a running run that has made some progress. */
   msLeft: number | null;
   summary: RunSummary | null;
+  /**
+   * The engine the run was computed by (null for runs from before it was recorded, and for runs
+   * not started yet), and, when the current engine would compute other numbers for it, why.
+   */
+  engine: { version: string | null; blockSize: number | null; notice: string | null };
 };
 
 type Row = SimulationRun & { startedBy?: { id: number; name: string } | null };
@@ -51,5 +57,17 @@ export function toRunView(run: Row, queuePosition: number | null = null, now = D
     queuePosition: run.status === 'queued' ? queuePosition : null,
     msLeft,
     summary: run.summary ?? null,
+    engine: engineOf(run),
+  };
+}
+
+function engineOf(run: Row): RunView['engine'] {
+  const recorded = { engineVersion: run.engineVersion ?? null, blockSize: run.blockSize ?? null };
+  // A run that has not started (or never did) has no numbers to compare yet.
+  const hasNumbers = run.status === 'succeeded' || recorded.engineVersion !== null;
+  return {
+    version: recorded.engineVersion,
+    blockSize: recorded.blockSize,
+    notice: hasNumbers ? engineDifference(recorded) : null,
   };
 }

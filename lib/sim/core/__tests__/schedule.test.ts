@@ -1,0 +1,109 @@
+// Schedule: forward pass with lags, the maximum of parallel paths against Clark (1961), the
+// criticality index, risk delays and time-dependent costs.
+import { describe, expect, it } from 'vitest';
+import { spearmanToPearson } from '../correlation/rank-pearson';
+import { simulateSync } from '../engine';
+import { normalCdf, normalPdf } from '../math/normal';
+import { fixed, model, normal, uniform } from './helpers';
+
+/** Clark (1961), Operations Research 9(2):145–162, eqs. (2)–(3): moments of max(X1, X2). */
+function clark(m1: number, s1: number, m2: number, s2: number, rho: number) {
+  const a = Math.sqrt(s1 * s1 + s2 * s2 - 2 * rho * s1 * s2);
+  const alpha = (m1 - m2) / a;
+  const mean = m1 * normalCdf(alpha) + m2 * normalCdf(-alpha) + a * normalPdf(alpha);
+  const second =
+    (m1 * m1 + s1 * s1) * normalCdf(alpha) +
+    (m2 * m2 + s2 * s2) * normalCdf(-alpha) +
+    (m1 + m2) * a * normalPdf(alpha);
+  return { mean, variance: second - mean * mean, pFirst: normalCdf(alpha) };
+}
+
+describe('parallel paths', () => {
+  const parallel = (rho?: number) =>
+    model({
+      activities: [
+        { id: 'A1', duration: normal(100, 10) },
+        { id: 'A2', duration: normal(105, 15) },
+      ],
+      correlations: rho === undefined ? [] : [{ a: 'A1', b: 'A2', rho }],
+    });
+
+  it.each([undefined, 0.5])('the project duration has the moments of Clark (1961) (rho %s)', (rho) => {
+    const r = simulateSync(parallel(rho), { iterations: 60_000, seed: 12 });
+    const ref = clark(100, 10, 105, 15, rho === undefined ? 0 : spearmanToPearson(rho));
+    const d = r.duration!;
+    expect(Math.abs(d.mean - ref.mean)).toBeLessThan(0.15);
+    expect(Math.abs(d.sd ** 2 / ref.variance - 1)).toBeLessThan(0.03);
+    // Criticality of A1 = P(X1 > X2) = Φ((μ1 − μ2)/a).
+    expect(Math.abs(r.criticality.A1 - ref.pFirst)).toBeLessThan(0.01);
+    expect(r.criticality.A1 + r.criticality.A2).toBeCloseTo(1, 12);
+  });
+});
+
+describe('finish-to-start with lags', () => {
+  it('adds durations and lags along the longest chain', () => {
+    const r = simulateSync(
+      model({
+        activities: [
+          { id: 'A1', duration: fixed(5) },
+          { id: 'A2', duration: fixed(7), predecessors: [{ id: 'A1', lag: 3 }] },
+          { id: 'A3', duration: fixed(4), predecessors: ['A1'] },
+          { id: 'A4', duration: fixed(2), predecessors: ['A2', 'A3'] },
+        ],
+      }),
+      { iterations: 200, seed: 1 },
+    );
+    // A1 0–5, A2 8–15, A3 5–9, A4 15–17.
+    expect(r.duration!.base).toBe(17);
+    expect(r.duration!.percentiles.P50).toBe(17);
+    expect(r.criticality).toEqual({ A1: 1, A2: 1, A3: 0, A4: 1 });
+  });
+
+  it('cuts negative durations at zero, with a warning', () => {
+    const r = simulateSync(model({ activities: [{ id: 'A1', duration: normal(1, 2) }] }), {
+      iterations: 2000,
+      seed: 1,
+    });
+    expect(r.duration!.min).toBe(0);
+    expect(r.warnings.some((w) => w.startsWith('A1: its duration can be negative'))).toBe(true);
+  });
+});
+
+describe('risk delays and time-dependent items', () => {
+  const m = model({
+    items: [{ id: 'C1', ratePerDay: 100, activity: 'A2' }],
+    activities: [
+      { id: 'A1', duration: fixed(10) },
+      { id: 'A2', duration: fixed(20), predecessors: ['A1'] },
+    ],
+    risks: [{ id: 'R1', probability: 0.25, delay: fixed(6), activity: 'A2' }],
+    targets: { cost: 2000, duration: 30 },
+  });
+
+  it('lengthens the activity by the delay when the risk occurs, and the time-dependent cost with it', () => {
+    const r = simulateSync(m, { iterations: 4000, seed: 2 });
+    expect(r.cost.base).toBe(2000);
+    expect(r.duration!.base).toBe(30);
+    expect(r.duration!.probabilityWithinTarget!.value).toBe(0.75); // LHS: exactly 25% of each block
+    expect(r.duration!.percentiles.P80).toBe(36);
+    expect(r.cost.percentiles.P80).toBe(2600);
+    expect(r.joint!.probability).toBe(0.75);
+  });
+
+  it('costs rate × sampled duration for a distributed rate', () => {
+    const r = simulateSync(
+      model({
+        items: [{ id: 'C1', ratePerDay: uniform(10, 20), activity: 'A1' }],
+        activities: [{ id: 'A1', duration: uniform(100, 200) }],
+      }),
+      { iterations: 20_000, seed: 5 },
+    );
+    // Independent: E[rate × days] = 15 × 150; base = 15 × 150 (midpoints).
+    expect(r.cost.base).toBe(2250);
+    expect(Math.abs(r.cost.mean / 2250 - 1)).toBeLessThan(0.005);
+    // Var(XY) = E[X²]E[Y²] − (E X E Y)² for independent X, Y.
+    const ex2 = 15 ** 2 + 100 / 12;
+    const ey2 = 150 ** 2 + 10000 / 12;
+    expect(Math.abs(r.cost.sd ** 2 / (ex2 * ey2 - 2250 ** 2) - 1)).toBeLessThan(0.04);
+  });
+});

@@ -1,0 +1,82 @@
+// A short human summary of a result, for the command line: P50/P80/P90 of cost and duration
+// with the base, contingency and intervals, the chance of meeting targets, the top drivers,
+// the most critical activities and the warnings.
+
+import type { SimulationResult, TotalSummary } from '../formats';
+
+const money = new Intl.NumberFormat('en-US', { maximumFractionDigits: 0 });
+const days = new Intl.NumberFormat('en-US', { maximumFractionDigits: 1, minimumFractionDigits: 1 });
+const pct = (x: number) => `${(100 * x).toFixed(1)}%`;
+const signed = (s: string, x: number) => (x >= 0 ? `+${s}` : s);
+
+function totalBlock(
+  title: string,
+  t: TotalSummary,
+  f: Intl.NumberFormat,
+  target: number | undefined,
+): string[] {
+  const col = (s: string) => s.padStart(14);
+  const lines = [
+    `${title.padEnd(18)}${col('base')}${col('P50')}${col('P80')}${col('P90')}`,
+    `${'  value'.padEnd(18)}${col(f.format(t.base))}${col(f.format(t.percentiles.P50))}${col(f.format(t.percentiles.P80))}${col(f.format(t.percentiles.P90))}`,
+    `${'  contingency'.padEnd(18)}${col('')}${col(signed(f.format(t.contingency.P50), t.contingency.P50))}${col(signed(f.format(t.contingency.P80), t.contingency.P80))}${col(signed(f.format(t.contingency.P90), t.contingency.P90))}`,
+    `${'  95% interval'.padEnd(18)}${col('')}${(['P50', 'P80', 'P90'] as const).map((k) => col(`${f.format(t.percentileCI95[k][0])}–${f.format(t.percentileCI95[k][1])}`)).join('')}`,
+    `  mean ${f.format(t.mean)}, sd ${f.format(t.sd)}, range ${f.format(t.min)} – ${f.format(t.max)}`,
+  ];
+  if (t.probabilityWithinTarget && target !== undefined) {
+    const p = t.probabilityWithinTarget;
+    lines.push(
+      `  within target ${f.format(target)}: ${pct(p.value)} (95% interval ${pct(p.ci95[0])}–${pct(p.ci95[1])})`,
+    );
+  }
+  return lines;
+}
+
+export interface SummaryContext {
+  name?: string;
+  currency?: string;
+  threads: number;
+  targets?: { cost?: number; duration?: number };
+}
+
+export function summaryText(r: SimulationResult, ctx: SummaryContext): string {
+  const lines: string[] = [];
+  lines.push(`${ctx.name ?? 'Model'}${ctx.currency ? ` (${ctx.currency})` : ''}`);
+  lines.push(
+    `${money.format(r.iterations)} iterations, ${r.sampling === 'lhs' ? 'Latin hypercube' : 'Monte Carlo'}, ` +
+      `seed ${r.seed}, ${ctx.threads} thread${ctx.threads === 1 ? '' : 's'}, ${(r.elapsedMs / 1000).toFixed(2)} s`,
+  );
+  lines.push('');
+  lines.push(
+    ...totalBlock(`Cost${ctx.currency ? ` (${ctx.currency})` : ''}`, r.cost, money, ctx.targets?.cost),
+  );
+  if (r.duration) {
+    lines.push('');
+    lines.push(...totalBlock('Duration (days)', r.duration, days, ctx.targets?.duration));
+  }
+  if (r.joint) {
+    lines.push('');
+    lines.push(
+      `Both targets met: ${pct(r.joint.probability)} (95% interval ${pct(r.joint.ci95[0])}–${pct(r.joint.ci95[1])})`,
+    );
+  }
+  const drivers = (list: SimulationResult['sensitivity']['cost']) =>
+    list
+      .slice(0, 5)
+      .map((d) => `${d.id} (ρ ${d.rankCorrelation.toFixed(2)}, ${pct(d.varianceShare)})`)
+      .join(', ');
+  lines.push('');
+  if (r.sensitivity.cost.length) lines.push(`Top cost drivers: ${drivers(r.sensitivity.cost)}`);
+  if (r.sensitivity.duration.length) lines.push(`Top schedule drivers: ${drivers(r.sensitivity.duration)}`);
+  const critical = Object.entries(r.criticality)
+    .sort((a, b) => b[1] - a[1])
+    .slice(0, 5);
+  if (critical.length)
+    lines.push(`Most critical: ${critical.map(([id, c]) => `${id} ${pct(c)}`).join(', ')}`);
+  if (r.warnings.length) {
+    lines.push('');
+    lines.push('Warnings:');
+    for (const w of r.warnings) lines.push(`  - ${w}`);
+  }
+  return lines.join('\n');
+}

@@ -1,0 +1,117 @@
+// The zod schema of the model file (version 1), shared by the command line and the app's import.
+// Field rules live here; the rules of each distribution's parameters come from the distribution
+// factories themselves (one source of truth), and the cross-entry rules from ./model-checks.
+// Messages name the entry: `items[3] (C4).dist.mode: must lie between low and high (…)`.
+
+import { z } from 'zod';
+import { createDistribution } from './distributions';
+import { InputError } from './errors';
+import { checkModel } from './model-checks';
+import type { DistSpec, Model } from './formats';
+
+const num = z.number();
+const threePoint = {
+  low: num,
+  mode: num,
+  high: num,
+  range: z.enum(['min-max', 'p10-p90']).optional(),
+};
+
+const lognormalPairComplete = (d: { p10?: number; p90?: number; mean?: number; sd?: number }) =>
+  (d.p10 !== undefined && d.p90 !== undefined && d.mean === undefined && d.sd === undefined) ||
+  (d.mean !== undefined && d.sd !== undefined && d.p10 === undefined && d.p90 === undefined);
+
+const lognormalSchema = z
+  .strictObject({
+    type: z.literal('lognormal'),
+    p10: num.optional(),
+    p90: num.optional(),
+    mean: num.optional(),
+    sd: num.optional(),
+  })
+  .superRefine((d, ctx) => {
+    const byPercentiles = d.p10 !== undefined || d.p90 !== undefined;
+    const byMoments = d.mean !== undefined || d.sd !== undefined;
+    if (byPercentiles === byMoments) {
+      ctx.addIssue({ code: 'custom', message: 'give either p10 and p90, or mean and sd', path: [] });
+      return;
+    }
+    for (const f of byPercentiles ? (['p10', 'p90'] as const) : (['mean', 'sd'] as const)) {
+      if (d[f] === undefined) ctx.addIssue({ code: 'custom', message: 'is required', path: [f] });
+    }
+  });
+
+export const distSchema = z
+  .discriminatedUnion('type', [
+    z.strictObject({ type: z.literal('fixed'), value: num }),
+    z.strictObject({ type: z.literal('uniform'), low: num, high: num }),
+    z.strictObject({ type: z.literal('triangular'), ...threePoint }),
+    z.strictObject({ type: z.literal('pert'), ...threePoint }),
+    z.strictObject({ type: z.literal('normal'), mean: num, sd: num }),
+    lognormalSchema,
+  ])
+  .superRefine((spec, ctx) => {
+    // The factories validate parameters (low < high, sd > 0, …) and say which field is wrong.
+    if (spec.type === 'lognormal' && !lognormalPairComplete(spec)) return;
+    try {
+      createDistribution(spec as DistSpec, { where: '', field: '' });
+    } catch (e) {
+      if (!(e instanceof InputError)) throw e;
+      ctx.addIssue({ code: 'custom', message: e.problem, path: e.field ? e.field.split('.') : [] });
+    }
+  });
+
+const id = z.string().min(1);
+
+const itemSchema = z.strictObject({
+  id,
+  name: z.string().optional(),
+  base: num.optional(),
+  dist: distSchema.optional(),
+  ratePerDay: z.union([num, distSchema]).optional(),
+  activity: id.optional(),
+});
+
+const riskSchema = z.strictObject({
+  id,
+  name: z.string().optional(),
+  probability: num.min(0).max(1),
+  cost: distSchema.optional(),
+  delay: distSchema.optional(),
+  activity: id.optional(),
+});
+
+const predecessorSchema = z.union([id, z.strictObject({ id, lag: num.optional() })]);
+
+const activitySchema = z.strictObject({
+  id,
+  name: z.string().optional(),
+  duration: distSchema,
+  predecessors: z.array(predecessorSchema).optional(),
+});
+
+const correlationSchema = z.strictObject({ a: id, b: id, rho: num.min(-1).max(1) });
+
+export const settingsSchema = z.strictObject({
+  iterations: z.int().min(1).max(10_000_000).optional(),
+  seed: z.union([z.int(), z.string().min(1)]).optional(),
+  sampling: z.enum(['mc', 'lhs']).optional(),
+});
+
+export const modelSchema = z
+  .strictObject({
+    format: z.literal('outturn-model'),
+    version: z.literal(1),
+    name: z.string().optional(),
+    currency: z.string().optional(),
+    items: z.array(itemSchema),
+    risks: z.array(riskSchema).optional(),
+    activities: z.array(activitySchema).optional(),
+    correlations: z.array(correlationSchema).optional(),
+    targets: z.strictObject({ cost: num.optional(), duration: num.min(0).optional() }).optional(),
+    settings: settingsSchema.optional(),
+  })
+  .superRefine((model, ctx) => {
+    for (const p of checkModel(model as Model))
+      ctx.addIssue({ code: 'custom', message: p.message, path: p.path });
+  });

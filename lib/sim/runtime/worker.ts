@@ -1,0 +1,60 @@
+// Worker-thread entry, bundled to .build/sim-worker.mjs by scripts/build-worker.mjs (see
+// ./worker-file). Each worker compiles the model once from its workerData (while the
+// parent builds the beta-PERT tables that the first task brings), then runs tasks: compute
+// blocks into the round's shared store, or the tornado's cross sums of blocks. Only small
+// per-block sums travel back.
+
+import { workerData } from 'node:worker_threads';
+import { type BlockSummary, blockLength, simulateBlock } from '../core/block';
+import { compileModel } from '../core/compile';
+import { type PackedBetaTables, unpackBetaTables } from '../core/math/beta-quantile-table';
+import { blockCrossSums, blockSink, type RoundStore } from '../core/run-data';
+import type { Model, Sampling } from '../core/formats';
+import { warmUp } from './warm-up';
+
+export interface WorkerData {
+  model: Model;
+  key: number[];
+  sampling: Sampling;
+}
+
+export type WorkerTask =
+  | {
+      kind: 'blocks';
+      blocks: number[];
+      store: RoundStore;
+      /** Beta-PERT quantile tables built by the parent thread, so that no worker rebuilds them. */
+      tables: PackedBetaTables;
+    }
+  | {
+      kind: 'cross';
+      blocks: number[];
+      store: RoundStore;
+      costRanks: Float64Array;
+      durationRanks: Float64Array | null;
+    };
+
+export type WorkerReply = BlockSummary[] | Float64Array[];
+
+const data = workerData as WorkerData;
+const plan = compileModel(data.model);
+const key = Uint32Array.from(data.key);
+let warm = false;
+
+export default function runTask(task: WorkerTask): WorkerReply {
+  const { store } = task;
+  if (task.kind === 'blocks') {
+    if (!warm) {
+      unpackBetaTables(task.tables);
+      warmUp(plan, data.sampling);
+      warm = true;
+    }
+    return task.blocks.map((b) => {
+      const n = blockLength(b, store.total);
+      return simulateBlock(plan, key, data.sampling, b, n, blockSink(store, b, n));
+    });
+  }
+  return task.blocks.map((b) =>
+    blockCrossSums(plan, store, b, blockLength(b, store.total), task.costRanks, task.durationRanks),
+  );
+}
