@@ -11,7 +11,7 @@ import { createFixed } from './distributions/fixed';
 import { allocateForwardPass, forwardPass } from './schedule/forward-pass';
 import { buildNetwork, type Network } from './schedule/network';
 import { streamIdsFor } from './random/stream-ids';
-import type { InputKind, Model } from './types';
+import type { DistSpec, InputKind, Model } from './types';
 
 export interface CostItemPlan {
   id: string;
@@ -205,6 +205,7 @@ export function compileModel(model: Model): Plan {
       const dist = item.dist
         ? createDistribution(item.dist, { where: item.id, field: 'dist' })
         : createFixed({ value: item.base ?? 0 }, { where: item.id, field: 'base' });
+      warnFittedBelowZero(item.id, 'dist', item.dist, dist, warnings);
       const v = newColumn(item.id, dist.degenerate);
       costItems.push({ id: item.id, dist, v, drivers: driverList(item.id) });
       costBase += item.base ?? dist.base;
@@ -377,4 +378,21 @@ function tornadoInputs(p: {
     add(d.id, 'driver', d.v, costly, acts.length > 0);
   });
   return out;
+}
+
+/** A cost given as a P10–P90 range whose fitted lower bound falls below zero (while P10 ≥ 0). */
+function warnFittedBelowZero(
+  id: string,
+  field: string,
+  spec: DistSpec | undefined,
+  dist: Distribution,
+  warnings: string[],
+): void {
+  if (!spec || !('range' in spec) || spec.range !== 'p10-p90') return;
+  if (spec.low >= 0 && dist.support[0] < 0) {
+    warnings.push(
+      `${id}: the ${field} fitted to P10 ${spec.low} and P90 ${spec.high} has its lower bound ` +
+        `below zero (${dist.support[0].toPrecision(4)}), so some samples are negative costs.`,
+    );
+  }
 }
