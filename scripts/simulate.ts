@@ -1,5 +1,8 @@
 // Command line: npm run simulate -- MODEL.json [--iterations N] [--seed S] [--sampling mc|lhs]
 //                                   [--threads T] [--out RESULT.json]
+//                                   [--precision PCT [--level Pk] [--max-iterations N]]
+// With --precision the run doubles its iterations until the chosen P-value (P80 unless --level
+// says otherwise) of cost, and of duration, is known to ±PCT % (95% interval), up to the cap.
 // Prints a short summary; with --out writes the result file. A model that fails validation
 // exits with status 1 and a message per offending entry, and nothing is written.
 
@@ -7,11 +10,15 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { parseArgs } from 'node:util';
-import { summaryText, validateModel, type Sampling } from '../lib/sim';
+import { summaryText, validateModel, type PrecisionGoal, type Sampling } from '../lib/sim';
 import { BUILD_WORKER_COMMAND, defaultWorkerFile, runSimulation } from '../lib/sim/runtime';
 
 const USAGE =
-  'usage: npm run simulate -- MODEL.json [--iterations N] [--seed S] [--sampling mc|lhs] [--threads T] [--out RESULT.json]';
+  'usage: npm run simulate -- MODEL.json [--iterations N] [--seed S] [--sampling mc|lhs] [--threads T] [--out RESULT.json]\n' +
+  '       [--precision PCT [--level Pk] [--max-iterations N]]   (e.g. --precision 0.5 --level P90)';
+
+/** Default cap of a run to a precision goal. */
+const DEFAULT_MAX_ITERATIONS = 1_000_000;
 
 function fail(message: string, code: number): never {
   process.stderr.write(`${message}\n`);
@@ -44,6 +51,9 @@ async function main() {
         sampling: { type: 'string' },
         threads: { type: 'string' },
         out: { type: 'string' },
+        precision: { type: 'string' },
+        level: { type: 'string' },
+        'max-iterations': { type: 'string' },
         help: { type: 'boolean', short: 'h' },
       },
     });
@@ -63,6 +73,7 @@ async function main() {
   if (sampling !== undefined && sampling !== 'mc' && sampling !== 'lhs') {
     fail(`--sampling must be mc or lhs (got "${sampling}")\n${USAGE}`, 2);
   }
+  const precision = precisionGoal(values.precision, values.level, values['max-iterations']);
   const seed =
     values.seed === undefined ? undefined : /^-?\d+$/.test(values.seed) ? Number(values.seed) : values.seed;
 
@@ -90,6 +101,7 @@ async function main() {
     seed,
     sampling,
     threads,
+    ...(precision ? { precision } : {}),
     onProgress: showProgress
       ? ({ done, total }) =>
           process.stderr.write(`\r${Math.round((100 * done) / total)}% of ${total} iterations`)
@@ -103,6 +115,29 @@ async function main() {
     writeFileSync(values.out, `${JSON.stringify(result, null, 2)}\n`);
     process.stdout.write(`\nResult written to ${values.out}\n`);
   }
+}
+
+function precisionGoal(
+  precision: string | undefined,
+  level: string | undefined,
+  cap: string | undefined,
+): PrecisionGoal | null {
+  if (precision === undefined) {
+    if (level !== undefined || cap !== undefined)
+      fail(`--level and --max-iterations need --precision\n${USAGE}`, 2);
+    return null;
+  }
+  const pct = Number(precision);
+  if (!/^\d*\.?\d+$/.test(precision) || !(pct > 0 && pct < 100)) {
+    fail(`--precision must be a percentage between 0 and 100 (got "${precision}")\n${USAGE}`, 2);
+  }
+  const m = level === undefined ? ['P80', '80'] : /^P(\d{1,2})$/.exec(level);
+  if (!m || Number(m[1]) < 1) fail(`--level must be a P-level such as P80 (got "${level}")\n${USAGE}`, 2);
+  return {
+    relative: pct / 100,
+    level: Number(m[1]) / 100,
+    maxIterations: positiveInt('max-iterations', cap) ?? DEFAULT_MAX_ITERATIONS,
+  };
 }
 
 main().catch((e: unknown) => fail(e instanceof Error ? e.message : String(e), 1));

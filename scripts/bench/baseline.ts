@@ -121,6 +121,7 @@ function spearman(x: number[], y: number[]): number {
 
 interface Iteration {
   cost: number;
+  postCost: number;
   duration: number;
   inputs: Record<string, number>;
   critical: string[];
@@ -168,17 +169,30 @@ export function runBaseline(model: Model, iterations: number) {
       const d = distOf(id);
       if (d) inputs[id] = inverse(d, jStat.normal.cdf(zc[k], 0, 1));
     });
+    const factor: Record<string, number> = {};
+    for (const d of model.drivers ?? []) {
+      const f = Math.random() < (d.probability ?? 1) ? sample(d.factor) : 1;
+      inputs[d.id] = f;
+      for (const t of d.applies) factor[t] = (factor[t] ?? 1) * f;
+    }
     const durations: Record<string, number> = {};
-    for (const a of activities) durations[a.id] = Math.max(0, inputs[a.id] ?? sample(a.duration));
+    for (const a of activities)
+      durations[a.id] = Math.max(0, (inputs[a.id] ?? sample(a.duration)) * (factor[a.id] ?? 1));
     for (const a of activities) inputs[a.id] = durations[a.id];
     let cost = 0;
+    let postCost = 0;
     for (const r of risks) {
       const occurs = Math.random() < r.probability;
       const c = occurs && r.cost ? (inputs[r.id] ?? sample(r.cost)) : 0;
       const d = occurs && r.delay ? Math.max(0, sample(r.delay)) : 0;
       cost += c;
-      if (r.activity) durations[r.activity] += d;
+      for (const a of r.activities ?? (r.activity ? [r.activity] : [])) durations[a] += d;
       inputs[r.id] = c;
+      if (r.post) {
+        const postOccurs = Math.random() < (r.post.probability ?? r.probability);
+        postCost += (postOccurs && r.cost ? sample(r.post.cost ?? r.cost) : 0) - c;
+      }
+      if (typeof r.mitigationCost === 'number') postCost += r.mitigationCost;
     }
     const finish: Record<string, number> = {};
     const driver: Record<string, string | null> = {};
@@ -208,14 +222,23 @@ export function runBaseline(model: Model, iterations: number) {
             ? item.ratePerDay
             : (inputs[item.id] ?? sample(item.ratePerDay));
         inputs[item.id] = rate;
-        v = rate * durations[item.activity!];
+        v =
+          rate *
+          (factor[item.id] ?? 1) *
+          (item.span === 'project' ? finish[last] : durations[item.activity!]);
       } else {
-        v = inputs[item.id] ?? (item.dist ? sample(item.dist) : (item.base ?? 0));
+        v = (inputs[item.id] ?? (item.dist ? sample(item.dist) : (item.base ?? 0))) * (factor[item.id] ?? 1);
         inputs[item.id] = v;
       }
       cost += v;
     }
-    runs.push({ cost, duration: activities.length ? finish[last] : 0, inputs, critical });
+    runs.push({
+      cost,
+      postCost: cost + postCost,
+      duration: activities.length ? finish[last] : 0,
+      inputs,
+      critical,
+    });
   }
 
   const costs = runs.map((r) => r.cost);
@@ -232,6 +255,10 @@ export function runBaseline(model: Model, iterations: number) {
     P50: pct(costs, 0.5),
     P80: pct(costs, 0.8),
     P90: pct(costs, 0.9),
+    postP80: pct(
+      runs.map((r) => r.postCost),
+      0.8,
+    ),
     durationP80: pct(durs, 0.8),
     sensitivity,
     criticality,

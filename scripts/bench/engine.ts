@@ -5,8 +5,9 @@
 // (BENCH_REPEAT, default 3) and the fastest and the median are shown: on a shared machine other
 // processes only ever slow a run down. CPU time (all threads) is shown beside the wall time.
 //
-// Targets: 100,000 iterations in ≤ 2.5 s on 2 threads, ≥ 60× the baseline's iterations per
-// second, peak memory < 1 GiB.
+// Targets: 100,000 iterations of the version 2 model in ≤ 1.5 s on 2 threads for the whole
+// process, ≥ 40× the baseline's iterations per second, peak memory ≤ 512 MiB. (The child
+// process here starts through tsx, so "process s" includes compiling TypeScript on the fly.)
 
 import { spawnSync } from 'node:child_process';
 import { loadavg } from 'node:os';
@@ -98,7 +99,8 @@ async function main() {
   const m = inventModel();
   console.log(
     `Model: ${m.items.length} line items (${BENCH_SIZE.timeDependent} time-dependent), ${m.risks!.length} risks, ` +
-      `${m.activities!.length} activities, ${m.correlations!.length} correlations; LHS, seed 42`,
+      `${m.activities!.length} activities, ${m.correlations!.length} correlations, ` +
+      `${m.drivers!.length} drivers, ${BENCH_SIZE.projectSpan} project-span costs; LHS, seed 42`,
   );
   console.log(
     `load average ${loadavg()
@@ -136,9 +138,13 @@ async function main() {
   // The engine's runs (the baseline is not held to the target).
   const peak = Math.max(...runs.slice(0, 2).flatMap((r) => [r.best.maxRssMiB, r.median.maxRssMiB]));
   const targets = [
-    [`100,000 iterations on 2 threads ≤ 2.5 s`, two.runMs <= 2500, `${fmt(two.runMs / 1000, 2)} s`],
-    [`≥ 60× the baseline's iterations/s`, ratio2 >= 60, `${fmt(ratio2, 1)}×`],
-    [`peak memory of the engine < 1 GiB`, peak < 1024, `${fmt(peak)} MiB`],
+    [
+      `100,000 iterations on 2 threads ≤ 1.5 s (whole process)`,
+      two.processMs! <= 1500,
+      `${fmt(two.processMs! / 1000, 2)} s (the run itself ${fmt(two.runMs / 1000, 2)} s)`,
+    ],
+    [`≥ 40× the baseline's iterations/s`, ratio2 >= 40, `${fmt(ratio2, 1)}×`],
+    [`peak memory of the engine ≤ 512 MiB`, peak <= 512, `${fmt(peak)} MiB`],
   ] as const;
   for (const [what, ok, got] of targets) console.log(`${ok ? 'met   ' : 'MISSED'}  ${what}: ${got}`);
 }

@@ -1,9 +1,19 @@
 // An invented model of benchmark size, generated reproducibly from a seed: 500 line items of
 // mixed distributions (some time-dependent), 50 risk events, 200 activities in a layered network
-// and 100 correlations in small clusters.
+// and 100 correlations in small clusters; and the version 2 extensions: 20 risk drivers over
+// items and activities, 10 risks on several activities with post-mitigation values and a
+// response cost, 3 costs that run with the project's duration.
 
 import seedrandom from 'seedrandom';
-import type { DistSpec, Model, ModelActivity, ModelCorrelation, ModelItem, ModelRisk } from '../../lib/sim';
+import type {
+  DistSpec,
+  Model,
+  ModelActivity,
+  ModelCorrelation,
+  ModelDriver,
+  ModelItem,
+  ModelRisk,
+} from '../../lib/sim';
 
 export interface BenchSize {
   items: number;
@@ -11,6 +21,10 @@ export interface BenchSize {
   risks: number;
   activities: number;
   correlations: number;
+  /** Version 2 extensions: drivers, risks on several activities with post-mitigation values, project-span costs. */
+  drivers: number;
+  multiActivityRisks: number;
+  projectSpan: number;
 }
 
 export const BENCH_SIZE: BenchSize = {
@@ -19,6 +33,9 @@ export const BENCH_SIZE: BenchSize = {
   risks: 50,
   activities: 200,
   correlations: 100,
+  drivers: 20,
+  multiActivityRisks: 10,
+  projectSpan: 3,
 };
 
 export function inventModel(size: BenchSize = BENCH_SIZE, seed = 'bench'): Model {
@@ -121,16 +138,55 @@ export function inventModel(size: BenchSize = BENCH_SIZE, seed = 'bench'): Model
     }
   }
 
+  // Version 2: risks on several activities with post-mitigation values and a response cost.
+  for (let i = 0; i < size.multiActivityRisks; i++) {
+    const m = 50_000 + rnd() * 500_000;
+    const acts = [...new Set(Array.from({ length: 2 + Math.floor(rnd() * 3) }, () => pick(activities).id))];
+    const probability = +(0.1 + 0.5 * rnd()).toFixed(2);
+    risks.push({
+      id: `RM${i + 1}`,
+      name: `Risk on several activities ${i + 1}`,
+      probability,
+      cost: threePoint(m, 'triangular'),
+      delay: threePoint(2 + rnd() * 10, 'pert'),
+      activities: acts,
+      post: { probability: +(probability / 2).toFixed(2), cost: threePoint(m * 0.6, 'triangular') },
+      mitigationCost: Math.round(m * 0.05),
+    });
+  }
+  for (let i = 0; i < size.projectSpan; i++) {
+    items.push({
+      id: `CP${i + 1}`,
+      name: `Project overheads ${i + 1}`,
+      ratePerDay: amountDist(2000 + rnd() * 8000),
+      span: 'project',
+    });
+  }
+  const drivers: ModelDriver[] = [];
+  for (let i = 0; i < size.drivers; i++) {
+    const applies = new Set<string>();
+    for (let k = 0; k < 15; k++) applies.add(pick(items).id);
+    for (let k = 0; k < 5; k++) applies.add(pick(activities).id);
+    drivers.push({
+      id: `D${i + 1}`,
+      name: `Driver ${i + 1}`,
+      probability: +(0.3 + 0.7 * rnd()).toFixed(2),
+      factor: { type: 'triangular', low: 0.9, mode: 1, high: +(1.1 + 0.3 * rnd()).toFixed(2) },
+      applies: [...applies],
+    });
+  }
+
   const base = items.reduce((s, x) => s + (x.dist && 'mode' in x.dist ? x.dist.mode : 200_000), 0);
   return {
     format: 'outturn-model',
-    version: 1,
+    version: 2,
     name: 'Invented benchmark project',
     currency: 'EUR',
     items,
     risks,
     activities,
     correlations,
+    drivers,
     targets: { cost: Math.round(base * 1.15), duration: 400 },
     settings: { iterations: 100_000, seed: 42, sampling: 'lhs' },
   };

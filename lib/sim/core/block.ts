@@ -6,19 +6,25 @@
  * Column by column over typed arrays (no per-sample objects), each column of uniforms used while
  * it is still in cache:
  *   1. correlation groups: their columns of uniforms together, by Iman–Conover;
- *   2. activity durations (cut at 0);
- *   3. line items, added to the cost;
- *   4. risks: occurrence (u < p), cost added, delay lengthening its activity;
- *   5. forward pass: project duration and criticality counts;
- *   6. time-dependent items: rate × sampled duration of the activity;
- *   7. tornado grades (16-bit) as each input passes, and the sums behind the achieved correlations.
- * Columns outside the groups are drawn when they are needed, each from its own stream.
+ *   2. drivers: one factor column each (1 where the driver does not occur);
+ *   3. activity durations × their drivers' factors (cut at 0);
+ *   4. line items × their drivers' factors, added to the cost;
+ *   5. risks, from one uniform u each: occurrence u > 1 − p, size F⁻¹((u − (1 − p))/p); cost
+ *      added, delay lengthening (or, negative, shortening) each of its activities; before and
+ *      after mitigation from the same u, the response's cost in the post total;
+ *   6. schedule passes: project duration and criticality counts (headline scenario);
+ *   7. time-dependent items: rate × sampled duration of the activity, or of the project;
+ *   8. tornado grades (16-bit) as each input passes, the swing sums, and the sums behind the
+ *      achieved correlations.
+ * Columns outside the groups are drawn when they are needed, each from its own stream, keyed by
+ * its input's id (./random/stream-ids).
  */
 
 import type { Plan } from './compile';
 import { allocateInduction, induceGroup, type InductionScratch } from './correlation/iman-conover';
 import { fillLatinHypercube, fillMonteCarlo } from './random/columns';
 import { Sfc32, streamFor } from './random/sfc32';
+import type { RiskImpact } from './compile';
 import { allocateForwardPass, type ForwardPassBuffers, forwardPass } from './schedule/forward-pass';
 import type { Sampling } from './formats';
 
@@ -30,9 +36,16 @@ export const GRADE_UNIT = 1 / 65536;
 
 /** Where a block writes its per-iteration outputs (views of length n, n or 0, rows·n). */
 export interface BlockSink {
+  /** Headline scenario's cost per iteration. */
   cost: Float64Array;
   /** Project duration per iteration (empty when the model has no activities). */
   duration: Float64Array;
+  /**
+   * The other scenario (pre- or post-mitigation) when some risk has a post block, else empty;
+   * a caller that wants the headline only may leave them out.
+   */
+  altCost?: Float64Array;
+  altDuration?: Float64Array;
   /** Tornado grades: input s, iteration i at s·n + i, as ⌊grade·2¹⁶⌋. */
   grades: Uint16Array;
 }
@@ -47,7 +60,18 @@ export interface BlockSummary {
   gradeSums: Float64Array;
   /** Per correlation entry: Σa, Σb, Σa², Σb², Σab of the pair's uniforms. */
   pairSums: Float64Array;
+  /** Per activity: Σd and Σd² of its sampled duration (headline scenario). */
+  durationSums: Float64Array;
+  /**
+   * Per tornado input, 6 values: count, Σcost, Σduration where its grade ≤ 0.1, then the same
+   * where its grade ≥ 0.9 (the swing).
+   */
+  swingSums: Float64Array;
 }
+
+/** Stored grades k with (k + ½)/2¹⁶ ≤ 0.1, and ≥ 0.9. */
+const SWING_LOW_MAX = 6553;
+const SWING_HIGH_MIN = 58982;
 
 interface Workspace {
   /** Column length: every column view below has this length; a block uses its first n values. */
@@ -56,22 +80,35 @@ interface Workspace {
   groupedColumn: (Float64Array | null)[];
   /** Views per group member, in group order, for the induction. */
   groupColumns: Float64Array[][];
+  /** Activity durations, column a at a·stride: pre-mitigation, and post (when there is a post). */
   durations: Float64Array;
   durationColumn: Float64Array[];
+  postDurations: Float64Array;
+  postDurationColumn: Float64Array[];
+  /** Driver factors, one column per driver. */
+  factorColumn: Float64Array[];
+  preCost: Float64Array;
+  postCost: Float64Array;
+  preTotal: Float64Array;
+  postTotal: Float64Array;
   free: Float64Array;
   free2: Float64Array;
   tmp: Float64Array;
+  sizes: Float64Array;
   occurred: Uint8Array;
   perm: Int32Array;
   rng: Sfc32;
   induction: InductionScratch;
   schedule: ForwardPassBuffers | null;
-  /** Row of each variable / risk in the grades, −1 when not a tornado input. */
+  /** Row of each variable in the grades, −1 when not a tornado input. */
   gradeRowOfVariable: Int32Array;
-  gradeRowOfRisk: Int32Array;
 }
 
 const workspaces = new WeakMap<Plan, Workspace>();
+
+function columnsOf(store: Float64Array, count: number, stride: number): Float64Array[] {
+  return Array.from({ length: count }, (_, a) => store.subarray(a * stride, (a + 1) * stride));
+}
 
 function workspaceFor(plan: Plan, n: number): Workspace {
   const existing = workspaces.get(plan);
@@ -91,28 +128,33 @@ function workspaceFor(plan: Plan, n: number): Workspace {
     }),
   );
   const durations = new Float64Array(acts * stride);
+  const postDurations = new Float64Array(plan.hasPost ? acts * stride : 0);
   const gradeRowOfVariable = new Int32Array(plan.variables).fill(-1);
-  const gradeRowOfRisk = new Int32Array(plan.risks.length).fill(-1);
-  plan.sensitivity.forEach((s, row) => {
-    if (s.source === 'column') gradeRowOfVariable[s.v] = row;
-    else gradeRowOfRisk[s.risk] = row;
-  });
+  plan.sensitivity.forEach((s, row) => (gradeRowOfVariable[s.v] = row));
+  const column = () => new Float64Array(stride);
   const ws: Workspace = {
     stride,
     groupedColumn,
     groupColumns,
     durations,
-    durationColumn: Array.from({ length: acts }, (_, a) => durations.subarray(a * stride, (a + 1) * stride)),
-    free: new Float64Array(stride),
-    free2: new Float64Array(stride),
-    tmp: new Float64Array(stride),
+    durationColumn: columnsOf(durations, acts, stride),
+    postDurations,
+    postDurationColumn: plan.hasPost ? columnsOf(postDurations, acts, stride) : [],
+    factorColumn: columnsOf(new Float64Array(plan.drivers.length * stride), plan.drivers.length, stride),
+    preCost: column(),
+    postCost: plan.hasPost ? column() : new Float64Array(0),
+    preTotal: column(),
+    postTotal: plan.hasPost ? column() : new Float64Array(0),
+    free: column(),
+    free2: column(),
+    tmp: column(),
+    sizes: column(),
     occurred: new Uint8Array(stride),
     perm: new Int32Array(stride),
     rng: new Sfc32(),
     induction: allocateInduction(plan.maxGroupSize, stride),
     schedule: acts ? allocateForwardPass(acts, stride) : null,
     gradeRowOfVariable,
-    gradeRowOfRisk,
   };
   workspaces.set(plan, ws);
   return ws;
@@ -146,31 +188,41 @@ function clampAtZero(x: Float64Array, n: number): void {
   for (let i = 0; i < n; i++) if (x[i] < 0) x[i] = 0;
 }
 
-function occurrences(u: Float64Array, p: number, out: Uint8Array, n: number): void {
-  for (let i = 0; i < n; i++) out[i] = u[i] < p ? 1 : 0;
-}
-
 function addWhere(acc: Float64Array, x: Float64Array, mask: Uint8Array, n: number): void {
   for (let i = 0; i < n; i++) if (mask[i]) acc[i] += x[i];
 }
 
+/** Version 1 delays: negative samples count as 0 days. */
 function addPositiveWhere(acc: Float64Array, x: Float64Array, mask: Uint8Array, n: number): void {
   for (let i = 0; i < n; i++) if (mask[i] && x[i] > 0) acc[i] += x[i];
 }
 
+function multiplyInto(acc: Float64Array, x: Float64Array, n: number): void {
+  for (let i = 0; i < n; i++) acc[i] *= x[i];
+}
+
 /**
- * A risk's grade, the mid-distribution value of "impact if it occurs, else 0": (1 − p)/2 when it
- * does not occur, 1 − p + p·u when it does (u its severity, ½ when the impact is fixed).
+ * From a risk's (or driver's) uniform u and probability p: mask[i] = 1 when u > 1 − p, and the
+ * conditional grade w = (u − (1 − p))/p in (0, 1) there (½ elsewhere, never read).
  */
-function riskGrades(
-  mask: Uint8Array,
-  severity: Float64Array | null,
-  p: number,
-  out: Float64Array,
-  n: number,
-): void {
-  const none = (1 - p) / 2;
-  for (let i = 0; i < n; i++) out[i] = mask[i] ? 1 - p + p * (severity ? severity[i] : 0.5) : none;
+function occurrenceGrades(u: Float64Array, p: number, mask: Uint8Array, w: Float64Array, n: number): void {
+  const q = 1 - p;
+  const top = 1 - 2 ** -53;
+  for (let i = 0; i < n; i++) {
+    if (u[i] > q) {
+      mask[i] = 1;
+      const x = (u[i] - q) / p;
+      w[i] = x >= 1 ? top : x > 0 ? x : 2 ** -53;
+    } else {
+      mask[i] = 0;
+      w[i] = 0.5;
+    }
+  }
+}
+
+/** out[i] = x[i] where mask, else 1. */
+function factorWhere(x: Float64Array, mask: Uint8Array, out: Float64Array, n: number): void {
+  for (let i = 0; i < n; i++) out[i] = mask[i] ? x[i] : 1;
 }
 
 /** Stores k = ⌊g·2¹⁶⌋ at grades[off…] and Σg, Σg² of the stored values read back as (k + ½)/2¹⁶. */
@@ -220,6 +272,55 @@ function pairSumsInto(a: Float64Array, b: Float64Array, n: number, out: Float64A
   out[at + 4] = sab;
 }
 
+/** Σd, Σd² of a column into out[at], out[at + 1]. */
+function momentsInto(x: Float64Array, n: number, out: Float64Array, at: number): void {
+  let s1 = 0;
+  let s2 = 0;
+  for (let i = 0; i < n; i++) {
+    s1 += x[i];
+    s2 += x[i] * x[i];
+  }
+  out[at] = s1;
+  out[at + 1] = s2;
+}
+
+/** The swing sums of one tornado row (see BlockSummary.swingSums). */
+function swingInto(
+  grades: Uint16Array,
+  off: number,
+  cost: Float64Array,
+  duration: Float64Array,
+  n: number,
+  out: Float64Array,
+  at: number,
+): void {
+  let nl = 0;
+  let cl = 0;
+  let dl = 0;
+  let nh = 0;
+  let ch = 0;
+  let dh = 0;
+  const hasDuration = duration.length > 0;
+  for (let i = 0; i < n; i++) {
+    const k = grades[off + i];
+    if (k <= SWING_LOW_MAX) {
+      nl++;
+      cl += cost[i];
+      if (hasDuration) dl += duration[i];
+    } else if (k >= SWING_HIGH_MIN) {
+      nh++;
+      ch += cost[i];
+      if (hasDuration) dh += duration[i];
+    }
+  }
+  out[at] = nl;
+  out[at + 1] = cl;
+  out[at + 2] = dl;
+  out[at + 3] = nh;
+  out[at + 4] = ch;
+  out[at + 5] = dh;
+}
+
 export function simulateBlock(
   plan: Plan,
   key: Uint32Array,
@@ -229,17 +330,18 @@ export function simulateBlock(
   sink: BlockSink,
 ): BlockSummary {
   const ws = workspaceFor(plan, n);
-  const { tmp, occurred } = ws;
+  const { tmp, occurred, sizes, preCost, postCost } = ws;
+  const { hasPost } = plan;
   const rows = plan.sensitivity.length;
-  const { grades, cost } = sink;
-  cost.fill(0, 0, n);
+  const { grades } = sink;
   const gradeSums = new Float64Array(2 * rows);
+  preCost.fill(0, 0, n);
 
   /** The uniforms of variable v: its group's column, or drawn now into `into`. */
   const uniforms = (v: number, into: Float64Array): Float64Array => {
     const grouped = ws.groupedColumn[v];
     if (grouped) return grouped;
-    const rng = streamFor(key, block, v, ws.rng);
+    const rng = streamFor(key, block, plan.streamIds[v], ws.rng);
     if (sampling === 'lhs') fillLatinHypercube(rng, into, n, ws.perm);
     else fillMonteCarlo(rng, into, n);
     return into;
@@ -251,78 +353,153 @@ export function simulateBlock(
     if (row >= 0) storeGrades(u, grades, row * n, gradeSums, row, n);
     return u;
   };
+  const applyDrivers = (list: Int32Array, x: Float64Array) => {
+    for (let k = 0; k < list.length; k++) multiplyInto(x, ws.factorColumn[list[k]], n);
+  };
 
   // 1. Correlation groups.
   for (let k = 0; k < plan.groups.length; k++) {
-    induceGroup(plan.groups[k], ws.groupColumns[k], n, key, block, sampling, ws.induction);
+    induceGroup(plan.groups[k], ws.groupColumns[k], n, key, block, sampling, ws.induction, plan.streamIds);
   }
 
-  // 2. Durations.
+  // 2. Driver factors.
+  for (let k = 0; k < plan.drivers.length; k++) {
+    const d = plan.drivers[k];
+    const f = ws.factorColumn[k];
+    if (d.v < 0) f.fill(d.probability > 0 ? d.factor.mean : 1, 0, n);
+    else {
+      occurrenceGrades(column(d.v, ws.free), d.probability, occurred, sizes, n);
+      d.factor.quantileInto(sizes, tmp, n);
+      factorWhere(tmp, occurred, f, n);
+    }
+  }
+
+  // 3. Durations.
   const acts = plan.activities.length;
   for (let a = 0; a < acts; a++) {
-    const { dist, v } = plan.activities[a];
+    const { dist, v, drivers } = plan.activities[a];
     const d = ws.durationColumn[a];
     if (v < 0) d.fill(Math.max(0, dist.mean), 0, n);
+    else dist.quantileInto(column(v, ws.free), d, n);
+    applyDrivers(drivers, d);
+    clampAtZero(d, n);
+  }
+  if (hasPost) ws.postDurations.set(ws.durations);
+
+  // 4. Line items (the same in both scenarios).
+  for (const { dist, v, drivers } of plan.costItems) {
+    if (v < 0 && drivers.length === 0) addConstant(preCost, dist.mean, n);
     else {
-      dist.quantileInto(column(v, ws.free), d, n);
-      clampAtZero(d, n);
+      if (v < 0) tmp.fill(dist.mean, 0, n);
+      else dist.quantileInto(column(v, ws.free), tmp, n);
+      applyDrivers(drivers, tmp);
+      addInto(preCost, tmp, n);
     }
   }
+  if (hasPost) postCost.set(preCost.subarray(0, n));
 
-  // 3. Line items.
-  for (const { dist, v } of plan.costItems) {
-    if (v < 0) addConstant(cost, dist.mean, n);
+  // 5. Risks: both scenarios from the same uniforms.
+  const applyRisk = (
+    x: RiskImpact,
+    u: Float64Array | null,
+    uDelay: Float64Array | null,
+    activities: Int32Array,
+    cost: Float64Array,
+    durations: Float64Array[],
+  ) => {
+    const p = x.probability;
+    if (p <= 0) return;
+    if (u) occurrenceGrades(u, p, occurred, sizes, n);
     else {
-      dist.quantileInto(column(v, ws.free), tmp, n);
-      addInto(cost, tmp, n);
+      occurred.fill(1, 0, n);
+      sizes.fill(0.5, 0, n);
     }
-  }
-
-  // 4. Risks.
-  for (let r = 0; r < plan.risks.length; r++) {
-    const risk = plan.risks[r];
-    const p = risk.probability;
-    if (p >= 1) occurred.fill(1, 0, n);
-    else if (risk.vOccur < 0) occurred.fill(0, 0, n);
-    else occurrences(uniforms(risk.vOccur, ws.free2), p, occurred, n);
-    const sev = risk.vSeverity >= 0 ? uniforms(risk.vSeverity, ws.free) : null;
-    if (risk.cost) {
-      if (sev) risk.cost.quantileInto(sev, tmp, n);
-      else tmp.fill(risk.cost.mean, 0, n);
+    if (x.cost) {
+      x.cost.quantileInto(sizes, tmp, n);
       addWhere(cost, tmp, occurred, n);
     }
-    if (risk.delay && risk.activity >= 0) {
-      if (sev) risk.delay.quantileInto(sev, tmp, n);
-      else tmp.fill(risk.delay.mean, 0, n);
-      addPositiveWhere(ws.durationColumn[risk.activity], tmp, occurred, n);
+    if (x.delay && activities.length) {
+      x.delay.quantileInto(uDelay ?? sizes, tmp, n);
+      for (let j = 0; j < activities.length; j++) {
+        if (plan.version === 1) addPositiveWhere(durations[activities[j]], tmp, occurred, n);
+        else addWhere(durations[activities[j]], tmp, occurred, n);
+      }
     }
-    const row = ws.gradeRowOfRisk[r];
-    if (row >= 0) {
-      riskGrades(occurred, sev, Math.min(1, Math.max(0, p)), tmp, n);
-      storeGrades(tmp, grades, row * n, gradeSums, row, n);
+  };
+  for (const risk of plan.risks) {
+    const u = risk.v >= 0 ? column(risk.v, ws.free2) : null;
+    const uDelay = risk.vDelay >= 0 ? uniforms(risk.vDelay, ws.free) : null;
+    applyRisk(risk.pre, u, uDelay, risk.activities, preCost, ws.durationColumn);
+    if (!hasPost) continue;
+    applyRisk(risk.post ?? risk.pre, u, uDelay, risk.activities, postCost, ws.postDurationColumn);
+    const m = risk.mitigationCost;
+    if (m) {
+      if (risk.vMitigation < 0) addConstant(postCost, m.mean, n);
+      else {
+        m.quantileInto(uniforms(risk.vMitigation, ws.free), tmp, n);
+        addInto(postCost, tmp, n);
+      }
+    }
+  }
+  // Opportunities shorten activities, never below zero days.
+  if (plan.version !== 1) {
+    for (let a = 0; a < acts; a++) {
+      clampAtZero(ws.durationColumn[a], n);
+      if (hasPost) clampAtZero(ws.postDurationColumn[a], n);
     }
   }
 
-  // 5. Schedule.
+  // 6. Schedule: criticality counts in the headline scenario.
   const critical = new Int32Array(acts);
-  if (plan.network && ws.schedule)
-    forwardPass(plan.network, ws.durations, n, ws.schedule, sink.duration, critical);
+  const postHeadline = hasPost && plan.headline === 'post';
+  if (plan.network && ws.schedule) {
+    const ignored = new Int32Array(acts);
+    forwardPass(plan.network, ws.durations, n, ws.schedule, ws.preTotal, postHeadline ? ignored : critical);
+    if (hasPost)
+      forwardPass(
+        plan.network,
+        ws.postDurations,
+        n,
+        ws.schedule,
+        ws.postTotal,
+        postHeadline ? critical : ignored,
+      );
+  }
 
-  // 6. Time-dependent items.
-  for (const { rate, v, activity } of plan.rateItems) {
-    const d = ws.durationColumn[activity];
-    if (v < 0) addScaled(cost, rate.mean, d, n);
-    else {
-      rate.quantileInto(column(v, ws.free), tmp, n);
-      addProduct(cost, tmp, d, n);
+  // 7. Time-dependent items: an activity's duration, or the project's.
+  for (const { rate, v, activity, drivers } of plan.rateItems) {
+    const dPre = activity >= 0 ? ws.durationColumn[activity] : ws.preTotal;
+    const dPost = activity >= 0 ? ws.postDurationColumn[activity] : ws.postTotal;
+    if (v < 0 && drivers.length === 0) {
+      addScaled(preCost, rate.mean, dPre, n);
+      if (hasPost) addScaled(postCost, rate.mean, dPost, n);
+    } else {
+      if (v < 0) tmp.fill(rate.mean, 0, n);
+      else rate.quantileInto(column(v, ws.free), tmp, n);
+      applyDrivers(drivers, tmp);
+      addProduct(preCost, tmp, dPre, n);
+      if (hasPost) addProduct(postCost, tmp, dPost, n);
     }
   }
 
-  // 7. Sums for the achieved correlations (pairs are always within a group).
+  // The totals out: headline, then the other scenario.
+  sink.cost.set((postHeadline ? postCost : preCost).subarray(0, n));
+  if (plan.network) sink.duration.set((postHeadline ? ws.postTotal : ws.preTotal).subarray(0, n));
+  if (hasPost && sink.altCost) {
+    sink.altCost.set((postHeadline ? preCost : postCost).subarray(0, n));
+    if (plan.network) sink.altDuration?.set((postHeadline ? ws.preTotal : ws.postTotal).subarray(0, n));
+  }
+
+  // 8. Moments of the headline durations, swing sums, sums for the achieved correlations.
+  const durationSums = new Float64Array(2 * acts);
+  const headDurations = postHeadline ? ws.postDurationColumn : ws.durationColumn;
+  for (let a = 0; a < acts; a++) momentsInto(headDurations[a], n, durationSums, 2 * a);
+  const swingSums = new Float64Array(6 * rows);
+  for (let r = 0; r < rows; r++) swingInto(grades, r * n, sink.cost, sink.duration, n, swingSums, 6 * r);
   const pairSums = new Float64Array(plan.correlations.length * 5);
   plan.correlations.forEach((c, k) => {
     if (c.va >= 0) pairSumsInto(ws.groupedColumn[c.va]!, ws.groupedColumn[c.vb]!, n, pairSums, 5 * k);
   });
 
-  return { block, n, critical, gradeSums, pairSums };
+  return { block, n, critical, gradeSums, pairSums, durationSums, swingSums };
 }

@@ -48,11 +48,16 @@ export function simulateRound(run: PreparedRun, store: RoundStore): BlockSummary
 
 /** The run's totals in iteration order, sorted and ranked (`shared` for worker threads). */
 export function rankRun(run: PreparedRun, rounds: RoundStore[], shared = false): RankedTotals {
-  return rankTotals(
+  const totals = rankTotals(
     concatRounds(rounds, (r) => r.cost),
     run.plan.network ? concatRounds(rounds, (r) => r.duration) : null,
     shared,
   );
+  if (run.plan.hasPost) {
+    totals.altCost = concatRounds(rounds, (r) => r.altCost);
+    totals.altDuration = run.plan.network ? concatRounds(rounds, (r) => r.altDuration) : null;
+  }
+  return totals;
 }
 
 /** The result, from the blocks' sums (any order), the ranked totals and the cross sums in block order. */

@@ -1,5 +1,6 @@
-// The model file and the result file of the engine, as TypeScript shapes. Fields, units and
-// meaning: docs/model-format.md and docs/result-format.md.
+// The model file and the result file of the engine (docs/model-format.md, docs/result-format.md).
+// Version 2 of the model adds project-span items, richer risks (several activities, opportunities,
+// mitigation), risk drivers and settings; a version 1 file keeps its meaning.
 
 export type DistSpec =
   | { type: 'fixed'; value: number }
@@ -12,7 +13,10 @@ export type DistSpec =
 
 export type Sampling = 'mc' | 'lhs';
 
-/** A line item: either a distribution of its amount, or a rate per day of one activity. */
+/**
+ * A line item: a distribution of its amount, a rate per day of one activity, or (span "project")
+ * a rate per day of the whole project's duration.
+ */
 export interface ModelItem {
   id: string;
   name?: string;
@@ -21,16 +25,46 @@ export interface ModelItem {
   dist?: DistSpec;
   ratePerDay?: DistSpec | number;
   activity?: string;
+  /** "project": the rate runs with the project's duration (no activity). */
+  span?: 'project';
+}
+
+/** After the response: missing fields keep the value before it. */
+export interface RiskPost {
+  probability?: number;
+  cost?: DistSpec;
+  delay?: DistSpec;
 }
 
 export interface ModelRisk {
   id: string;
   name?: string;
   probability: number;
+  /** Negative values are opportunities. */
   cost?: DistSpec;
   delay?: DistSpec;
-  /** The activity that the delay lengthens (required when `delay` is given). */
+  /** Version 1: the one activity that the delay lengthens. */
   activity?: string;
+  /** The activities that the delay lengthens (each by the same amount). */
+  activities?: string[];
+  /** The line items the risk's cost belongs to (for the allocation of contingency). */
+  items?: string[];
+  /** "linked" (default): one draw sizes cost and delay; "independent": the delay has its own. */
+  sizes?: 'linked' | 'independent';
+  post?: RiskPost;
+  /** The response's own cost, counted in the post-mitigation total. */
+  mitigationCost?: DistSpec | number;
+}
+
+/** A risk driver: in iterations where it occurs, one factor multiplies every input it applies to. */
+export interface ModelDriver {
+  id: string;
+  name?: string;
+  /** Default 1. */
+  probability?: number;
+  factor: DistSpec;
+  /** Ids of line items and activities. */
+  applies: string[];
 }
 
 export type Predecessor = string | { id: string; lag?: number };
@@ -52,17 +86,26 @@ export interface ModelSettings {
   iterations?: number;
   seed?: number | string;
   sampling?: Sampling;
+  /** Headline scenario; default "post" when a risk has a post block, else "pre". */
+  mitigation?: 'pre' | 'post';
+  /** Level of the joint-confidence frontier, in (0, 1). */
+  jointConfidence?: number;
+  /** P-level the contingency is allocated at, e.g. "P80". */
+  contingencyLevel?: ContingencyLevel;
 }
+
+export type ContingencyLevel = 'P50' | 'P70' | 'P80' | 'P90';
 
 export interface Model {
   format: 'outturn-model';
-  version: 1;
+  version: 1 | 2;
   name?: string;
   currency?: string;
   items: ModelItem[];
   risks?: ModelRisk[];
   activities?: ModelActivity[];
   correlations?: ModelCorrelation[];
+  drivers?: ModelDriver[];
   targets?: { cost?: number; duration?: number };
   settings?: ModelSettings;
 }
@@ -79,16 +122,47 @@ export interface TotalSummary {
   min: number;
   max: number;
   percentiles: Record<PercentileKey, number>;
-  percentileCI95: { P10: Interval; P50: Interval; P80: Interval; P90: Interval };
+  /** Every key of `percentiles` (version 1 results carry P10, P50, P80 and P90 only). */
+  percentileCI95: Record<PercentileKey, Interval>;
   contingency: { P50: number; P80: number; P90: number };
+  contingencyCI95?: { P50: Interval; P80: Interval; P90: Interval };
   /** Present when the model sets a target for this total. */
   probabilityWithinTarget?: { value: number; ci95: Interval };
 }
 
+export type InputKind = 'item' | 'activity' | 'risk' | 'driver';
+
 export interface SensitivityEntry {
   id: string;
   rankCorrelation: number;
+  /** ρ²/Σρ² over the listed inputs: a share of the explained rank variance, not of money. */
   varianceShare: number;
+  /** Version 2 results. */
+  kind?: InputKind;
+  /** Mean total where the input's sample is at or below its P10, and at or above its P90. */
+  swing?: Interval;
+  /** Schedule sensitivity index (duration entries of activities). */
+  ssi?: number;
+}
+
+export interface ScenarioSummary {
+  cost: { mean: number; percentiles: Record<PercentileKey, number> };
+  duration?: { mean: number; percentiles: Record<PercentileKey, number> };
+}
+
+export interface MitigationResult {
+  used: 'pre' | 'post';
+  pre: ScenarioSummary;
+  post: ScenarioSummary;
+}
+
+/** Present when both targets are given (the app reads `probability` whenever `joint` exists). */
+export interface JointResult {
+  probability: number;
+  ci95: Interval;
+  /** P(cost ≤ its Pk and duration ≤ its Pk). */
+  atPLevels?: { P50: number; P70: number; P80: number; P90: number };
+  frontier?: { level: number; points: { duration: number; cost: number }[] };
 }
 
 export interface AchievedCorrelation {
@@ -114,14 +188,15 @@ export interface ConvergenceSeries {
 
 export interface SimulationResult {
   format: 'outturn-result';
-  version: 1;
+  version: 1 | 2;
   iterations: number;
   seed: number | string;
   sampling: Sampling;
   elapsedMs: number;
   cost: TotalSummary;
   duration?: TotalSummary;
-  joint?: { probability: number; ci95: Interval };
+  joint?: JointResult;
+  mitigation?: MitigationResult;
   sensitivity: { cost: SensitivityEntry[]; duration: SensitivityEntry[] };
   criticality: Record<string, number>;
   achievedCorrelations: AchievedCorrelation[];

@@ -5,8 +5,10 @@ import { BLOCK_SIZE } from './block';
 import type { Model, Sampling } from './formats';
 
 export interface PrecisionGoal {
-  /** Wanted relative half-width of the 95% interval of P80 (e.g. 0.005 for ±0.5%). */
+  /** Wanted relative half-width of the 95% interval of the P-value (e.g. 0.005 for ±0.5%). */
   relative: number;
+  /** The P-level whose value must be known, in (0, 1); default 0.8 (P80). */
+  level?: number;
   /** Never run more iterations than this. */
   maxIterations: number;
 }
@@ -16,7 +18,8 @@ export interface SimulationOptions {
   seed?: number | string;
   sampling?: Sampling;
   /**
-   * Keep running (doubling the iterations, in whole blocks) until the P80 of cost, and of duration
+   * Keep running (doubling the iterations, in whole blocks) until the P-value of the goal's level
+   * (P80 by default) of cost, and of duration
    * when there is a schedule, is known to the wanted relative precision, or the cap is reached.
    * `iterations` is then the first round's size.
    */
@@ -47,6 +50,8 @@ export function resolveSettings(model: Model, options: SimulationOptions): Resol
   const precision = options.precision ?? null;
   if (precision) {
     if (!(precision.relative > 0)) throw new RangeError(`precision.relative must be greater than 0`);
+    if (precision.level !== undefined && !(precision.level > 0 && precision.level < 1))
+      throw new RangeError(`precision.level must lie between 0 and 1 (got ${precision.level})`);
     if (!(precision.maxIterations >= 1)) throw new RangeError(`precision.maxIterations must be at least 1`);
     // Rounds are whole blocks so that each round extends the previous one.
     iterations = Math.min(precision.maxIterations, Math.ceil(iterations / BLOCK_SIZE) * BLOCK_SIZE);

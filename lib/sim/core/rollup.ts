@@ -8,9 +8,19 @@ import type { Plan } from './compile';
 import { midRanks, sortedPositions } from './math/ranks';
 import { checkpointsFor, convergenceSeries } from './stats/convergence';
 import { rankCorrelations, tornado } from './stats/sensitivity';
-import { summarizeTotal } from './stats/summary';
+import { jointAtPLevels, jointFrontier } from './stats/joint';
+import { PERCENTILES } from './stats/percentiles';
+import { percentileOfSorted, summarizeTotal } from './stats/summary';
 import { wilsonInterval } from './stats/wilson';
-import type { AchievedCorrelation, Sampling, SimulationResult } from './formats';
+import type {
+  AchievedCorrelation,
+  Interval,
+  PercentileKey,
+  Sampling,
+  ScenarioSummary,
+  SensitivityEntry,
+  SimulationResult,
+} from './formats';
 
 export interface RunInfo {
   seed: number | string;
@@ -27,6 +37,9 @@ export interface RankedTotals {
   duration: Float64Array | null;
   durationSorted: Float64Array | null;
   durationRanks: Float64Array | null;
+  /** The other mitigation scenario's totals, in iteration order (when some risk has a post block). */
+  altCost?: Float64Array | null;
+  altDuration?: Float64Array | null;
 }
 
 /** `shared`: put the ranks on SharedArrayBuffers, for worker threads to read. */
@@ -95,29 +108,43 @@ export function rollUp(
       : undefined;
 
   let joint: SimulationResult['joint'];
-  if (duration && plan.targets.cost !== undefined && plan.targets.duration !== undefined) {
+  if (duration && durationSorted && plan.targets.cost !== undefined && plan.targets.duration !== undefined) {
     let both = 0;
     const tc = plan.targets.cost;
     const td = plan.targets.duration;
     for (let i = 0; i < n; i++) if (cost[i] <= tc && duration[i] <= td) both++;
-    joint = { probability: both / n, ci95: wilsonInterval(both, n) };
+    joint = {
+      probability: both / n,
+      ci95: wilsonInterval(both, n),
+      atPLevels: jointAtPLevels(cost, costSorted, duration, durationSorted),
+      frontier: jointFrontier(cost, duration, durationSorted, plan.settings.jointConfidence),
+    };
   }
-
-  // Tornado.
-  const rho = rankCorrelations(plan.sensitivity, blocks, cross, totals.costRanks, totals.durationRanks);
-  const pick = (which: 'cost' | 'duration') => {
-    const idx = plan.sensitivity.map((s, i) => (s[which] ? i : -1)).filter((i) => i >= 0);
-    return tornado(
-      idx.map((i) => plan.sensitivity[i].id),
-      idx.map((i) => rho[which][i]),
-    );
-  };
 
   // Criticality index.
   const critical = new Float64Array(plan.activities.length);
   for (const b of blocks) for (let a = 0; a < critical.length; a++) critical[a] += b.critical[a];
   const criticality: Record<string, number> = {};
   plan.activities.forEach((a, i) => (criticality[a.id] = critical[i] / n));
+
+  // Tornado: rank correlation, share, swing, and the schedule sensitivity index.
+  const rho = rankCorrelations(plan.sensitivity, blocks, cross, totals.costRanks, totals.durationRanks);
+  const swing = swingOf(plan, blocks);
+  const ssi = scheduleSensitivity(plan, blocks, critical, n, durationSummary?.sd ?? 0);
+  const pick = (which: 'cost' | 'duration'): SensitivityEntry[] => {
+    const idx = plan.sensitivity.map((s, i) => (s[which] ? i : -1)).filter((i) => i >= 0);
+    const byId = new Map(idx.map((i) => [plan.sensitivity[i].id, i]));
+    return tornado(
+      idx.map((i) => plan.sensitivity[i].id),
+      idx.map((i) => rho[which][i]),
+    ).map((e) => {
+      const i = byId.get(e.id)!;
+      const input = plan.sensitivity[i];
+      const entry: SensitivityEntry = { ...e, kind: input.kind, swing: swing[which][i] };
+      if (which === 'duration' && input.activity >= 0) entry.ssi = ssi[input.activity];
+      return entry;
+    });
+  };
 
   // Convergence.
   const checkpoints = checkpointsFor(n);
@@ -136,7 +163,7 @@ export function rollUp(
   // Keys in the order docs/result-format.md lists them (JSON keeps insertion order).
   return {
     format: 'outturn-result',
-    version: 1,
+    version: 2,
     iterations: n,
     seed: info.seed,
     sampling: info.sampling,
@@ -144,10 +171,83 @@ export function rollUp(
     cost: costSummary,
     ...(durationSummary ? { duration: durationSummary } : {}),
     ...(joint ? { joint } : {}),
+    ...(plan.hasPost ? { mitigation: mitigationOf(plan, totals) } : {}),
     sensitivity: { cost: pick('cost'), duration: totals.durationRanks ? pick('duration') : [] },
     criticality,
     achievedCorrelations: achievedCorrelations(plan, blocks, n),
-    warnings: [...plan.warnings, ...(info.warnings ?? [])],
+    warnings: [
+      ...plan.warnings,
+      ...(info.warnings ?? []),
+      ...(info.sampling === 'lhs'
+        ? [
+            'Under Latin hypercube sampling the intervals of the P-values (from order statistics) ' +
+              'are conservative: the true precision is at least as good as shown.',
+          ]
+        : []),
+    ],
     convergence,
   };
+}
+
+/** Mean total where each input's grade is ≤ 0.1 and where it is ≥ 0.9, from the blocks' sums. */
+function swingOf(plan: Plan, blocks: BlockSummary[]): { cost: Interval[]; duration: Interval[] } {
+  const rows = plan.sensitivity.length;
+  const sums = new Float64Array(6 * rows);
+  for (const b of blocks) for (let k = 0; k < sums.length; k++) sums[k] += b.swingSums[k];
+  const cost: Interval[] = [];
+  const duration: Interval[] = [];
+  for (let r = 0; r < rows; r++) {
+    const [nl, cl, dl, nh, ch, dh] = sums.subarray(6 * r, 6 * r + 6);
+    cost.push([nl ? cl / nl : NaN, nh ? ch / nh : NaN]);
+    duration.push([nl ? dl / nl : NaN, nh ? dh / nh : NaN]);
+  }
+  return { cost, duration };
+}
+
+/**
+ * Schedule sensitivity index of each activity: criticality × sd(activity duration) / sd(project
+ * duration) (the activity's sampled duration, drivers and risk delays included).
+ */
+function scheduleSensitivity(
+  plan: Plan,
+  blocks: BlockSummary[],
+  critical: Float64Array,
+  n: number,
+  projectSd: number,
+): Float64Array {
+  const acts = plan.activities.length;
+  const out = new Float64Array(acts);
+  for (let a = 0; a < acts; a++) {
+    let s1 = 0;
+    let s2 = 0;
+    for (const b of blocks) {
+      s1 += b.durationSums[2 * a];
+      s2 += b.durationSums[2 * a + 1];
+    }
+    const sd = n > 1 ? Math.sqrt(Math.max(0, (s2 - (s1 * s1) / n) / (n - 1))) : 0;
+    out[a] = projectSd > 0 ? (critical[a] / n) * (sd / projectSd) : 0;
+  }
+  return out;
+}
+
+function scenarioOf(cost: Float64Array, duration: Float64Array | null | undefined): ScenarioSummary {
+  const part = (x: Float64Array) => {
+    const sorted = x.slice().sort();
+    let sum = 0;
+    for (let i = 0; i < x.length; i++) sum += x[i];
+    const percentiles = Object.fromEntries(
+      PERCENTILES.map(([k, p]) => [k, percentileOfSorted(sorted, p)]),
+    ) as Record<PercentileKey, number>;
+    return { mean: sum / x.length, percentiles };
+  };
+  return { cost: part(cost), ...(duration && duration.length ? { duration: part(duration) } : {}) };
+}
+
+/** Both scenarios, before and after mitigation, from the same iterations. */
+function mitigationOf(plan: Plan, totals: RankedTotals): NonNullable<SimulationResult['mitigation']> {
+  const headline = scenarioOf(totals.cost, totals.duration);
+  const other = scenarioOf(totals.altCost!, totals.altDuration);
+  return plan.headline === 'post'
+    ? { used: 'post', pre: other, post: headline }
+    : { used: 'pre', pre: headline, post: other };
 }

@@ -9,8 +9,8 @@ import { concatRounds, type RoundStore } from './run-data';
 import { relativeHalfWidth } from './stats/precision';
 import { percentileIntervalOfSorted, percentileOfSorted } from './stats/summary';
 
-/** Worst relative half-width of the P80 interval over the totals. */
-export function p80Precision(plan: Plan, rounds: RoundStore[]): number {
+/** Worst relative half-width of the interval of the P-value at `level` (default P80) over the totals. */
+export function p80Precision(plan: Plan, rounds: RoundStore[], level = 0.8): number {
   const totals = [concatRounds(rounds, (r) => r.cost)];
   if (plan.network) totals.push(concatRounds(rounds, (r) => r.duration));
   let worst = 0;
@@ -18,7 +18,7 @@ export function p80Precision(plan: Plan, rounds: RoundStore[]): number {
     const sorted = t.slice().sort();
     worst = Math.max(
       worst,
-      relativeHalfWidth(percentileOfSorted(sorted, 0.8), percentileIntervalOfSorted(sorted, 0.8)),
+      relativeHalfWidth(percentileOfSorted(sorted, level), percentileIntervalOfSorted(sorted, level)),
     );
   }
   return worst;
@@ -35,11 +35,12 @@ export function nextRound(
   if (done === 0) return settings.iterations;
   const goal = settings.precision;
   if (!goal) return null;
-  const reached = p80Precision(plan, rounds);
+  const level = goal.level ?? 0.8;
+  const reached = p80Precision(plan, rounds, level);
   if (reached <= goal.relative) return null;
   if (done >= goal.maxIterations) {
     warnings.push(
-      `P80 was to be known to ±${(goal.relative * 100).toFixed(2)}% but reached ±${(reached * 100).toFixed(2)}% ` +
+      `P${Math.round(level * 100)} was to be known to ±${(goal.relative * 100).toFixed(2)}% but reached ±${(reached * 100).toFixed(2)}% ` +
         `at the cap of ${goal.maxIterations} iterations.`,
     );
     return null;

@@ -14,6 +14,9 @@ export interface RoundStore {
   rows: number;
   cost: Float64Array;
   duration: Float64Array;
+  /** The other mitigation scenario's totals (empty without a post block). */
+  altCost: Float64Array;
+  altDuration: Float64Array;
   /** Block b's grades start at (b − start/BLOCK_SIZE)·rows·BLOCK_SIZE, row r at r·n within. */
   grades: Uint16Array;
 }
@@ -30,6 +33,8 @@ export function allocateRound(plan: Plan, start: number, total: number, shared: 
     rows,
     cost: new Float64Array(buffer(8 * n)),
     duration: new Float64Array(buffer(8 * durationLength)),
+    altCost: new Float64Array(buffer(plan.hasPost ? 8 * n : 0)),
+    altDuration: new Float64Array(buffer(plan.hasPost ? 8 * durationLength : 0)),
     grades: new Uint16Array(buffer(2 * rows * blocks * BLOCK_SIZE)),
   };
 }
@@ -40,6 +45,8 @@ export function blockSink(store: RoundStore, block: number, n: number): BlockSin
   return {
     cost: store.cost.subarray(local, local + n),
     duration: store.duration.length ? store.duration.subarray(local, local + n) : store.duration,
+    altCost: store.altCost.length ? store.altCost.subarray(local, local + n) : store.altCost,
+    altDuration: store.altDuration.length ? store.altDuration.subarray(local, local + n) : store.altDuration,
     grades: store.grades.subarray(g, g + store.rows * n),
   };
 }

@@ -1,4 +1,4 @@
-// The zod schema of the model file (version 1), shared by the command line and the app's import.
+// The zod schema of the model file (versions 1 and 2), shared by the command line and the app's import.
 // Field rules live here; the rules of each distribution's parameters come from the distribution
 // factories themselves (one source of truth), and the cross-entry rules from ./model-checks.
 // Messages name the entry: `items[3] (C4).dist.mode: must lie between low and high (…)`.
@@ -62,23 +62,45 @@ export const distSchema = z
   });
 
 const id = z.string().min(1);
+const probability = num.min(0).max(1);
+const numberOrDist = z.union([num, distSchema]);
 
 const itemSchema = z.strictObject({
   id,
   name: z.string().optional(),
   base: num.optional(),
   dist: distSchema.optional(),
-  ratePerDay: z.union([num, distSchema]).optional(),
+  ratePerDay: numberOrDist.optional(),
   activity: id.optional(),
+  span: z.literal('project').optional(),
+});
+
+const riskPostSchema = z.strictObject({
+  probability: probability.optional(),
+  cost: distSchema.optional(),
+  delay: distSchema.optional(),
 });
 
 const riskSchema = z.strictObject({
   id,
   name: z.string().optional(),
-  probability: num.min(0).max(1),
+  probability,
   cost: distSchema.optional(),
   delay: distSchema.optional(),
   activity: id.optional(),
+  activities: z.array(id).optional(),
+  items: z.array(id).optional(),
+  sizes: z.enum(['linked', 'independent']).optional(),
+  post: riskPostSchema.optional(),
+  mitigationCost: numberOrDist.optional(),
+});
+
+const driverSchema = z.strictObject({
+  id,
+  name: z.string().optional(),
+  probability: probability.optional(),
+  factor: distSchema,
+  applies: z.array(id).min(1),
 });
 
 const predecessorSchema = z.union([id, z.strictObject({ id, lag: num.optional() })]);
@@ -96,18 +118,22 @@ export const settingsSchema = z.strictObject({
   iterations: z.int().min(1).max(10_000_000).optional(),
   seed: z.union([z.int(), z.string().min(1)]).optional(),
   sampling: z.enum(['mc', 'lhs']).optional(),
+  mitigation: z.enum(['pre', 'post']).optional(),
+  jointConfidence: num.gt(0).lt(1).optional(),
+  contingencyLevel: z.enum(['P50', 'P70', 'P80', 'P90']).optional(),
 });
 
 export const modelSchema = z
   .strictObject({
     format: z.literal('outturn-model'),
-    version: z.literal(1),
+    version: z.literal([1, 2]),
     name: z.string().optional(),
     currency: z.string().optional(),
     items: z.array(itemSchema),
     risks: z.array(riskSchema).optional(),
     activities: z.array(activitySchema).optional(),
     correlations: z.array(correlationSchema).optional(),
+    drivers: z.array(driverSchema).optional(),
     targets: z.strictObject({ cost: num.optional(), duration: num.min(0).optional() }).optional(),
     settings: settingsSchema.optional(),
   })

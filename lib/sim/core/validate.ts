@@ -75,6 +75,7 @@ function messageOf(issue: Issue, raw: unknown, base: Path): string {
       return `unknown field${issue.keys.length > 1 ? 's' : ''} ${issue.keys.map((k) => `"${k}"`).join(', ')}`;
     case 'too_small':
       if (issue.origin === 'string') return 'must not be empty';
+      if (issue.origin === 'array') return `must list at least ${String(issue.minimum)} (got none)`;
       return `must be ${issue.inclusive ? '≥' : '>'} ${String(issue.minimum)} (got ${describe(value)})`;
     case 'too_big':
       return `must be ${issue.inclusive ? '≤' : '<'} ${String(issue.maximum)} (got ${describe(value)})`;

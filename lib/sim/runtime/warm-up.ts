@@ -18,6 +18,8 @@ export function warmUp(plan: Plan, sampling: Sampling): void {
     cost: new Float64Array(SIZE),
     duration: new Float64Array(plan.network ? SIZE : 0),
     grades: new Uint16Array(plan.sensitivity.length * SIZE),
+    altCost: new Float64Array(plan.hasPost ? SIZE : 0),
+    altDuration: new Float64Array(plan.hasPost && plan.network ? SIZE : 0),
   };
   for (let k = 0; k < ROUNDS; k++) simulateBlock(plan, key, sampling, k, SIZE, sink);
 }

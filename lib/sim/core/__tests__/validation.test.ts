@@ -54,7 +54,7 @@ describe('validateModel', () => {
       (m) => ((m as { format: string }).format = 'other'),
       'format: must be "outturn-model" (got "other")',
     ],
-    ['wrong version', (m) => ((m as { version: number }).version = 2), 'version: must be 1 (got 2)'],
+    ['wrong version', (m) => ((m as { version: number }).version = 3), 'version: must be 1 or 2 (got 3)'],
     ['items missing', (m) => delete (m as Partial<Model>).items, 'items: is required'],
     ['unknown top-level field', (m) => (m.extra = 1), ': unknown field "extra"'],
     [

@@ -74,6 +74,8 @@ export function induceGroup(
   block: number,
   sampling: Sampling,
   ws: InductionScratch,
+  /** Stream id of each variable (./random/stream-ids). */
+  streamIds: Uint32Array,
 ): void {
   const { k, vars, factor } = group;
   prepareScores(ws, n);
@@ -82,7 +84,7 @@ export function induceGroup(
     // One stream per variable: the score permutation and, from the same draws, the column's
     // LHS jitters or plain uniforms.
     const perm = c === 0 ? ws.firstPerm : ws.perm;
-    streamFor(key, block, vars[c], ws.rng).shuffleWithFractions(perm, columns[c], n);
+    streamFor(key, block, streamIds[vars[c]], ws.rng).shuffleWithFractions(perm, columns[c], n);
     const off = c * n;
     for (let i = 0; i < n; i++) S[off + i] = scores[perm[i]];
   }

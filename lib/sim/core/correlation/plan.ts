@@ -110,9 +110,8 @@ export function planCorrelations(
     if (repaired) target = nearestCorrelation(target, k);
     let normal: Float64Array = target.map((x) => spearmanToPearson(x));
     for (let i = 0; i < k; i++) normal[i * k + i] = 1;
-    if (minEigenvalue(normal, k) < PSD_TOLERANCE) {
-      normal = nearestCorrelation(normal, k);
-    }
+    const normalRepaired = minEigenvalue(normal, k) < PSD_TOLERANCE;
+    if (normalRepaired) normal = nearestCorrelation(normal, k);
     if (minEigenvalue(normal, k) < 0) normal = clipEigenvalues(normal, k, 0);
     const factor = factorCorrelation(normal, k);
     const achievedNormal = gram(factor, k);
@@ -124,6 +123,14 @@ export function planCorrelations(
       if (Math.abs(used[i] - r.rho) > 0.005) {
         moved.push(`${label(r.a)}–${label(r.b)} ${r.rho} → ${used[i].toFixed(2)}`);
       }
+    }
+    if (!repaired && normalRepaired) {
+      warnings.push(
+        `The correlations among ${vars.map(label).join(', ')} are valid as rank correlations but ` +
+          `not on the normal-score scale the sampler works on; the nearest valid matrix there is ` +
+          `used (Higham 2002)` +
+          (moved.length ? `: ${moved.join('; ')}.` : '.'),
+      );
     }
     if (repaired) {
       warnings.push(

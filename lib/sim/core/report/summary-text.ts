@@ -1,6 +1,6 @@
 // A short human summary of a result, for the command line: P50/P80/P90 of cost and duration
-// with the base, contingency and intervals, the chance of meeting targets, the top drivers,
-// the most critical activities and the warnings.
+// with the base, contingency and intervals, the chance of meeting targets, the comparison before
+// and after mitigation, the top drivers, the most critical activities and the warnings.
 
 import type { SimulationResult, TotalSummary } from '../formats';
 
@@ -60,14 +60,22 @@ export function summaryText(r: SimulationResult, ctx: SummaryContext): string {
       `Both targets met: ${pct(r.joint.probability)} (95% interval ${pct(r.joint.ci95[0])}–${pct(r.joint.ci95[1])})`,
     );
   }
+  if (r.mitigation) lines.push('', ...mitigationBlock(r.mitigation, ctx.currency));
   const drivers = (list: SimulationResult['sensitivity']['cost']) =>
     list
       .slice(0, 5)
-      .map((d) => `${d.id} (ρ ${d.rankCorrelation.toFixed(2)}, ${pct(d.varianceShare)})`)
+      .map(
+        (d) =>
+          `${d.id}${d.kind ? ` [${d.kind}]` : ''} (ρ ${d.rankCorrelation.toFixed(2)}, ${pct(d.varianceShare)})`,
+      )
       .join(', ');
   lines.push('');
   if (r.sensitivity.cost.length) lines.push(`Top cost drivers: ${drivers(r.sensitivity.cost)}`);
   if (r.sensitivity.duration.length) lines.push(`Top schedule drivers: ${drivers(r.sensitivity.duration)}`);
+  if (r.sensitivity.cost.length || r.sensitivity.duration.length)
+    lines.push(
+      '  (ρ: rank correlation with the total; %: share of the explained rank variance, not of money)',
+    );
   const critical = Object.entries(r.criticality)
     .sort((a, b) => b[1] - a[1])
     .slice(0, 5);
@@ -79,4 +87,23 @@ export function summaryText(r: SimulationResult, ctx: SummaryContext): string {
     for (const w of r.warnings) lines.push(`  - ${w}`);
   }
   return lines.join('\n');
+}
+
+function mitigationBlock(m: NonNullable<SimulationResult['mitigation']>, currency?: string): string[] {
+  const col = (s: string) => s.padStart(14);
+  const row = (label: string, pre: number, post: number, f: Intl.NumberFormat) =>
+    `${label.padEnd(18)}${col(f.format(pre))}${col(f.format(post))}${col(signed(f.format(post - pre), post - pre))}`;
+  const lines = [
+    `Mitigation (headline: ${m.used === 'post' ? 'after' : 'before'} mitigation)`,
+    `${''.padEnd(18)}${col('before')}${col('after')}${col('change')}`,
+  ];
+  const c = (k: 'P50' | 'P80' | 'P90') =>
+    row(`  cost ${k}`, m.pre.cost.percentiles[k], m.post.cost.percentiles[k], money);
+  lines.push(row(`  cost mean${currency ? ` (${currency})` : ''}`, m.pre.cost.mean, m.post.cost.mean, money));
+  lines.push(c('P50'), c('P80'), c('P90'));
+  if (m.pre.duration && m.post.duration) {
+    lines.push(row('  duration mean', m.pre.duration.mean, m.post.duration.mean, days));
+    lines.push(row('  duration P80', m.pre.duration.percentiles.P80, m.post.duration.percentiles.P80, days));
+  }
+  return lines;
 }

@@ -4,7 +4,7 @@
  * of staying within a target with its Wilson interval (./wilson).
  *
  *   mean = Σx/n,  sd = √(Σ(x − mean)²/(n − 1))  (two passes, in iteration order)
- *   contingency at P_p = P_p − base  (./percentiles)
+ *   contingency at P_p = P_p − base (./percentiles; its interval: the P-value's, shifted by the base)
  */
 
 import type { Interval, PercentileKey, TotalSummary } from '../formats';
@@ -55,18 +55,21 @@ export function summarizeTotal(
     min: sorted[0],
     max: sorted[n - 1],
     percentiles,
-    percentileCI95: {
-      P10: percentileIntervalOfSorted(sorted, 0.1),
-      P50: percentileIntervalOfSorted(sorted, 0.5),
-      P80: percentileIntervalOfSorted(sorted, 0.8),
-      P90: percentileIntervalOfSorted(sorted, 0.9),
-    },
+    percentileCI95: Object.fromEntries(
+      PERCENTILES.map(([k, p]) => [k, percentileIntervalOfSorted(sorted, p)]),
+    ) as Record<PercentileKey, Interval>,
     contingency: {
       P50: contingencyOf({ base, percentiles }, 'P50'),
       P80: contingencyOf({ base, percentiles }, 'P80'),
       P90: contingencyOf({ base, percentiles }, 'P90'),
     },
   };
+  // The base is a constant, so the contingency's interval is the P-value's, shifted.
+  const shifted = (k: PercentileKey): Interval => {
+    const [lo, hi] = summary.percentileCI95[k];
+    return [lo - base, hi - base];
+  };
+  summary.contingencyCI95 = { P50: shifted('P50'), P80: shifted('P80'), P90: shifted('P90') };
   if (target !== undefined) {
     const k = countAtMost(sorted, target);
     summary.probabilityWithinTarget = { value: k / n, ci95: wilsonInterval(k, n) };

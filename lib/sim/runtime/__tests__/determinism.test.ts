@@ -6,6 +6,7 @@ import { simulateSync, type SimulationResult } from '../../index';
 import { runSimulation } from '../index';
 
 const project = JSON.parse(readFileSync('tests/fixtures/sim/small-project.json', 'utf8'));
+const projectV2 = JSON.parse(readFileSync('tests/fixtures/sim/v2-project.json', 'utf8'));
 const withoutTime = (r: SimulationResult) => ({ ...r, elapsedMs: 0 });
 
 describe('determinism across threads', () => {
@@ -17,6 +18,18 @@ describe('determinism across threads', () => {
     expect(withoutTime(simulateSync(project, options))).toStrictEqual(withoutTime(one));
     expect(one.iterations).toBe(12_345);
   });
+
+  it.each(['lhs', 'mc'] as const)(
+    'gives the same result with 1 and 2 threads for a version 2 model (%s)',
+    async (sampling) => {
+      const options = { iterations: 9_001, seed: 3, sampling };
+      const one = await runSimulation(projectV2, { ...options, threads: 1 });
+      const two = await runSimulation(projectV2, { ...options, threads: 2 });
+      expect(withoutTime(two)).toStrictEqual(withoutTime(one));
+      expect(withoutTime(simulateSync(projectV2, options))).toStrictEqual(withoutTime(one));
+      expect(one.mitigation?.used).toBe('post');
+    },
+  );
 
   it('changes with the seed, and a string seed works', () => {
     const a = simulateSync(project, { iterations: 2000, seed: 1 });
