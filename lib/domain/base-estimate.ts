@@ -13,19 +13,13 @@
  * that the grid's base column, its total row and the projects list agree with the run's base.
  * See docs/model-format.md.
  */
-import { createDistribution, type DistSpec, type ModelActivity, type ModelItem } from '@/lib/sim';
+import type { ModelActivity, ModelItem } from '@/lib/sim';
+import { baseDurationOf, baseOf } from './engine';
 
-const NOWHERE = { where: '', field: '' };
-
-/** The base of one distribution, as the engine defines it (throws on invalid parameters). */
-export function baseOf(spec: DistSpec): number {
-  return createDistribution(spec, NOWHERE).base;
-}
+export { baseOf };
 
 /** The base duration of an activity: never below 0 days, as in the engine's schedule. */
-export function baseDuration(spec: DistSpec): number {
-  return Math.max(0, baseOf(spec));
-}
+export const baseDuration = baseDurationOf;
 
 /** Base durations by activity id. */
 export function baseDurations(

@@ -9,6 +9,7 @@
  * so that one figure never reads differently in two places.
  */
 import type { PercentileKey, TotalSummary } from '@/lib/sim';
+import { contingencyOf } from './engine';
 
 export type Contingency = {
   level: PercentileKey;
@@ -31,5 +32,7 @@ export function contingencyAt(
   summary: Pick<TotalSummary, 'base' | 'percentiles'>,
   level: PercentileKey,
 ): Contingency {
-  return contingencyOver(summary.base, level, summary.percentiles[level]);
+  const value = summary.percentiles[level];
+  const amount = contingencyOf(summary, level);
+  return { level, value, amount, shareOfBase: summary.base ? amount / summary.base : null };
 }

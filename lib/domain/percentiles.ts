@@ -4,12 +4,10 @@
  * The list lives in the engine because the engine computes them; this module is the one place
  * the app takes them from.
  */
-import { PERCENTILES, type PercentileKey } from '@/lib/sim';
+import type { PercentileKey } from '@/lib/sim';
+import { PERCENTILES, PERCENTILE_KEYS } from './engine';
 
-export { PERCENTILES, type PercentileKey };
-
-/** The keys alone, in increasing order. */
-export const PERCENTILE_KEYS: readonly PercentileKey[] = PERCENTILES.map(([key]) => key);
+export { PERCENTILES, PERCENTILE_KEYS, type PercentileKey };
 
 /** The probability a key stands for (P80 → 0.8). */
 export function probabilityOf(key: PercentileKey): number {

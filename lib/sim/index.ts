@@ -10,7 +10,6 @@ export { simulateSync, prepareRun } from './engine';
 export { validateModel, parseModel, formatPath, type FieldIssue, type ValidationResult } from './validate';
 export { modelSchema, distSchema, settingsSchema } from './schema';
 export { iterationsForPrecision } from './stats/precision';
-export { PERCENTILES } from './stats/summary';
 export { InputError, ModelValidationError, SimulationCancelledError } from './errors';
 export { createDistribution } from './distributions';
 export type { Distribution } from './distributions';
