@@ -4,8 +4,8 @@
  * the simulation), the percentiles a result reports, and contingency over the base.
  *
  * Grids and charts run in the browser, so only the engine's pure modules may be reached from
- * here (never its threaded runner). Every other module of lib/domain imports the engine through
- * this file.
+ * here (never its threaded runner). The other modules of lib/domain take the engine's values
+ * from this file, and only its types from the door, lib/sim.
  */
 import { createDistribution, type DistLocation } from '@/lib/sim/distributions';
 import { PERCENTILES } from '@/lib/sim/stats/summary';
