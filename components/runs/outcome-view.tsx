@@ -11,7 +11,8 @@ import { CostFinishScatter } from '@/components/charts/cost-finish-scatter';
 import { ResultCautions } from '@/components/ui/notice';
 import type { SimulationResult, TotalSummary } from '@/lib/sim';
 import type { RunView } from '@/lib/services/runs/view';
-import { contingencyAt, percentileCurve, topDrivers, type SampleCharts } from '@/lib/runs/outcome-data';
+import { percentileCurve, topDrivers, type SampleCharts } from '@/lib/runs/outcome-data';
+import { contingencyAt } from '@/lib/domain/contingency';
 import { finishDate } from '@/lib/runs/working-days';
 import {
   formatCount,
@@ -147,8 +148,8 @@ export function OutcomeView({ project, run, result, charts, names }: OutcomeView
           />
           <Figure
             label={`Contingency at ${level}`}
-            value={money(chosen.contingency)}
-            sub={`over the base of ${money(cost.base)}${chosen.share !== null ? ` (${formatShare(chosen.share)})` : ''}`}
+            value={money(chosen.amount)}
+            sub={`over the base of ${money(cost.base)}${chosen.shareOfBase !== null ? ` (${formatShare(chosen.shareOfBase)})` : ''}`}
             testId="contingency"
           />
           <Figure
@@ -222,8 +223,8 @@ export function OutcomeView({ project, run, result, charts, names }: OutcomeView
               testId="cost-ptable"
             />
             <p className="text-xs text-ink-soft">
-              Contingency at the chosen {level}: <strong className="num">{money(chosen.contingency)}</strong>{' '}
-              over the base.
+              Contingency at the chosen {level}: <strong className="num">{money(chosen.amount)}</strong> over
+              the base.
             </p>
           </div>
         </div>

@@ -5,11 +5,13 @@
 import { checkAgainstClass, type ClassCheck } from './estimate-class';
 import { topRiskExposures, type RiskExposure } from './risk-exposure';
 import { percentileCurve, topDrivers, type Point } from '@/lib/runs/outcome-data';
-import type { Interval, Model, PercentileKey, SimulationResult, TotalSummary } from '@/lib/sim';
+import type { Interval, Model, SimulationResult, TotalSummary } from '@/lib/sim';
+import { contingencyAt, type Contingency } from '@/lib/domain/contingency';
+import { CONFIDENCE_LEVELS, type ConfidenceLevel } from '@/lib/validation/runs';
 
 export const BRIEF_LEVELS = ['P10', 'P50', 'P80', 'P90'] as const;
 export type BriefLevel = (typeof BRIEF_LEVELS)[number];
-type ContingencyLevel = 'P50' | 'P70' | 'P80' | 'P90';
+type ContingencyLevel = ConfidenceLevel;
 
 export type PercentileRow = { level: BriefLevel; value: number; ci95: Interval };
 
@@ -64,7 +66,7 @@ export type BriefData = {
   run: BriefRun;
   cost: TotalBrief;
   duration: TotalBrief | null;
-  contingency: { level: ContingencyLevel; value: number; amount: number; shareOfBase: number | null };
+  contingency: Contingency & { level: ContingencyLevel };
   joint: { probability: number; ci95: Interval } | null;
   drivers: DriverBrief[];
   topRisks: RiskExposure[];
@@ -87,8 +89,6 @@ export type BriefSource = {
 export function percentileOf(total: TotalBrief, level: BriefLevel): PercentileRow {
   return total.percentiles.find((p) => p.level === level)!;
 }
-
-const CONTINGENCY_LEVELS: ContingencyLevel[] = ['P50', 'P70', 'P80', 'P90'];
 
 function totalBrief(summary: TotalSummary): TotalBrief {
   return {
@@ -114,7 +114,7 @@ function inputNames(model: Model): Map<string, string> {
 
 export function buildBrief(source: BriefSource, { drivers = 10, risks = 8 } = {}): BriefData {
   const { result, snapshot, project } = source;
-  const level = (CONTINGENCY_LEVELS as string[]).includes(source.run.confidence ?? '')
+  const level = (CONFIDENCE_LEVELS as readonly string[]).includes(source.run.confidence ?? '')
     ? (source.run.confidence as ContingencyLevel)
     : 'P80';
 
@@ -130,7 +130,6 @@ export function buildBrief(source: BriefSource, { drivers = 10, risks = 8 } = {}
       duration.target = { value: snapshot.targets.duration, probability: onTime.value, ci95: onTime.ci95 };
   }
 
-  const atLevel = result.cost.percentiles[level as PercentileKey];
   const names = inputNames(snapshot);
   let classCheck: ClassCheck | null = null;
   if (result.cost.base > 0 && project.estimateClass >= 1 && project.estimateClass <= 5)
@@ -152,12 +151,7 @@ export function buildBrief(source: BriefSource, { drivers = 10, risks = 8 } = {}
     },
     cost,
     duration,
-    contingency: {
-      level,
-      value: atLevel,
-      amount: atLevel - result.cost.base,
-      shareOfBase: result.cost.base ? (atLevel - result.cost.base) / result.cost.base : null,
-    },
+    contingency: { ...contingencyAt(result.cost, level), level },
     joint: result.joint ?? null,
     drivers: topDrivers(result.sensitivity.cost, drivers).map((d) => ({
       ...d,

@@ -3,6 +3,7 @@
  * them. Contingency is measured at P80 for every baseline (P80 − base), so that the drawdown
  * compares like with like even when runs were started to fund at different levels.
  */
+import { contingencyAt } from '@/lib/domain/contingency';
 import type { SimulationResult } from '@/lib/sim';
 
 export type BaselineSource = {
@@ -37,7 +38,7 @@ export function trendRows(baselines: BaselineSource[]): TrendRow[] {
   let previous: number | null = null;
   return ordered.map((b) => {
     const { base, percentiles } = b.result.cost;
-    const contingencyP80 = percentiles.P80 - base;
+    const contingencyP80 = contingencyAt(b.result.cost, 'P80').amount;
     const row: TrendRow = {
       approvalId: b.approvalId,
       runId: b.runId,

@@ -1,8 +1,10 @@
-// The base (deterministic) estimate: each line's base amount, or its distribution's base
-// (mode, midpoint, mean, median or value; see "base" in docs/model-format.md); a per-day line is
-// its rate's base times its activity's base duration.
+// The base estimate of register rows as the grids and the projects list hold them (flat cells):
+// each row becomes the model entry it exports as, and its base is lib/domain's rule, the engine's
+// (durations floored at 0 days; a per-day line is its rate's base times its activity's base).
 
-import { specFromParts, baseOf, type DistParts, type DistType } from './dist-fields';
+import { baseDuration, itemBase } from '@/lib/domain/base-estimate';
+import type { ModelItem } from '@/lib/sim';
+import { specFromParts, type DistParts, type DistType } from './dist-fields';
 
 type LineCells = Omit<DistParts, 'type'> & {
   distType: DistType | null;
@@ -12,30 +14,36 @@ type LineCells = Omit<DistParts, 'type'> & {
 };
 type ActivityCells = Omit<DistParts, 'type'> & { code: string; distType: DistType };
 
+/** Base durations by activity code, of the rows whose cells describe a duration. */
 export function activityBaseDurations(activities: ActivityCells[]): Map<string, number> {
   const out = new Map<string, number>();
   for (const a of activities) {
     const r = specFromParts({ ...a, type: a.distType });
-    if (r.ok) out.set(a.code, baseOf(r.spec));
+    if (r.ok) out.set(a.code, baseDuration(r.spec));
   }
   return out;
 }
 
-/** The line's base amount, or null when its cells do not yet describe one. */
-export function lineBase(line: LineCells, durations: Map<string, number>): number | null {
-  if (line.basis === 'per-day') {
-    if (!line.distType || !line.activityCode) return line.base;
-    const r = specFromParts({ ...line, type: line.distType });
-    const days = durations.get(line.activityCode);
-    if (line.base !== null) return line.base;
-    return r.ok && days !== undefined ? baseOf(r.spec) * days : null;
-  }
-  if (line.base !== null) return line.base;
-  if (!line.distType) return null;
+/** The line as a model entry, or null when its cells do not yet describe one. */
+function itemOf(line: LineCells): Omit<ModelItem, 'id'> | null {
+  const base = line.base ?? undefined;
+  if (!line.distType) return base === undefined ? null : { base };
   const r = specFromParts({ ...line, type: line.distType });
-  return r.ok ? baseOf(r.spec) : null;
+  if (!r.ok) return base === undefined ? null : { base };
+  if (line.basis === 'per-day') {
+    if (!line.activityCode) return base === undefined ? null : { base };
+    return { base, ratePerDay: r.spec, activity: line.activityCode };
+  }
+  return { base, dist: r.spec };
 }
 
+/** The line's base amount, or null when its cells do not yet describe one. */
+export function lineBase(line: LineCells, durations: Map<string, number>): number | null {
+  const item = itemOf(line);
+  return item ? itemBase(item, durations) : null;
+}
+
+/** The base estimate of the rows: Σ line bases (lines not yet complete count 0). */
 export function baseEstimate(lines: LineCells[], activities: ActivityCells[]): number {
   const durations = activityBaseDurations(activities);
   return lines.reduce((sum, l) => sum + (lineBase(l, durations) ?? 0), 0);

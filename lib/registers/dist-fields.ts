@@ -170,8 +170,3 @@ export function meanOf(spec: DistSpec): number {
   }
   return m;
 }
-
-/** The distribution's base (mode, midpoint, mean, median or value) without computing quantiles. */
-export function baseOf(spec: DistSpec): number {
-  return createDistribution(spec, { where: '', field: '' }).base;
-}

@@ -3,8 +3,8 @@
  * Pure functions on plain numbers, shared by the server (summaries) and the charts.
  */
 
-import type { PercentileKey, SensitivityEntry, TotalSummary } from '@/lib/sim';
-import type { ConfidenceLevel } from '@/lib/validation/runs';
+import { PERCENTILES } from '@/lib/domain/percentiles';
+import type { SensitivityEntry, TotalSummary } from '@/lib/sim';
 
 export type Point = { x: number; y: number };
 
@@ -40,52 +40,13 @@ export function empiricalCurve(values: ArrayLike<number>, maxPoints = 200): Poin
   return [{ x: sorted[0], y: 0 }, ...out];
 }
 
-const CURVE_KEYS: [PercentileKey, number][] = [
-  ['P5', 0.05],
-  ['P10', 0.1],
-  ['P20', 0.2],
-  ['P30', 0.3],
-  ['P40', 0.4],
-  ['P50', 0.5],
-  ['P60', 0.6],
-  ['P70', 0.7],
-  ['P80', 0.8],
-  ['P90', 0.9],
-  ['P95', 0.95],
-];
-
 /** The S-curve through the result's own percentiles (all iterations), from min to max. */
 export function percentileCurve(summary: TotalSummary): Point[] {
   return [
     { x: summary.min, y: 0 },
-    ...CURVE_KEYS.map(([k, p]) => ({ x: summary.percentiles[k], y: p })),
+    ...PERCENTILES.map(([k, p]) => ({ x: summary.percentiles[k], y: p })),
     { x: summary.max, y: 1 },
   ];
-}
-
-export const TABLE_KEYS: PercentileKey[] = [
-  'P5',
-  'P10',
-  'P20',
-  'P30',
-  'P40',
-  'P50',
-  'P60',
-  'P70',
-  'P80',
-  'P90',
-  'P95',
-];
-
-/** The percentile at a confidence level, and the contingency it implies over the base. */
-export function contingencyAt(summary: TotalSummary, level: ConfidenceLevel) {
-  const value = summary.percentiles[level];
-  return {
-    level,
-    value,
-    contingency: value - summary.base,
-    share: summary.base ? (value - summary.base) / summary.base : null,
-  };
 }
 
 /** The strongest drivers first, by the size of their rank correlation. */

@@ -2,25 +2,23 @@ import { Activity, CostItem, Correlation, Project, RiskEvent, sequelize } from '
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
 import { badRequest, forbidden } from '@/lib/errors';
-import { validateModel, type Model, type ModelActivity, type ModelItem, type ModelRisk } from '@/lib/sim';
+import { validateModel, type Model } from '@/lib/sim';
 import { recordAudit } from './audit';
 import { findProject } from './projects';
 import { insertRows } from './registers/insert';
 import { json } from './registers/rows';
 import { assertWritable } from './write-access';
+import {
+  registersToModel,
+  type ModelExport,
+  type RegisterRecords,
+  type RiskValues,
+} from '@/lib/domain/model-export';
 
-export type RiskValues = 'pre' | 'post';
+export type { RiskValues };
 
-/**
- * The project's registers as the engine's model file (docs/model-format.md):
- * codes become ids, links by row id become links by code. With `riskValues: 'post'` each
- * risk uses its post-mitigation probability and impacts where they are given.
- */
-export async function exportModel(
-  actor: Actor,
-  projectId: number,
-  options: { riskValues?: RiskValues } = {},
-): Promise<Model> {
+/** The project's register records, JSON columns parsed and links by row id resolved to codes. */
+async function loadRecords(actor: Actor, projectId: number): Promise<RegisterRecords> {
   const project = await findProject(actor, projectId);
   const where = { projectId: project.id, organizationId: actor.organizationId };
   const order: [string, string][] = [
@@ -33,57 +31,60 @@ export async function exportModel(
     RiskEvent.findAll({ where, order }),
     Correlation.findAll({ where, order: [['id', 'ASC']] }),
   ]);
-  const activityCode = new Map(activities.map((a) => [a.id, a.code]));
-  const post = options.riskValues === 'post';
-
-  const modelActivities: ModelActivity[] = activities.map((a) => ({
-    id: a.code,
-    name: a.name,
-    duration: json(a.duration),
-    predecessors: (json<{ code: string; lag: number }[] | null>(a.predecessors) ?? []).map((p) =>
-      p.lag ? { id: p.code, lag: p.lag } : p.code,
-    ),
-  }));
-
-  const modelItems: ModelItem[] = items.map((i) => {
-    const item: ModelItem = { id: i.code, name: i.description };
-    if (i.base !== null && i.base !== undefined) item.base = i.base;
-    const dist = json<ModelItem['dist'] | null>(i.dist);
-    const rate = json<ModelItem['ratePerDay'] | null>(i.ratePerDay);
-    if (dist) item.dist = dist;
-    if (rate !== null && rate !== undefined) {
-      item.ratePerDay = rate;
-      if (i.activityId) item.activity = activityCode.get(i.activityId);
-    }
-    return item;
-  });
-
-  const modelRisks: ModelRisk[] = risks
-    .filter((r) => r.status !== 'closed')
-    .map((r) => {
-      const probability = post && r.postProbability !== null ? r.postProbability : r.probability;
-      const cost = json<ModelRisk['cost'] | null>(post && r.postCostImpact ? r.postCostImpact : r.costImpact);
-      const delay = json<ModelRisk['delay'] | null>(
-        post && r.postDelayImpact ? r.postDelayImpact : r.delayImpact,
-      );
-      const risk: ModelRisk = { id: r.code, name: r.title, probability };
-      if (cost) risk.cost = cost;
-      if (delay) risk.delay = delay;
-      if (r.activityId && delay) risk.activity = activityCode.get(r.activityId);
-      return risk;
-    });
-
-  const model: Model = {
-    format: 'outturn-model',
-    version: 1,
-    name: project.name,
-    currency: project.currency,
-    items: modelItems,
-    risks: modelRisks,
-    activities: modelActivities,
-    correlations: correlations.map((c) => ({ a: c.aCode, b: c.bCode, rho: c.rho })),
+  const codeOf = new Map(activities.map((a) => [a.id, a.code]));
+  const activityCode = (id: number | null | undefined) => (id ? (codeOf.get(id) ?? null) : null);
+  return {
+    project: { name: project.name, currency: project.currency },
+    activities: activities.map((a) => ({
+      code: a.code,
+      name: a.name,
+      duration: json(a.duration),
+      predecessors: json(a.predecessors),
+    })),
+    items: items.map((i) => ({
+      code: i.code,
+      description: i.description,
+      base: i.base ?? null,
+      dist: json(i.dist) ?? null,
+      ratePerDay: json(i.ratePerDay) ?? null,
+      activityCode: activityCode(i.activityId),
+    })),
+    risks: risks.map((r) => ({
+      code: r.code,
+      title: r.title,
+      status: r.status,
+      probability: r.probability,
+      costImpact: json(r.costImpact) ?? null,
+      delayImpact: json(r.delayImpact) ?? null,
+      postProbability: r.postProbability ?? null,
+      postCostImpact: json(r.postCostImpact) ?? null,
+      postDelayImpact: json(r.postDelayImpact) ?? null,
+      activityCode: activityCode(r.activityId),
+    })),
+    correlations: correlations.map((c) => ({ aCode: c.aCode, bCode: c.bCode, rho: c.rho })),
   };
-  return model;
+}
+
+/**
+ * The project's registers as the engine's model file, with notices of what was left out (the
+ * rules live in lib/domain/model-export). With `riskValues: 'post'` each risk uses its
+ * post-mitigation probability and impacts where they are given.
+ */
+export async function exportModelFile(
+  actor: Actor,
+  projectId: number,
+  options: { riskValues?: RiskValues } = {},
+): Promise<ModelExport> {
+  return registersToModel(await loadRecords(actor, projectId), options);
+}
+
+/** The model file alone (see exportModelFile). */
+export async function exportModel(
+  actor: Actor,
+  projectId: number,
+  options: { riskValues?: RiskValues } = {},
+): Promise<Model> {
+  return (await exportModelFile(actor, projectId, options)).model;
 }
 
 /**

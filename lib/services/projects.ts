@@ -57,7 +57,10 @@ export async function listProjects(actor: Actor, { includeArchived = false } = {
   return rows.map(toProjectView);
 }
 
-/** The list with each project's base estimate (sum of line bases). */
+/**
+ * The list with each project's base estimate: the sum of line bases by the one base rule
+ * (lib/domain/base-estimate), the figure the grid's total row shows and a run starts from.
+ */
 export async function listProjectsWithEstimates(
   actor: Actor,
   options: { includeArchived?: boolean } = {},

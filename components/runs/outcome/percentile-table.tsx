@@ -1,5 +1,6 @@
 import type { PercentileKey, TotalSummary } from '@/lib/sim';
-import { TABLE_KEYS } from '@/lib/runs/outcome-data';
+import { PERCENTILE_KEYS } from '@/lib/domain/percentiles';
+import { contingencyAt } from '@/lib/domain/contingency';
 
 /**
  * The P-table: each confidence level with its value and, where the result holds it, the
@@ -37,7 +38,7 @@ export function PercentileTable({
         </tr>
       </thead>
       <tbody>
-        {TABLE_KEYS.map((k) => {
+        {PERCENTILE_KEYS.map((k) => {
           const v = summary.percentiles[k];
           const strong = k === 'P50' || k === 'P80';
           return (
@@ -50,7 +51,9 @@ export function PercentileTable({
               <td className="num whitespace-nowrap py-0.5 pr-2 text-xs text-ink-soft">
                 {ci[k] ? `${format(ci[k][0])} – ${format(ci[k][1])}` : '—'}
               </td>
-              {withContingency ? <td className="num py-0.5">{format(v - summary.base)}</td> : null}
+              {withContingency ? (
+                <td className="num py-0.5">{format(contingencyAt(summary, k).amount)}</td>
+              ) : null}
             </tr>
           );
         })}

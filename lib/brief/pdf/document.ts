@@ -5,6 +5,7 @@
  */
 import PDFDocument from 'pdfkit';
 import { formatDays, formatMoney } from '@/lib/runs/format';
+import { contingencyOver } from '@/lib/domain/contingency';
 import { percentileOf, type BriefData, type TotalBrief } from '../build';
 import { dateText, dateTimeText, moneyWithInterval, probabilityText, signedPercent } from '../format';
 import { BRIEF_CAUTION, classRangeText, simulatedRangeText } from '../wording';
@@ -120,12 +121,14 @@ class Writer {
   }
 }
 
+const shareText = (share: number | null) => (share === null ? '—' : signedPercent(share));
+
 function percentileRows(total: TotalBrief, show: (v: number) => string): string[][] {
   return total.percentiles.map((p) => [
     p.level,
     show(p.value),
     `${show(p.ci95[0])} – ${show(p.ci95[1])}`,
-    total.base ? signedPercent(p.value / total.base - 1) : '—',
+    shareText(contingencyOver(total.base, p.level, p.value).shareOfBase),
   ]);
 }
 

@@ -12,7 +12,7 @@ import { validateModel, type Model, type SimulationResult } from '@/lib/sim';
 import { workingDaysThrough } from '@/lib/runs/working-days';
 import { snapshotHash } from '@/lib/runs/snapshot-hash';
 import { recordAudit } from '../audit';
-import { exportModel } from '../model-file';
+import { exportModelFile } from '../model-file';
 import { findProject } from '../projects';
 import { assertWritable } from '../write-access';
 import { abortActive, dequeue, isActive } from './queue';
@@ -106,12 +106,17 @@ function snapshotOf(model: Model, settings: RunSettings): Model {
   };
 }
 
-export async function startRun(actor: Actor, projectId: number, input: unknown): Promise<RunView> {
+/** The run, and the notices of what the model left out of the registers (shown with the reply). */
+export async function startRun(
+  actor: Actor,
+  projectId: number,
+  input: unknown,
+): Promise<RunView & { notices: string[] }> {
   assertMay(actor, 'run:start');
   const project = await findProject(actor, projectId);
   const settings = resolveSettings(input, project.baseDate);
   await assertWritable(actor.organizationId);
-  const model = await exportModel(actor, project.id, { riskValues: settings.riskValues });
+  const { model, notices } = await exportModelFile(actor, project.id, { riskValues: settings.riskValues });
   if (model.items.length === 0 && (model.risks ?? []).length === 0 && (model.activities ?? []).length === 0) {
     throw badRequest('There is nothing to simulate yet: add line items, risk events or activities first.');
   }
@@ -149,7 +154,7 @@ export async function startRun(actor: Actor, projectId: number, input: unknown):
     return created;
   });
   schedule({ runId: run.id, organizationId: actor.organizationId });
-  return viewOf(await findRun(actor, project.id, run.id));
+  return { ...(await viewOf(await findRun(actor, project.id, run.id))), notices };
 }
 
 export async function listRuns(actor: Actor, projectId: number, { limit = 100 } = {}): Promise<RunView[]> {
