@@ -4,12 +4,12 @@ import { describe, expect, it } from 'vitest';
 import { parseRows, type RegisterKind } from '@/lib/validation/registers';
 import {
   planBatch,
-  sameFields,
   type ParsedBatch,
   type PlanOptions,
   type RegisterSnapshot,
   type WritePlan,
 } from '@/lib/services/registers/plan';
+import { sameFields } from '@/lib/services/registers/plan-diff';
 import type { ActivityRow, CorrelationRow, LineItemRow, RiskRow } from '@/lib/services/registers/rows';
 
 const PROJECT = 41;
