@@ -31,6 +31,8 @@ export class Activity extends Model<InferAttributes<Activity>, InferCreationAttr
 Activity.init(
   {
     id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+    organizationId: { type: DataTypes.INTEGER, allowNull: false },
+    projectId: { type: DataTypes.INTEGER, allowNull: false },
     code: { type: DataTypes.STRING(40), allowNull: false },
     name: { type: DataTypes.STRING(255), allowNull: false },
     duration: { type: DataTypes.JSON, allowNull: false },

@@ -26,6 +26,8 @@ export class Correlation extends Model<InferAttributes<Correlation>, InferCreati
 Correlation.init(
   {
     id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+    organizationId: { type: DataTypes.INTEGER, allowNull: false },
+    projectId: { type: DataTypes.INTEGER, allowNull: false },
     aCode: { type: DataTypes.STRING(40), allowNull: false },
     bCode: { type: DataTypes.STRING(40), allowNull: false },
     rho: { type: DataTypes.DOUBLE, allowNull: false },

@@ -37,11 +37,14 @@ export class CostItem extends Model<InferAttributes<CostItem>, InferCreationAttr
 CostItem.init(
   {
     id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+    organizationId: { type: DataTypes.INTEGER, allowNull: false },
+    projectId: { type: DataTypes.INTEGER, allowNull: false },
     code: { type: DataTypes.STRING(40), allowNull: false },
     description: { type: DataTypes.STRING(255), allowNull: false },
     base: { type: DataTypes.DOUBLE, allowNull: true },
     dist: { type: DataTypes.JSON, allowNull: true },
     ratePerDay: { type: DataTypes.JSON, allowNull: true },
+    activityId: { type: DataTypes.INTEGER, allowNull: true },
     ownerName: { type: DataTypes.STRING(120), allowNull: true },
     notes: { type: DataTypes.TEXT, allowNull: true },
     sortOrder: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },

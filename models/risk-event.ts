@@ -45,6 +45,8 @@ export class RiskEvent extends Model<InferAttributes<RiskEvent>, InferCreationAt
 RiskEvent.init(
   {
     id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+    organizationId: { type: DataTypes.INTEGER, allowNull: false },
+    projectId: { type: DataTypes.INTEGER, allowNull: false },
     code: { type: DataTypes.STRING(40), allowNull: false },
     title: { type: DataTypes.STRING(255), allowNull: false },
     cause: { type: DataTypes.TEXT, allowNull: true },
@@ -56,6 +58,7 @@ RiskEvent.init(
     probability: { type: DataTypes.DOUBLE, allowNull: false },
     costImpact: { type: DataTypes.JSON, allowNull: true },
     delayImpact: { type: DataTypes.JSON, allowNull: true },
+    activityId: { type: DataTypes.INTEGER, allowNull: true },
     postProbability: { type: DataTypes.DOUBLE, allowNull: true },
     postCostImpact: { type: DataTypes.JSON, allowNull: true },
     postDelayImpact: { type: DataTypes.JSON, allowNull: true },

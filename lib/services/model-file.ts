@@ -5,7 +5,6 @@ import { badRequest, forbidden } from '@/lib/errors';
 import { validateModel, type Model } from '@/lib/sim';
 import { recordAudit } from './audit';
 import { findProject } from './projects';
-import { insertRows } from './registers/insert';
 import { json } from './registers/rows';
 import { assertWritable } from './write-access';
 import {
@@ -120,8 +119,7 @@ export async function importModel(
       await (model as typeof Correlation).destroy({ where: scope, transaction });
     }
     const activities = model.activities ?? [];
-    await insertRows(
-      'Activities',
+    await Activity.bulkCreate(
       activities.map((a, i) => ({
         ...scope,
         code: a.id,
@@ -133,12 +131,11 @@ export async function importModel(
         sortOrder: i,
         version: 1,
       })),
-      transaction,
+      { transaction },
     );
     const saved = await Activity.findAll({ where: scope, attributes: ['id', 'code'], transaction });
     const activityId = new Map(saved.map((a) => [a.code, a.id]));
-    await insertRows(
-      'CostItems',
+    await CostItem.bulkCreate(
       model.items.map((item, i) => ({
         ...scope,
         code: item.id,
@@ -152,11 +149,10 @@ export async function importModel(
         notes: null,
         sortOrder: i,
       })),
-      transaction,
+      { transaction },
     );
     const risks = model.risks ?? [];
-    await insertRows(
-      'RiskEvents',
+    await RiskEvent.bulkCreate(
       risks.map((r, i) => ({
         ...scope,
         code: r.id,
@@ -178,13 +174,12 @@ export async function importModel(
         sortOrder: i,
         version: 1,
       })),
-      transaction,
+      { transaction },
     );
     const correlations = model.correlations ?? [];
-    await insertRows(
-      'Correlations',
+    await Correlation.bulkCreate(
       correlations.map((c) => ({ ...scope, aCode: c.a, bCode: c.b, rho: c.rho, version: 1 })),
-      transaction,
+      { transaction },
     );
     await recordAudit(
       actor,

@@ -1,4 +1,5 @@
 import { describe, expect, it, beforeAll } from 'vitest';
+import mariadb from 'mariadb';
 import { newOrganisation, type Client } from './helpers/http';
 import { count, rows } from './helpers/db';
 
@@ -206,5 +207,131 @@ describe('saving register rows', () => {
     expect(res.json.entries[0].who).toContain('reg-batch owner');
     const older = await client.get(`/api/projects/${projectId}/audit?limit=3&before=${res.json.next}`);
     expect(older.json.entries[0].id).toBeLessThan(res.json.entries[2].id);
+  });
+});
+
+describe('saving many rows at the versions they were read', () => {
+  let client: Client;
+  let projectId: number;
+  let url: string;
+
+  const saved = async () =>
+    rows<{ id: number; base: number | null; version: number }>(
+      'SELECT id, base, version FROM CostItems WHERE projectId = ? ORDER BY id',
+      [projectId],
+    );
+  const audited = () => count('AuditEntries', "projectId = ? AND entity = 'cost-item'", [projectId]);
+
+  beforeAll(async () => {
+    client = (await newOrganisation('reg-bulk')).client;
+    projectId = (await client.post('/api/projects', projectInput('BAT-2'))).json.project.id;
+    url = `/api/projects/${projectId}/items`;
+    const made = await client.post(url, {
+      upserts: Array.from({ length: 120 }, (_, i) => line(`7.${i + 1}`)),
+    });
+    expect(made.status).toBe(200);
+  });
+
+  it('refuses a paste of 120 rows with one stale version: 409 with the current row, nothing written', async () => {
+    const list = (await client.get(url)).json.rows;
+    const before = await saved();
+    const auditBefore = await audited();
+    const res = await client.post(url, {
+      upserts: list.map((r: any, i: number) => ({
+        ...r,
+        base: 500 + i,
+        version: i === 77 ? r.version + 1 : r.version,
+      })),
+    });
+    expect(res.status).toBe(409);
+    expect(res.json.error.details.conflicts).toEqual([
+      { id: list[77].id, current: expect.objectContaining({ id: list[77].id, version: list[77].version }) },
+    ]);
+    expect(await saved()).toEqual(before);
+    expect(await audited()).toBe(auditBefore);
+  });
+
+  it('fails the whole paste when a row changes between the read and the write', async () => {
+    const list = (await client.get(url)).json.rows;
+    const before = await saved();
+    const auditBefore = await audited();
+    const target = list[60];
+    // Another writer that skips the project's lock: it holds row 61 until it commits.
+    const other = await mariadb.createConnection({
+      host: process.env.DB_HOST ?? '127.0.0.1',
+      port: Number(process.env.DB_PORT ?? 3307),
+      user: process.env.DB_USER ?? 'outturn',
+      password: process.env.DB_PASSWORD,
+      database: process.env.DB_NAME ?? 'outturn_test',
+    });
+    try {
+      await other.beginTransaction();
+      await other.query('UPDATE CostItems SET base = 999, version = version + 1 WHERE id = ?', [target.id]);
+      const pending = client.post(url, {
+        upserts: list.map((r: any, i: number) => ({ ...r, base: 700 + i })),
+      });
+      // Long enough for the save to read the register and block on row 61; if it has not got
+      // that far, it reads the committed row instead and refuses the batch just the same.
+      await new Promise((resolve) => setTimeout(resolve, 1500));
+      await other.commit();
+      const res = await pending;
+      expect(res.status).toBe(409);
+      expect(res.json.error.details.conflicts).toEqual([
+        { id: target.id, current: expect.objectContaining({ base: 999, version: target.version + 1 }) },
+      ]);
+    } finally {
+      await other.end();
+    }
+    const after = await saved();
+    expect(after.filter((r) => r.id !== target.id)).toEqual(before.filter((r) => r.id !== target.id));
+    expect(after.find((r) => r.id === target.id)).toEqual({
+      id: target.id,
+      base: 999,
+      version: target.version + 1,
+    });
+    expect(await audited()).toBe(auditBefore);
+  });
+
+  it('writes and audits only the rows whose fields changed', async () => {
+    const list = (await client.get(url)).json.rows;
+    const auditBefore = await audited();
+    const res = await client.post(url, {
+      upserts: list.slice(0, 30).map((r: any, i: number) => (i < 3 ? { ...r, notes: `changed ${i}` } : r)),
+    });
+    expect(res.status).toBe(200);
+    expect(res.json.updated).toBe(30);
+    const versions = new Map<number, number>(res.json.rows.map((r: any) => [r.id, r.version]));
+    expect(list.slice(0, 30).map((r: any) => (versions.get(r.id) ?? 0) - r.version)).toEqual(
+      Array.from({ length: 30 }, (_, i) => (i < 3 ? 1 : 0)),
+    );
+    expect(await audited()).toBe(auditBefore + 3);
+  });
+
+  it('treats another organisation’s row id as not found in this project and writes nothing', async () => {
+    const outsider = (await newOrganisation('reg-bulk-other')).client;
+    const theirProject = (await outsider.post('/api/projects', projectInput('BAT-3'))).json.project.id;
+    const theirs = (await outsider.post(`/api/projects/${theirProject}/items`, { upserts: [line('8.1')] }))
+      .json.rows[0];
+    const countBefore = await count('CostItems', 'projectId = ?', [projectId]);
+    const auditBefore = await audited();
+
+    const res = await client.post(url, {
+      upserts: [line('8.2'), { ...theirs, base: 1, id: theirs.id, version: theirs.version }],
+    });
+    expect(res.status).toBe(409);
+    expect(res.json.error.details.conflicts).toEqual([{ id: theirs.id, current: null }]);
+    const removed = await client.post(url, { deletes: [{ id: theirs.id, version: theirs.version }] });
+    expect(removed.status).toBe(409);
+    expect(removed.json.error.details.conflicts).toEqual([{ id: theirs.id, current: null }]);
+    const put = await client.put(`${url}/${theirs.id}`, { ...theirs, base: 2 });
+    expect(put.status).toBe(409);
+
+    const [row] = await rows<{ base: number | null; version: number; projectId: number }>(
+      'SELECT base, version, projectId FROM CostItems WHERE id = ?',
+      [theirs.id],
+    );
+    expect(row).toEqual({ base: null, version: theirs.version, projectId: theirProject });
+    expect(await count('CostItems', 'projectId = ?', [projectId])).toBe(countBefore);
+    expect(await audited()).toBe(auditBefore);
   });
 });

@@ -6,7 +6,7 @@ import { checkNetwork } from '@/lib/sim';
 import type { FieldIssue } from '@/lib/errors';
 import type { RegisterKind } from '@/lib/validation/registers';
 import type { ActivityRow, CorrelationRow, LineItemRow, RiskRow } from './rows';
-import { REGISTER_LABEL } from './state';
+import { REGISTER_LABEL } from './kinds';
 
 export type NextState = {
   items: LineItemRow[];

@@ -76,7 +76,7 @@ export function itemRow(r: CostItem, activityCode: Map<number, string>): LineIte
   };
 }
 
-export function itemAttributes(d: LineItemData, activityId: Map<string, number>) {
+export function itemAttributes(d: LineItemData, activityId: ReadonlyMap<string, number>) {
   const spec = d.distType ? specOf({ ...d, type: d.distType }) : null;
   const perDay = d.basis === 'per-day';
   return {
@@ -129,7 +129,7 @@ export function riskRow(r: RiskEvent, activityCode: Map<number, string>): RiskRo
 const anySet = (d: RiskData, prefix: string) =>
   ['Low', 'Mode', 'High'].some((k) => (d as Record<string, unknown>)[`${prefix}${k}`] !== null);
 
-export function riskAttributes(d: RiskData, activityId: Map<string, number>) {
+export function riskAttributes(d: RiskData, activityId: ReadonlyMap<string, number>) {
   const spec = (prefix: 'cost' | 'delay' | 'postCost' | 'postDelay') => {
     const parts = impactParts(d, prefix);
     if (!parts || (prefix.startsWith('post') && !anySet(d, prefix))) return null;

@@ -9,12 +9,15 @@ import {
   itemRow,
   riskRow,
   type ActivityRow,
+  type AnyRow,
   type CorrelationRow,
   type LineItemRow,
   type RiskRow,
 } from './rows';
 
 export type RegisterState = {
+  projectId: number;
+  organizationId: number;
   items: LineItemRow[];
   risks: RiskRow[];
   activities: ActivityRow[];
@@ -45,6 +48,8 @@ export async function loadState(
   ]);
   const activityCodeById = new Map(activities.map((a) => [a.id, a.code]));
   return {
+    projectId,
+    organizationId,
     activities: activities.map(activityRow),
     items: items.map((i) => itemRow(i, activityCodeById)),
     risks: risks.map((r) => riskRow(r, activityCodeById)),
@@ -54,28 +59,33 @@ export async function loadState(
   };
 }
 
-export const MODELS = {
-  items: CostItem,
-  risks: RiskEvent,
-  activities: Activity,
-  correlations: Correlation,
-} as const;
-
-export const ENTITY: Record<RegisterKind, string> = {
-  items: 'cost-item',
-  risks: 'risk-event',
-  activities: 'activity',
-  correlations: 'correlation',
-};
-
-export const REGISTER_LABEL: Record<RegisterKind, string> = {
-  items: 'line item',
-  risks: 'risk event',
-  activities: 'activity',
-  correlations: 'correlation',
-};
-
-/** The code a row is known by (a pair for correlations). */
-export function rowCode(kind: RegisterKind, row: { code?: string; aCode?: string; bCode?: string }): string {
-  return kind === 'correlations' ? `${row.aCode}–${row.bCode}` : String(row.code);
+/**
+ * Rows of one register as they are now, past the transaction's snapshot (a locking read sees
+ * what another transaction committed since this one first read): the conflict reply shows them.
+ */
+export async function currentRows(
+  kind: RegisterKind,
+  ids: number[],
+  state: Pick<RegisterState, 'projectId' | 'organizationId' | 'activityCodeById'>,
+  transaction: Transaction,
+): Promise<AnyRow[]> {
+  const options = {
+    where: { projectId: state.projectId, organizationId: state.organizationId, id: ids },
+    lock: transaction.LOCK.UPDATE,
+    transaction,
+  };
+  const codes = state.activityCodeById;
+  switch (kind) {
+    case 'items':
+      return (await CostItem.findAll(options)).map((r) => itemRow(r, codes));
+    case 'risks':
+      return (await RiskEvent.findAll(options)).map((r) => riskRow(r, codes));
+    case 'activities':
+      return (await Activity.findAll(options)).map(activityRow);
+    case 'correlations':
+      return (await Correlation.findAll(options)).map(correlationRow);
+  }
 }
+
+// Names of the registers live in a module without models, so that pure code can use them.
+export { ENTITY, REGISTER_LABEL, rowCode } from './kinds';
