@@ -5,7 +5,7 @@ import { parseOrThrow } from '@/lib/validation/parse';
 import { signUpSchema } from '@/lib/validation/auth';
 import type { Actor } from '@/lib/auth/actor';
 import type { Role } from '@/lib/auth/roles';
-import { startTrial } from './billing';
+import { startTrial } from './billing/subscription-changes';
 
 const HASH_ROUNDS = 10;
 let dummyHash: string | undefined;
