@@ -29,7 +29,7 @@
  * /projects/:id/runs/:runId/brief (absolute, from APP_URL).
  *
  * In development the mail lands in the local fake at http://localhost:2580 (scripts/fakes/mail.ts);
- * tests read it with `lib/mail/fake-inbox/client.ts`.
+ * tests read it with `scripts/fakes/mail/client.ts`.
  */
 export { MAIL_KINDS, OPTIONAL_KINDS, NOTICE_LABELS, isOptionalKind } from './kinds';
 export type { MailKind, OptionalMailKind } from './kinds';

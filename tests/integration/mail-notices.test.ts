@@ -2,7 +2,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { addMember, APP_URL, Client, newOrganisation } from './helpers/http';
 import { closeDb, count, rows } from './helpers/db';
-import { linkIn, waitForMail } from '@/lib/mail/fake-inbox/client';
+import { linkIn, waitForMail } from '@/scripts/fakes/mail/client';
 import { notifyBriefReady, notifyDecision, notifyRunFinished, recipientsWithRole } from '@/lib/mail';
 import { sequelize } from '@/models';
 
