@@ -12,7 +12,7 @@
  *   3. Members turn the optional kinds off on /settings/notifications; `enqueueMail` skips
  *      them. Invitations and password resets are always sent.
  *
- * For the runs and approvals services:
+ * For the runs and approvals services (recipientsWithRole is in lib/services/notifications):
  *
  *   await notifyRunFinished({ projectId, projectName, runId, outcome: 'succeeded', p80Text,
  *     startedBy: { userId, email, name } }, transaction);
@@ -48,4 +48,3 @@ export type {
   BriefReadyMail,
   BaselineDecisionMail,
 } from './templates';
-export { recipientsWithRole } from '@/lib/services/notifications';

@@ -2,8 +2,8 @@
 // action and its notice are committed (or rolled back) together; the sender delivers it later.
 import type { Transaction } from 'sequelize';
 import { OutboundMessage } from '@/models';
-import { usersWhoTurnedOff } from '@/lib/services/notifications';
 import { isOptionalKind, type MailKind } from './kinds';
+import { usersWhoTurnedOff } from './opt-outs';
 import { renderMail, type MailData } from './templates';
 import { kickMailSender } from './sender';
 
