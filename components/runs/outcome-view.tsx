@@ -10,7 +10,7 @@ import { CriticalityChart } from '@/components/charts/criticality-chart';
 import { CostFinishScatter } from '@/components/charts/cost-finish-scatter';
 import { ResultCautions } from '@/components/ui/notice';
 import type { SimulationResult, TotalSummary } from '@/lib/sim/types';
-import type { RunView } from '@/lib/services/runs/view';
+import type { RunView } from '@/lib/view-types/runs';
 import { contingencyAt, percentileCurve, topDrivers, type SampleCharts } from '@/lib/runs/outcome-data';
 import { finishDate } from '@/lib/runs/working-days';
 import {

@@ -6,7 +6,7 @@
 import { UniqueConstraintError } from 'sequelize';
 import { z } from 'zod';
 import { Approval, SimulationRun, sequelize } from '@/models';
-import { DECISIONS, type Decision } from '@/models/approval';
+import { DECISIONS } from '@/models/approval';
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
 import { conflict, forbidden, notFound } from '@/lib/errors';
@@ -18,19 +18,9 @@ import { trendRows, type TrendRow } from '@/lib/brief/trend';
 import type { SimulationResult } from '@/lib/sim/types';
 import { recordAudit } from './audit';
 import { findProject } from './projects';
+import type { DecisionView } from '@/lib/view-types/approvals';
 
 export const COMMENT_MAX_LENGTH = 4000;
-
-export type DecisionView = {
-  id: number;
-  runId: number;
-  decision: Decision;
-  comment: string;
-  sponsorName: string;
-  stage: string;
-  estimateClass: number;
-  decidedAt: string;
-};
 
 export function toDecisionView(a: Approval): DecisionView {
   return {

@@ -6,19 +6,13 @@ import type { Actor } from '@/lib/auth/actor';
 import { can, type Action, type Role } from '@/lib/auth/roles';
 import { parseOrThrow } from '@/lib/validation/parse';
 import { NOTICE_LABELS, OPTIONAL_KINDS, type OptionalMailKind } from '@/lib/mail/kinds';
+import type { NotificationPreferenceView } from '@/lib/view-types/notifications';
 
 /** The action whose holders receive each notice: a billing member never hears about runs. */
 const NOTICE_AUDIENCE: Record<OptionalMailKind, Action> = {
   run_finished: 'run:start',
   brief_ready: 'baseline:decide',
   baseline_decision: 'run:start',
-};
-
-export type NotificationPreferenceView = {
-  kind: OptionalMailKind;
-  title: string;
-  description: string;
-  enabled: boolean;
 };
 
 /** The notices the actor's role receives, each with the actor's choice (on unless turned off). */
