@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * Outturn's e-mail. Every mail goes through the outbox:
  *

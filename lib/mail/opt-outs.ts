@@ -1,3 +1,4 @@
+import 'server-only';
 // Members' opt-outs of the optional notices, checked by the outbox itself so that no caller
 // can send a notice that its recipient turned off.
 import { Op, type Transaction } from 'sequelize';

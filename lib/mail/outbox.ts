@@ -1,3 +1,4 @@
+import 'server-only';
 // Writing mail to the outbox. A mail is a row written in the caller's transaction, so the
 // action and its notice are committed (or rolled back) together; the sender delivers it later.
 import type { Transaction } from 'sequelize';

@@ -1,3 +1,4 @@
+import 'server-only';
 import bcrypt from 'bcryptjs';
 import { Membership, Organization, User, sequelize } from '@/models';
 import { badRequest } from '@/lib/errors';

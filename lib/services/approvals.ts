@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * Sponsors' decisions on runs: approve a run as the project's baseline, or return it with a
  * comment. A decision is written once and never changed: there is no update, and a second

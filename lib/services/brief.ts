@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * The brief of a run: one read that gathers the run's stored result and input snapshot, the
  * project's notes and the decision, and one write that puts the brief before the sponsors.

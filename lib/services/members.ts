@@ -1,3 +1,4 @@
+import 'server-only';
 import crypto from 'node:crypto';
 import { Op } from 'sequelize';
 import { Invitation, Membership, Organization, User, sequelize } from '@/models';

@@ -1,3 +1,4 @@
+import 'server-only';
 // Members' choices of which notices they receive by e-mail, and the recipients of notices.
 import { Op, type Transaction } from 'sequelize';
 import { z } from 'zod';

@@ -1,3 +1,4 @@
+import 'server-only';
 import { Project, sequelize } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';

@@ -1,3 +1,4 @@
+import 'server-only';
 // Billing: reads for the pages (no side effects), the changes a billing member makes, the
 // explicit invoice refresh, and the payment service's webhooks.
 export { getBillingOverview, getInvoice } from './overview';

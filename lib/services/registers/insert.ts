@@ -1,3 +1,4 @@
+import 'server-only';
 // Writing many register rows in one statement. The register models do not declare
 // organizationId as an attribute (only as a foreign-key type), so a model insert would drop
 // it; a query-interface insert writes the columns exactly as given.
