@@ -56,7 +56,10 @@ export default tseslint.config(
   {
     files: ['app/**/*.{ts,tsx}'],
     rules: restrict(
-      ban('^(@/|(\\.\\./)+)models(/|$)', 'Pages and routes reach the database through a service in lib/services.'),
+      ban(
+        '^(@/|(\\.\\./)+)models(/|$)',
+        'Pages and routes reach the database through a service in lib/services.',
+      ),
     ),
   },
   {
