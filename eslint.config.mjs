@@ -80,6 +80,24 @@ export default tseslint.config(
       ),
     ),
   },
+  {
+    // Client components import these modules: shapes only, never server code.
+    files: ['lib/view-types/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              regex: '^@/(models|lib/(services|db|mail|auth/(?!roles$)))(/|$)',
+              allowTypeImports: true,
+              message: 'View types hold shapes only: import server modules with `import type`.',
+            },
+          ],
+        },
+      ],
+    },
+  },
   ...engineBlocks,
   {
     // Published coefficient tables keep all the digits their sources print.
