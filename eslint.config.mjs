@@ -3,6 +3,23 @@ import tseslint from 'typescript-eslint';
 import reactHooks from 'eslint-plugin-react-hooks';
 import nextPlugin from '@next/eslint-plugin-next';
 
+// Layers: app → lib services → models and the engine (lib/sim). Each block below names what a
+// folder may not import; `import type` counts too, so types that components need live in
+// lib/view-types. A later block for the same files would replace the rule, so the folders
+// do not overlap.
+const restrict = (...patterns) => ({ 'no-restricted-imports': ['error', { patterns }] });
+const ban = (regex, message) => ({ regex, message });
+
+const ENGINE_OUT = 'The engine (lib/sim) imports nothing of the app: keep it a library.';
+// A relative path out of lib/sim, for a file `depth` folders below it.
+const engineBlocks = [0, 1, 2, 3].map((depth) => ({
+  files: [`lib/sim/${'*/'.repeat(depth)}*.{ts,tsx,mts}`],
+  rules: restrict(
+    ban('^@/(?!lib/sim(/|$))', ENGINE_OUT),
+    ban(`^(\\./)?(\\.\\./){${depth + 1},}`, ENGINE_OUT),
+  ),
+}));
+
 export default tseslint.config(
   {
     ignores: [
@@ -27,6 +44,61 @@ export default tseslint.config(
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
     },
   },
+  {
+    files: ['components/**/*.{ts,tsx}'],
+    rules: restrict(
+      ban(
+        '^(@/|(\\.\\./)+)(models|lib/services)(/|$)',
+        'Components never touch models or services: take the shape from lib/view-types and the data from an API route or a page.',
+      ),
+    ),
+  },
+  {
+    files: ['app/**/*.{ts,tsx}'],
+    rules: restrict(
+      ban(
+        '^(@/|(\\.\\./)+)models(/|$)',
+        'Pages and routes reach the database through a service in lib/services.',
+      ),
+    ),
+  },
+  {
+    files: ['models/**/*.ts'],
+    rules: restrict(
+      ban(
+        '^(@/|\\.\\./)(app|components|lib/(services|mail|billing|http|view-types|brief|registers|runs)|lib/auth/(?!roles$))',
+        'Models import nothing above them: only the database connection, plain types and the role list.',
+      ),
+    ),
+  },
+  {
+    files: ['lib/mail/**/*.ts'],
+    rules: restrict(
+      ban(
+        '^(@/lib/|(\\.\\./)+(lib/)?)services(/|$)',
+        'Mail imports no service: the service that sends a mail passes its recipients in.',
+      ),
+    ),
+  },
+  {
+    // Client components import these modules: shapes only, never server code.
+    files: ['lib/view-types/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              regex: '^@/(models|lib/(services|db|mail|auth/(?!roles$)))(/|$)',
+              allowTypeImports: true,
+              message: 'View types hold shapes only: import server modules with `import type`.',
+            },
+          ],
+        },
+      ],
+    },
+  },
+  ...engineBlocks,
   {
     // Published coefficient tables keep all the digits their sources print.
     files: ['lib/sim/**/math/**/*.ts'],

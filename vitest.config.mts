@@ -1,7 +1,11 @@
 import { defineConfig } from 'vitest/config';
 import path from 'node:path';
 
-const alias = { '@': path.resolve(import.meta.dirname) };
+// Tests run outside a React server: `server-only` (which throws there) becomes its empty module.
+const alias = {
+  '@': path.resolve(import.meta.dirname),
+  'server-only': path.resolve(import.meta.dirname, 'node_modules/server-only/empty.js'),
+};
 
 export default defineConfig({
   resolve: { alias },

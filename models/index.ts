@@ -1,3 +1,4 @@
+import 'server-only';
 // Every model, with the associations wired in one place after all are defined.
 import { sequelize } from '@/lib/db/sequelize';
 import { Organization } from './organization';

@@ -4,7 +4,7 @@
 // the local payment fake (scripts/fakes/payments.ts) holds from its start.
 const { QueryTypes } = require('sequelize');
 const { ORGANIZATION } = require('./data/demo-accounts.cjs');
-const DEMO = require('../lib/billing/demo-ids.json');
+const DEMO = require('./data/demo-billing.json');
 
 const DAY = 24 * 3600 * 1000;
 const UNIT_AMOUNT = 4900;

@@ -1,11 +1,12 @@
 'use client';
 
 import { useQuery } from '@tanstack/react-query';
-import type { BillingOverview } from '@/lib/services/billing';
+import type { BillingOverview } from '@/lib/view-types/billing';
 import { ApiError, callApi } from '@/components/forms/api';
 import { Card, Skeleton } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 import { InvoicesTable } from './invoices-table';
+import { RefreshInvoices } from './refresh-invoices';
 import { SeatForm } from './seat-form';
 import { SubscriptionActions } from './subscription-actions';
 import { STATUS_LABELS, day, money } from './format';
@@ -120,14 +121,8 @@ export function BillingPanel({ canManage, checkout }: { canManage: boolean; chec
         </Card>
       ) : null}
       <Card title="Invoices">
-        {billing.invoicesStale ? (
-          <div className="mb-2">
-            <Notice tone="caution">
-              The payment service did not answer: these are the invoices last received.
-            </Notice>
-          </div>
-        ) : null}
         <InvoicesTable invoices={billing.invoices} />
+        {canManage && billing.subscribed ? <RefreshInvoices /> : null}
       </Card>
     </div>
   );

@@ -2,7 +2,7 @@
 
 import { Fragment, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import type { InvoiceDetail, InvoiceView } from '@/lib/services/billing';
+import type { InvoiceDetail, InvoiceView } from '@/lib/view-types/billing';
 import { ApiError, callApi } from '@/components/forms/api';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';

@@ -5,7 +5,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useQueryClient } from '@tanstack/react-query';
 import { seatsSchema, type SeatsInput } from '@/lib/billing/schemas';
-import type { BillingOverview, SeatChangePreview } from '@/lib/services/billing';
+import type { BillingOverview, SeatChangePreview } from '@/lib/view-types/billing';
 import { ApiError, callApi } from '@/components/forms/api';
 import { Field, TextInput } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';

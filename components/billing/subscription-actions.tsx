@@ -1,7 +1,7 @@
 'use client';
 
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { BillingOverview } from '@/lib/services/billing';
+import type { BillingOverview } from '@/lib/view-types/billing';
 import { ApiError, callApi } from '@/components/forms/api';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';

@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import type { DecisionView } from '@/lib/services/approvals';
+import type { DecisionView } from '@/lib/view-types/approvals';
 import { dateTimeText } from '@/lib/brief/format';
 
 /** Every decision on the project's runs, newest first, as recorded (never edited). */

@@ -8,7 +8,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { inviteSchema } from '@/lib/validation/auth';
 import { ROLES, ROLE_LABELS, type Role } from '@/lib/auth/roles';
-import type { InvitationView, MemberView } from '@/lib/services/members';
+import type { InvitationView, MemberView } from '@/lib/view-types/members';
 import { ApiError, callApi } from '@/components/forms/api';
 import { Field, Select, TextInput } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';

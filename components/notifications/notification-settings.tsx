@@ -2,7 +2,7 @@
 
 import { useState } from 'react';
 import { useMutation } from '@tanstack/react-query';
-import type { NotificationPreferenceView } from '@/lib/services/notifications';
+import type { NotificationPreferenceView } from '@/lib/view-types/notifications';
 import { ApiError, callApi } from '@/components/forms/api';
 import { Card, EmptyState } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';

@@ -1,5 +1,5 @@
 // Who changed what and when, with the fields that changed from before to after.
-import type { AuditView } from '@/lib/services/registers/read';
+import type { AuditView } from '@/lib/view-types/audit';
 import { EmptyState } from '@/components/ui/card';
 
 const show = (v: unknown) =>

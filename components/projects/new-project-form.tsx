@@ -10,7 +10,7 @@ import { Field, Select, TextInput } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { ApiError, callApi } from '@/components/forms/api';
-import type { ProjectView } from '@/lib/services/projects';
+import type { ProjectView } from '@/lib/view-types/projects';
 
 type Values = z.input<typeof projectSchema>;
 

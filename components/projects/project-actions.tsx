@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { Button } from '@/components/ui/button';
 import { callApi, ApiError } from '@/components/forms/api';
-import type { ProjectView } from '@/lib/services/projects';
+import type { ProjectView } from '@/lib/view-types/projects';
 import { NewProjectForm } from './new-project-form';
 
 export function ProjectActions({ project }: { project: ProjectView }) {

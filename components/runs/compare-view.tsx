@@ -5,7 +5,7 @@ import { ChartFrame } from '@/components/charts/chart-frame';
 import { SCurveCompare } from '@/components/charts/s-curve-compare';
 import { ResultCautions } from '@/components/ui/notice';
 import type { PercentileKey, SimulationResult, TotalSummary } from '@/lib/sim';
-import type { RunView } from '@/lib/services/runs/view';
+import type { RunView } from '@/lib/view-types/runs';
 import type { SnapshotDiff } from '@/lib/runs/snapshot-diff';
 import { percentileCurve } from '@/lib/runs/outcome-data';
 import { finishDate } from '@/lib/runs/working-days';

@@ -10,7 +10,7 @@ import { CriticalityChart } from '@/components/charts/criticality-chart';
 import { CostFinishScatter } from '@/components/charts/cost-finish-scatter';
 import { ResultCautions } from '@/components/ui/notice';
 import type { SimulationResult, TotalSummary } from '@/lib/sim';
-import type { RunView } from '@/lib/services/runs/view';
+import type { RunView } from '@/lib/view-types/runs';
 import { percentileCurve, topDrivers, type SampleCharts } from '@/lib/runs/outcome-data';
 import { contingencyAt } from '@/lib/domain/contingency';
 import { finishDate } from '@/lib/runs/working-days';

@@ -6,7 +6,7 @@ import { useQuery } from '@tanstack/react-query';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { callApi, ApiError } from '@/components/forms/api';
-import type { RunView } from '@/lib/services/runs/view';
+import type { RunView } from '@/lib/view-types/runs';
 import { formatCount, formatTimeLeft } from '@/lib/runs/format';
 import { RunStatusBadge } from './run-status';
 

@@ -16,7 +16,7 @@ import {
   runSettingsFormSchema,
   type RunSettingsForm,
 } from '@/lib/validation/runs';
-import type { RunView } from '@/lib/services/runs/view';
+import type { RunView } from '@/lib/view-types/runs';
 
 const newSeed = () => 1 + Math.floor(Math.random() * MAX_SEED);
 

@@ -1,4 +1,4 @@
-import type { RunStatus } from '@/models/simulation-run';
+import type { RunStatus } from '@/lib/view-types/runs';
 
 const LOOK: Record<RunStatus, { label: string; className: string }> = {
   queued: { label: 'Queued', className: 'border-rule-strong text-ink-soft' },

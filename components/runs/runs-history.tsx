@@ -7,7 +7,7 @@ import { useQuery } from '@tanstack/react-query';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/card';
 import { callApi } from '@/components/forms/api';
-import type { RunView } from '@/lib/services/runs/view';
+import type { RunView } from '@/lib/view-types/runs';
 import { formatDays, formatMoney } from '@/lib/runs/format';
 import { RunStatusBadge } from './run-status';
 import { settingsText } from './settings-text';

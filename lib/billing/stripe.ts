@@ -1,3 +1,4 @@
+import 'server-only';
 import Stripe from 'stripe';
 
 // The official SDK for every call to the payment service. Locally (and in tests) it points

@@ -1,3 +1,4 @@
+import 'server-only';
 import { Sequelize } from 'sequelize';
 import mariadb from 'mariadb';
 

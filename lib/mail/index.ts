@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * Outturn's e-mail. Every mail goes through the outbox:
  *
@@ -12,7 +13,7 @@
  *   3. Members turn the optional kinds off on /settings/notifications; `enqueueMail` skips
  *      them. Invitations and password resets are always sent.
  *
- * For the runs and approvals services:
+ * For the runs and approvals services (recipientsWithRole is in lib/services/notifications):
  *
  *   await notifyRunFinished({ projectId, projectName, runId, outcome: 'succeeded', p80Text,
  *     startedBy: { userId, email, name } }, transaction);
@@ -29,7 +30,7 @@
  * /projects/:id/runs/:runId/brief (absolute, from APP_URL).
  *
  * In development the mail lands in the local fake at http://localhost:2580 (scripts/fakes/mail.ts);
- * tests read it with `lib/mail/fake-inbox/client.ts`.
+ * tests read it with `scripts/fakes/mail/client.ts`.
  */
 export { MAIL_KINDS, OPTIONAL_KINDS, NOTICE_LABELS, isOptionalKind } from './kinds';
 export type { MailKind, OptionalMailKind } from './kinds';
@@ -48,4 +49,3 @@ export type {
   BriefReadyMail,
   BaselineDecisionMail,
 } from './templates';
-export { recipientsWithRole } from '@/lib/services/notifications';

@@ -1,3 +1,4 @@
+import 'server-only';
 // One call per product event, for the services that cause them (runs, briefs, approvals).
 // Each takes plain data and the caller's transaction, and queues the mail in the outbox.
 import type { Transaction } from 'sequelize';

@@ -1,9 +1,10 @@
+import 'server-only';
 // Writing mail to the outbox. A mail is a row written in the caller's transaction, so the
 // action and its notice are committed (or rolled back) together; the sender delivers it later.
 import type { Transaction } from 'sequelize';
 import { OutboundMessage } from '@/models';
-import { usersWhoTurnedOff } from '@/lib/services/notifications';
 import { isOptionalKind, type MailKind } from './kinds';
+import { usersWhoTurnedOff } from './opt-outs';
 import { renderMail, type MailData } from './templates';
 import { kickMailSender } from './sender';
 

@@ -1,3 +1,4 @@
+import 'server-only';
 // Delivering the outbox: each due row is claimed, sent over SMTP and marked sent; a failed
 // send stays pending with its error and is tried again later with a growing delay, so an
 // SMTP outage delays mail but never loses it.

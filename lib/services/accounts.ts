@@ -1,10 +1,11 @@
+import 'server-only';
 import bcrypt from 'bcryptjs';
 import { Membership, Organization, User, sequelize } from '@/models';
 import { parseOrThrow } from '@/lib/validation/parse';
 import { signUpSchema } from '@/lib/validation/auth';
 import type { Actor } from '@/lib/auth/actor';
 import type { Role } from '@/lib/auth/roles';
-import { startTrial } from './billing';
+import { startTrial } from './billing/subscription-changes';
 
 const HASH_ROUNDS = 10;
 let dummyHash: string | undefined;

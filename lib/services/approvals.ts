@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * Sponsors' decisions on runs: approve a run as the project's baseline, or return it with a
  * comment. A decision is written once and never changed: there is no update, and a second
@@ -6,30 +7,21 @@
 import { UniqueConstraintError } from 'sequelize';
 import { z } from 'zod';
 import { Approval, SimulationRun, sequelize } from '@/models';
-import { DECISIONS, type Decision } from '@/models/approval';
+import { DECISIONS } from '@/models/approval';
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
 import { conflict, forbidden, notFound } from '@/lib/errors';
 import { parseOrThrow } from '@/lib/validation/parse';
-import { notifyDecision, recipientsWithRole } from '@/lib/mail';
+import { notifyDecision } from '@/lib/mail';
+import { recipientsWithRole } from './notifications';
 import { moneyWithInterval } from '@/lib/brief/format';
 import { trendRows, type TrendRow } from '@/lib/brief/trend';
 import type { SimulationResult } from '@/lib/sim';
 import { recordAudit } from './audit';
 import { findProject } from './projects';
+import type { DecisionView } from '@/lib/view-types/approvals';
 
 export const COMMENT_MAX_LENGTH = 4000;
-
-export type DecisionView = {
-  id: number;
-  runId: number;
-  decision: Decision;
-  comment: string;
-  sponsorName: string;
-  stage: string;
-  estimateClass: number;
-  decidedAt: string;
-};
 
 export function toDecisionView(a: Approval): DecisionView {
   return {

@@ -1,3 +1,4 @@
+import 'server-only';
 import type { Transaction } from 'sequelize';
 import { AuditEntry } from '@/models';
 import type { Actor } from '@/lib/auth/actor';

@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * The brief of a run: one read that gathers the run's stored result and input snapshot, the
  * project's notes and the decision, and one write that puts the brief before the sponsors.
@@ -6,7 +7,8 @@ import { AuditEntry, User, sequelize } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
 import { conflict, forbidden } from '@/lib/errors';
-import { notifyBriefReady, recipientsWithRole } from '@/lib/mail';
+import { notifyBriefReady } from '@/lib/mail';
+import { recipientsWithRole } from './notifications';
 import { buildBrief, percentileOf, type BriefData } from '@/lib/brief/build';
 import { moneyWithInterval } from '@/lib/brief/format';
 import { decisionOnRun } from './approvals';

@@ -1,8 +1,9 @@
+import 'server-only';
 import crypto from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
 import { Invitation, Membership, Organization, User, sequelize } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
-import { can, ROLE_LABELS, type Role } from '@/lib/auth/roles';
+import { can, ROLE_LABELS } from '@/lib/auth/roles';
 import { badRequest, forbidden, notFound } from '@/lib/errors';
 import { parseOrThrow } from '@/lib/validation/parse';
 import { acceptInvitationSchema, changeRoleSchema, inviteSchema } from '@/lib/validation/auth';
@@ -10,21 +11,13 @@ import { hashPassword } from './accounts';
 import { recordAudit } from './audit';
 import { assertSeatAvailable } from './seats';
 import { enqueueMail } from '@/lib/mail';
+import type { InvitationView, MemberView } from '@/lib/view-types/members';
 
 const INVITATION_DAYS = 7;
 
 function assertManages(actor: Actor) {
   if (!can(actor.role, 'members:manage')) throw forbidden('Only an owner can manage members.');
 }
-
-export type MemberView = {
-  id: number;
-  userId: number;
-  name: string;
-  email: string;
-  role: Role;
-  since: string;
-};
 
 export async function listMembers(actor: Actor): Promise<MemberView[]> {
   if (!can(actor.role, 'members:read')) throw forbidden('Only an owner can see the members.');
@@ -113,8 +106,6 @@ export async function removeMember(actor: Actor, membershipId: number): Promise<
     );
   });
 }
-
-export type InvitationView = { id: number; email: string; role: Role; expiresAt: string; link: string };
 
 export function invitationLink(token: string): string {
   const base = process.env.APP_URL ?? 'http://localhost:3000';

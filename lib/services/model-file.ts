@@ -1,3 +1,4 @@
+import 'server-only';
 import { Activity, CostItem, Correlation, Project, RiskEvent, sequelize } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';

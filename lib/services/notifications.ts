@@ -1,3 +1,4 @@
+import 'server-only';
 // Members' choices of which notices they receive by e-mail, and the recipients of notices.
 import { Op, type Transaction } from 'sequelize';
 import { z } from 'zod';
@@ -6,19 +7,13 @@ import type { Actor } from '@/lib/auth/actor';
 import { can, type Action, type Role } from '@/lib/auth/roles';
 import { parseOrThrow } from '@/lib/validation/parse';
 import { NOTICE_LABELS, OPTIONAL_KINDS, type OptionalMailKind } from '@/lib/mail/kinds';
+import type { NotificationPreferenceView } from '@/lib/view-types/notifications';
 
 /** The action whose holders receive each notice: a billing member never hears about runs. */
 const NOTICE_AUDIENCE: Record<OptionalMailKind, Action> = {
   run_finished: 'run:start',
   brief_ready: 'baseline:decide',
   baseline_decision: 'run:start',
-};
-
-export type NotificationPreferenceView = {
-  kind: OptionalMailKind;
-  title: string;
-  description: string;
-  enabled: boolean;
 };
 
 /** The notices the actor's role receives, each with the actor's choice (on unless turned off). */
@@ -55,37 +50,6 @@ export async function setNotificationPreference(
     else await NotificationPreference.create({ userId: actor.userId, kind, enabled }, { transaction });
   });
   return listNotificationPreferences(actor);
-}
-
-/**
- * The e-mails, among these recipients, of users who turned `kind` off. A recipient given
- * without a user id is matched by e-mail, so a preference cannot be bypassed by omission.
- */
-export async function usersWhoTurnedOff(
-  kind: OptionalMailKind,
-  recipients: { userId?: number; email: string }[],
-  transaction?: Transaction,
-): Promise<Set<string>> {
-  const byEmail = new Map<string, number>();
-  const missing = recipients.filter((r) => r.userId === undefined).map((r) => r.email);
-  if (missing.length) {
-    const users = await User.findAll({
-      where: { email: { [Op.in]: missing } },
-      attributes: ['id', 'email'],
-      transaction,
-    });
-    for (const u of users) byEmail.set(u.email.toLowerCase(), u.id);
-  }
-  const idOf = (r: { userId?: number; email: string }) => r.userId ?? byEmail.get(r.email);
-  const ids = [...new Set(recipients.map(idOf).filter((id): id is number => id !== undefined))];
-  if (!ids.length) return new Set();
-  const off = await NotificationPreference.findAll({
-    where: { userId: { [Op.in]: ids }, kind, enabled: false },
-    attributes: ['userId'],
-    transaction,
-  });
-  const offIds = new Set(off.map((p) => p.userId));
-  return new Set(recipients.filter((r) => offIds.has(idOf(r) ?? -1)).map((r) => r.email));
 }
 
 /** The members of an organisation who hold one of the roles, as mail recipients. */

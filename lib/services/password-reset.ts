@@ -1,3 +1,4 @@
+import 'server-only';
 // Password reset by e-mailed link. The link carries a random token; only its SHA-256 is
 // stored. A link works once and for one hour, and asking for one says the same thing
 // whether or not the address has an account.

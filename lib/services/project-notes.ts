@@ -1,3 +1,4 @@
+import 'server-only';
 // The assumptions and exclusions of a project: free text that estimators keep and every brief prints.
 import { z } from 'zod';
 import { sequelize } from '@/models';

@@ -1,3 +1,4 @@
+import 'server-only';
 import { Project, sequelize } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
@@ -8,19 +9,9 @@ import { recordAudit } from './audit';
 import { assertWritable } from './write-access';
 import { baseEstimate } from '@/lib/registers/base-estimate';
 import { loadState } from './registers/state';
+import type { ProjectView } from '@/lib/view-types/projects';
 
-export type ProjectView = {
-  id: number;
-  name: string;
-  code: string;
-  currency: string;
-  estimateClass: number;
-  stage: string;
-  baseDate: string;
-  description: string | null;
-  archived: boolean;
-  version: number;
-};
+export type { ProjectView };
 
 /** A row of the projects list: the project, its base estimate and (once runs exist) its latest run. */
 export type ProjectListEntry = ProjectView & {

@@ -1,3 +1,4 @@
+import 'server-only';
 import { Op, type Transaction } from 'sequelize';
 import { Invitation, Membership, Subscription } from '@/models';
 import { PAID_ROLES, ROLE_LABELS, type Role } from '@/lib/auth/roles';

@@ -1,3 +1,4 @@
+import 'server-only';
 import type { Transaction } from 'sequelize';
 import { Subscription } from '@/models';
 import { paymentRequired } from '@/lib/errors';

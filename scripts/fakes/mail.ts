@@ -6,7 +6,7 @@
 //   DELETE /api/messages             forget everything
 import http from 'node:http';
 import { SMTPServer } from 'smtp-server';
-import { parseMessage } from '../../lib/mail/fake-inbox/parse-message';
+import { parseMessage } from './mail/parse-message';
 
 const SMTP_PORT = Number(process.env.SMTP_PORT ?? 2525);
 const UI_PORT = Number(process.env.MAIL_UI_PORT ?? 2580);

@@ -5,12 +5,12 @@
 // organisation's customer and subscription). /_control/* lets tests move time on.
 import http from 'node:http';
 import Stripe from 'stripe';
-import demo from '../../lib/billing/demo-ids.json';
+import demo from '../../seeders/data/demo-billing.json';
 import { SEAT_PRICE_ID } from '../../lib/billing/plan';
-import { checkoutPage } from '../../lib/billing/fake/checkout-page';
-import { decodeParams, list, obj, str, stringMap, type Params } from '../../lib/billing/fake/form';
-import { DAY, type Json, type StripeEvent } from '../../lib/billing/fake/objects';
-import { FakeError, FakePaymentService } from '../../lib/billing/fake/service';
+import { checkoutPage } from './payments/checkout-page';
+import { decodeParams, list, obj, str, stringMap, type Params } from './payments/form';
+import { DAY, type Json, type StripeEvent } from './payments/objects';
+import { FakeError, FakePaymentService } from './payments/service';
 
 const port = Number(process.env.STRIPE_FAKE_PORT ?? 12111);
 const apiKey = process.env.STRIPE_SECRET_KEY ?? 'sk_test_fake_local';

@@ -3,7 +3,7 @@ import { AuthPages } from './pages/auth';
 import { BriefPages } from './pages/brief';
 import { closeFixtureDb, projectWithRegisters, storedResult, succeededRun } from './pages/brief-fixture';
 import { addMember, newOrganisation } from '../integration/helpers/http';
-import { linkIn, waitForMail } from '@/lib/mail/fake-inbox/client';
+import { linkIn, waitForMail } from '@/scripts/fakes/mail/client';
 import { formatMoney } from '@/lib/runs/format';
 
 const MEMBER_PASSWORD = 'another long password';

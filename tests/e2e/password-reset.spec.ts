@@ -1,6 +1,6 @@
 import { expect, test } from '@playwright/test';
 import { AuthPages } from './pages/auth';
-import { linkIn, waitForMail } from '../../lib/mail/fake-inbox/client';
+import { linkIn, waitForMail } from '../../scripts/fakes/mail/client';
 
 test('a member who forgot the password asks for a link, sets a new password and signs in', async ({
   page,

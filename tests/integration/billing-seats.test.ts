@@ -186,6 +186,7 @@ describe('who may see and change billing', () => {
     expect((await client.post('/api/billing/seats', { seats: 4 })).status).toBe(403);
     expect((await client.post('/api/billing/cancel', {})).status).toBe(403);
     expect((await client.post('/api/billing/resume', {})).status).toBe(403);
+    expect((await client.post('/api/billing/invoices', {})).status).toBe(403);
   });
 
   it('lets the billing member and the owner read an invoice with its lines', async () => {
@@ -195,6 +196,14 @@ describe('who may see and change billing', () => {
       expect(res.json.invoice.total).toBe(3 * 4900);
       expect(res.json.invoice.lines).toEqual([{ description: '3 × seat (monthly)', amount: 3 * 4900 }]);
     }
+  });
+
+  it('reads the invoices again from the payment service only when asked, without duplicating them', async () => {
+    const before = (await billing.get('/api/billing')).json.billing.invoices;
+    const refreshed = await billing.post('/api/billing/invoices', {});
+    expect(refreshed.status).toBe(200);
+    expect(refreshed.json.refreshed).toBe(before.length);
+    expect((await owner.get('/api/billing')).json.billing.invoices).toEqual(before);
   });
 
   it('gives 404 for an invoice of another organisation, and 401 when signed out', async () => {

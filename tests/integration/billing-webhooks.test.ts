@@ -136,6 +136,38 @@ describe('payment webhooks', () => {
     expect((await subscriptionRow(org.organizationId))[0].seats).toBe(2);
     expect(await count('WebhookEvents', 'eventId = ?', [forged.id])).toBe(0);
   });
+
+  it('keeps a cancelled subscription cancelled when an older event arrives late', async () => {
+    const org = await newOrganisation('late');
+    const subscription = await subscribe(org.client, org.organizationId, 2);
+    const [created] = await eventsOf(subscription, 'customer.subscription.created');
+    expect((created.data.object as { status: string }).status).toBe('active');
+
+    expect((await org.client.post('/api/billing/cancel', {})).status).toBe(200);
+    await fake('/_control/renew', { subscription });
+    expect((await subscriptionRow(org.organizationId))[0].status).toBe('canceled');
+
+    // The creation event once more, as a retry of a delivery that failed at the time: an id the
+    // app has not seen, validly signed, describing the subscription as it was before the end.
+    const late = { ...created, id: `${created.id}_retry` };
+    const payload = JSON.stringify(late);
+    const res = await postWebhook(
+      payload,
+      signer.webhooks.generateTestHeaderString({ payload, secret: SECRET }),
+    );
+    expect(res.status).toBe(200);
+    expect((await res.json()).duplicate).toBe(false);
+
+    const [row] = await subscriptionRow(org.organizationId);
+    expect(row.status).toBe('canceled');
+    expect(row.endedAt).not.toBeNull();
+    const refused = await org.client.post('/api/projects', project('LT-1'));
+    expect(refused.status).toBe(402);
+    expect((await org.client.get('/api/billing')).json.billing.access).toEqual({
+      readOnly: true,
+      reason: 'ended',
+    });
+  });
 });
 
 describe('read-only when unpaid', () => {

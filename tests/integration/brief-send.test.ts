@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { addMember, newOrganisation, type Client } from './helpers/http';
 import { count, closeDb } from './helpers/db';
 import { closeFixtureDb, projectWithRegisters, succeededRun } from '../e2e/pages/brief-fixture';
-import { linkIn, waitForMail } from '@/lib/mail/fake-inbox/client';
+import { linkIn, waitForMail } from '@/scripts/fakes/mail/client';
 
 let owner: Client;
 let sponsor: { client: Client; email: string };

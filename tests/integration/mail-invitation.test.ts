@@ -1,7 +1,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { APP_URL, Client, newOrganisation, uniqueEmail } from './helpers/http';
 import { closeDb, rows } from './helpers/db';
-import { linkIn, waitForMail } from '@/lib/mail/fake-inbox/client';
+import { linkIn, waitForMail } from '@/scripts/fakes/mail/client';
 
 describe('the invitation e-mail', () => {
   afterAll(closeDb);

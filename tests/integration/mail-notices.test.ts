@@ -2,8 +2,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { addMember, APP_URL, Client, newOrganisation } from './helpers/http';
 import { closeDb, count, rows } from './helpers/db';
-import { linkIn, waitForMail } from '@/lib/mail/fake-inbox/client';
-import { notifyBriefReady, notifyDecision, notifyRunFinished, recipientsWithRole } from '@/lib/mail';
+import { linkIn, waitForMail } from '@/scripts/fakes/mail/client';
+import { notifyBriefReady, notifyDecision, notifyRunFinished } from '@/lib/mail';
+import { recipientsWithRole } from '@/lib/services/notifications';
 import { sequelize } from '@/models';
 
 const run = { projectId: 41, projectName: 'Harbour Road', runId: 907, outcome: 'succeeded' as const };

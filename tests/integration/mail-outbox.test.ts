@@ -4,7 +4,7 @@ import net from 'node:net';
 import { afterAll, describe, expect, it } from 'vitest';
 import { uniqueEmail } from './helpers/http';
 import { closeDb, count } from './helpers/db';
-import { waitForMail, mailTo } from '@/lib/mail/fake-inbox/client';
+import { waitForMail, mailTo } from '@/scripts/fakes/mail/client';
 import { deliverPending, enqueueMail, MAX_ATTEMPTS } from '@/lib/mail';
 import { createMailTransport } from '@/lib/mail/transport';
 import { OutboundMessage, sequelize } from '@/models';

@@ -2,7 +2,7 @@ import crypto from 'node:crypto';
 import { afterAll, describe, expect, it } from 'vitest';
 import { APP_URL, Client, newOrganisation, uniqueEmail } from './helpers/http';
 import { closeDb, count, rows } from './helpers/db';
-import { linkIn, waitForMail } from '@/lib/mail/fake-inbox/client';
+import { linkIn, waitForMail } from '@/scripts/fakes/mail/client';
 import { PasswordResetToken, sequelize } from '@/models';
 
 /** Asks for a reset from its own client address, so the per-address limit never interferes. */

@@ -4,7 +4,7 @@ import crypto from 'node:crypto';
 import { afterAll, describe, expect, it } from 'vitest';
 import { APP_URL, Client, newOrganisation, uniqueEmail } from './helpers/http';
 import { closeDb, count } from './helpers/db';
-import { waitForMail } from '@/lib/mail/fake-inbox/client';
+import { waitForMail } from '@/scripts/fakes/mail/client';
 
 const longEmail = () => `${'a'.repeat(300 - '@test.example'.length)}@test.example`;
 

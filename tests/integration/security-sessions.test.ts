@@ -5,7 +5,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { addMember, APP_URL, Client, newOrganisation } from './helpers/http';
 import { closeDb } from './helpers/db';
 import { STAGES } from '@/lib/validation/project';
-import { linkIn, waitForMail } from '@/lib/mail/fake-inbox/client';
+import { linkIn, waitForMail } from '@/scripts/fakes/mail/client';
 
 describe('sessions that end', () => {
   afterAll(closeDb);

@@ -2,7 +2,7 @@
 // composer (the same code that builds the app's mail), in each transfer encoding it uses.
 import { describe, expect, it } from 'vitest';
 import MailComposer from 'nodemailer/lib/mail-composer';
-import { decodeWords, parseMessage } from '@/lib/mail/fake-inbox/parse-message';
+import { decodeWords, parseMessage } from '@/scripts/fakes/mail/parse-message';
 
 async function compose(options: ConstructorParameters<typeof MailComposer>[0]): Promise<string> {
   const buffer = await new MailComposer(options).compile().build();

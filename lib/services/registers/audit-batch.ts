@@ -1,3 +1,4 @@
+import 'server-only';
 // The audit trail of a batch: one entry per row changed, written in one statement inside the
 // batch's transaction (a paste of 500 rows is 500 entries, not 500 round trips).
 

@@ -1,3 +1,4 @@
+import 'server-only';
 // Saving rows of a register: one batch (a cell edit, a paste, an import, a delete of many rows)
 // is one transaction, all or nothing. Each changed row names the version it was read at; a
 // stale version answers 409 with the current rows so that the grid can show the other person's

@@ -1,3 +1,4 @@
+import 'server-only';
 // Rules across rows that a single row's schema cannot see: unique codes (across all four
 // registers, since codes are the model file's ids), links to activities, the activity network
 // (no unknown predecessor, no cycle) and correlations between known inputs.

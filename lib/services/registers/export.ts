@@ -1,3 +1,4 @@
+import 'server-only';
 // Downloading registers as CSV (one register) or XLSX (every register, one sheet each).
 // Exports are reads: allowed to sponsors and while the organisation is read-only.
 

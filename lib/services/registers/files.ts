@@ -1,3 +1,4 @@
+import 'server-only';
 // Register files: CSV (papaparse) and XLSX (exceljs), read into header + cell rows and written
 // from register rows. Exported text cells are escaped against formula injection.
 

@@ -1,3 +1,4 @@
+import 'server-only';
 // Importing a register from a CSV or XLSX file: a preview (the columns mapped, each row's
 // problems) and then a commit of every row in one transaction. Rows update the saved row with
 // the same code, or are added.

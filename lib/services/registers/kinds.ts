@@ -1,3 +1,4 @@
+import 'server-only';
 // What the four registers are called: in the audit trail, in messages, and by the key that
 // names a row (its code, or the pair of codes of a correlation). Pure: no model is loaded.
 

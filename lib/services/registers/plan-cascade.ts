@@ -1,3 +1,4 @@
+import 'server-only';
 // Codes that a batch renames or removes are carried into the rows that name them: activity
 // predecessors, correlation inputs, and (for the checks only) the activity codes shown on line
 // items and risks, which are stored as links by id. An activity still used by a line item or a

@@ -1,3 +1,4 @@
+import 'server-only';
 // The second half of planning a batch: the registers before and after, compared row by row.
 // What differs is what is written (a row saved with the same fields is neither written nor
 // audited), each write of a saved row naming the version it was read at.

@@ -1,3 +1,4 @@
+import 'server-only';
 // A register's new order: rows named in `order` (by id, or by a new row's client key) come
 // first in that order, the rest keep theirs. Rows whose place changes are copied with their new
 // sortOrder; the others are returned as they were, so that a comparison finds only the moved.

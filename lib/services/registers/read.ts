@@ -1,3 +1,4 @@
+import 'server-only';
 // Reading a register and a project's audit trail.
 
 import { Op } from 'sequelize';

@@ -1,3 +1,4 @@
+import 'server-only';
 // Records of the four register tables ↔ the flat rows the grids, files and API speak.
 // Distributions are stored as the engine's DistSpec JSON; rows carry them as cells.
 

@@ -1,3 +1,4 @@
+import 'server-only';
 // Everything a register write needs to check itself against: the four registers of one project.
 
 import type { Transaction } from 'sequelize';

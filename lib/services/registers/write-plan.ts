@@ -1,3 +1,4 @@
+import 'server-only';
 // Executing a write plan through the register models, inside the caller's transaction. Every
 // statement is scoped by project and organisation, and every write of a saved row names the
 // version the plan expects: a row changed by someone else since it was read matches nothing,

@@ -1,3 +1,4 @@
+import 'server-only';
 // Two runs of one project side by side: their headline figures, their S-curves and what
 // changed in the inputs between their snapshots.
 

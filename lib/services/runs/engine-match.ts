@@ -1,3 +1,4 @@
+import 'server-only';
 // Whether the current engine computes a stored run's numbers again to the bit. Blocks of
 // iterations depend on the engine version and the block size as well as on (model, seed,
 // sampling), so a run records both when it starts; a run whose record differs, or that has none

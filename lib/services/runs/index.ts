@@ -1,3 +1,4 @@
+import 'server-only';
 // Simulation runs: the service (start, read, cancel, snapshot, result), the comparison of two
 // runs, and the recovery of runs interrupted by a restart (called from instrumentation.ts).
 export {

@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * The in-process queue of runs. At most MAX_RUNNING_PER_ORG runs of one organisation go at
  * once; the others wait in order of arrival. The queue lives on globalThis because the server

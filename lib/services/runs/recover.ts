@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * At server start, no run can still be executing: a run left 'running' was interrupted by the
  * restart. It is marked failed with the reason, never left running for ever. Runs still

@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * Executes queued runs in the server process, off the request path: the engine's worker pool
  * does the sampling, this module only moves the run through its states and writes progress

@@ -1,3 +1,4 @@
+import 'server-only';
 // The runs of a project: start, read, cancel, and the stored snapshot and result.
 
 import { randomInt } from 'node:crypto';

@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * A capped sample of a finished run's iterations as (cost, duration) pairs, for the histogram
  * and the cost-vs-finish scatter. The result file holds summaries only, so the first blocks of

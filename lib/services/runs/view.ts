@@ -1,3 +1,4 @@
+import 'server-only';
 // What the pages and the API see of a run: its state, settings and headline figures, never the
 // large snapshot or result (those have their own reads).
 

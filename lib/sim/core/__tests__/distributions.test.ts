@@ -1,6 +1,6 @@
 // Distributions: moments and quantiles against their closed forms and against jstat, an
 // independent implementation; P10–P90 fits against reference bounds computed by a separate
-// solver (tests/fixtures/sim/make-reference.mjs).
+// solver (./fixtures/make-reference.mjs).
 import jStat from 'jstat';
 import { describe, expect, it } from 'vitest';
 import {
@@ -14,7 +14,7 @@ import {
 import { createBetaQuantileTable } from '../math/beta-quantile-table';
 import { normalCdf, normalQuantile } from '../math/normal';
 import { normalQuantilesInto } from '../math/normal-quantile-table';
-import fits from '../../../../tests/fixtures/sim/p10-p90-fits.json';
+import fits from './fixtures/p10-p90-fits.json';
 
 const at = { where: 'X1', field: 'dist' };
 const grid = Array.from({ length: 99 }, (_, i) => (i + 1) / 100).concat([1e-6, 1e-3, 0.999, 1 - 1e-6]);

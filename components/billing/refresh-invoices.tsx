@@ -1,0 +1,30 @@
+'use client';
+
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { InvoiceRefresh } from '@/lib/view-types/billing';
+import { ApiError, callApi } from '@/components/forms/api';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+
+/** Reads the invoice list again from the payment service, for when a webhook went missing. */
+export function RefreshInvoices() {
+  const queryClient = useQueryClient();
+  const refresh = useMutation({
+    mutationFn: () => callApi<InvoiceRefresh>('/api/billing/invoices', { method: 'POST', body: {} }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['billing'] }),
+  });
+  return (
+    <div className="mt-2 flex items-center gap-3 text-sm">
+      <Button variant="secondary" onClick={() => refresh.mutate()} disabled={refresh.isPending}>
+        {refresh.isPending ? 'Reading…' : 'Read the invoices again'}
+      </Button>
+      {refresh.isError ? (
+        <Notice tone="invalid">
+          {refresh.error instanceof ApiError
+            ? refresh.error.failure.message
+            : 'The server could not be reached.'}
+        </Notice>
+      ) : null}
+    </div>
+  );
+}
