@@ -25,6 +25,10 @@ export const badRequest = (message: string, issues?: FieldIssue[]) =>
 export const conflict = (message: string, details?: unknown) =>
   new AppError(409, 'conflict', message, undefined, details);
 export const tooMany = (message: string) => new AppError(429, 'rate_limited', message);
+export const paymentRequired = (message: string, details?: unknown) =>
+  new AppError(402, 'read_only', message, undefined, details);
+export const tooLarge = (message: string) => new AppError(413, 'too_large', message);
+export const badGateway = (message: string) => new AppError(502, 'payments_unavailable', message);
 
 export function isAppError(e: unknown): e is AppError {
   return e instanceof AppError;
