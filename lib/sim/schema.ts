@@ -9,7 +9,11 @@ import { InputError } from './errors';
 import { checkModel } from './model-checks';
 import type { DistSpec, Model } from './types';
 
-const num = z.number();
+// Magnitude bounds: beyond them the sums of a run lose every digit or overflow to Infinity.
+// Amounts lie within ±1e13, durations and delays within 1e5 working days.
+export const MAX_MAGNITUDE = 1e13;
+export const MAX_DAYS = 1e5;
+const num = z.number().min(-MAX_MAGNITUDE).max(MAX_MAGNITUDE);
 const threePoint = {
   low: num,
   mode: num,
@@ -63,6 +67,18 @@ export const distSchema = z
 
 const id = z.string().min(1);
 
+/** A distribution of working days: every parameter within MAX_DAYS. */
+const daysSchema = distSchema.superRefine((spec, ctx) => {
+  for (const [field, value] of Object.entries(spec)) {
+    if (typeof value === 'number' && Math.abs(value) > MAX_DAYS)
+      ctx.addIssue({
+        code: 'custom',
+        message: `must be within ±${MAX_DAYS} days (got ${value})`,
+        path: [field],
+      });
+  }
+});
+
 const itemSchema = z.strictObject({
   id,
   name: z.string().optional(),
@@ -77,16 +93,19 @@ const riskSchema = z.strictObject({
   name: z.string().optional(),
   probability: num.min(0).max(1),
   cost: distSchema.optional(),
-  delay: distSchema.optional(),
+  delay: daysSchema.optional(),
   activity: id.optional(),
 });
 
-const predecessorSchema = z.union([id, z.strictObject({ id, lag: num.optional() })]);
+const predecessorSchema = z.union([
+  id,
+  z.strictObject({ id, lag: num.min(-MAX_DAYS).max(MAX_DAYS).optional() }),
+]);
 
 const activitySchema = z.strictObject({
   id,
   name: z.string().optional(),
-  duration: distSchema,
+  duration: daysSchema,
   predecessors: z.array(predecessorSchema).optional(),
 });
 
