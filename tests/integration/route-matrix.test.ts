@@ -200,10 +200,6 @@ afterAll(async () => {
 });
 
 describe('the route matrix', () => {
-  it.skipIf(process.env.MATRIX_LIST !== '1')('lists the routes', () => {
-    console.log(routes.map((r) => `${r.method} ${r.template} → ${r.action}`).join('\n'));
-  });
-
   it('covers every route file under app/api, each method with a permission or listed as public', () => {
     expect(routes.length).toBeGreaterThan(40);
     const unguarded = routes.filter((r) => r.action === 'public').map((r) => `${r.method} ${r.template}`);
