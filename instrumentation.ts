@@ -6,7 +6,9 @@ export async function register() {
     const { startMailSender } = await import('./lib/mail/sender');
     startMailSender();
     // Runs left 'running' by the previous process are marked failed; queued ones start again.
-    const { recoverInterruptedRuns } = await import('./lib/services/runs/recover');
+    const { recoverInterruptedRuns, startRunSweeper } = await import('./lib/services/runs/recover');
     await recoverInterruptedRuns().catch((e) => console.error('Interrupted runs not recovered:', e));
+    // A run whose final write was lost (a database outage) is ended with a reason later on.
+    startRunSweeper();
   }
 }

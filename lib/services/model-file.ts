@@ -14,6 +14,7 @@ import {
   type RegisterRecords,
   type RiskValues,
 } from '@/lib/domain/model-export';
+import { registerRuleIssues, rowLimitIssues } from './model-import-rules';
 
 export type { RiskValues };
 
@@ -98,17 +99,22 @@ export async function importModel(
   input: unknown,
 ): Promise<{ items: number; risks: number; activities: number; correlations: number }> {
   if (!can(actor.role, 'project:write')) throw forbidden();
-  const checked = validateModel(input);
-  if (!checked.ok) {
-    const issues = checked.issues.map((i) => ({ path: i.path, message: `${i.path}: ${i.message}` }));
-    throw badRequest(
+  const refuse = (issues: { path: string; message: string }[]) =>
+    badRequest(
       `The model file was not imported: ${issues
         .slice(0, 5)
         .map((i) => i.message)
         .join('; ')}`,
       issues,
     );
-  }
+  const tooMany = rowLimitIssues(input);
+  if (tooMany.length) throw refuse(tooMany);
+  const checked = validateModel(input);
+  if (!checked.ok)
+    throw refuse(checked.issues.map((i) => ({ path: i.path, message: `${i.path}: ${i.message}` })));
+  // The engine's rules first, then the registers' own (codes, lengths, durations).
+  const broken = registerRuleIssues(checked.model);
+  if (broken.length) throw refuse(broken);
   const model = checked.model;
   const project = await findProject(actor, projectId);
   await assertWritable(actor.organizationId);

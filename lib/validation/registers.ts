@@ -22,11 +22,25 @@ export const BASES = ['lump-sum', 'per-day'] as const;
 
 const describe = (input: unknown) => (typeof input === 'string' ? `"${input}"` : String(input));
 
-/** An optional number: empty is null; text that is not a number says so. */
-const optNumber = (label: string) =>
+/**
+ * The largest magnitudes a row may hold. Beyond them sums of thousands of samples lose every
+ * digit or overflow to Infinity, and no capital project needs them: ten trillion in any
+ * currency, and a hundred thousand working days (some four centuries).
+ */
+export const MAX_MONEY = 1e13;
+export const MAX_DAYS = 1e5;
+export type Bound = { max: number; text: string };
+export const MONEY: Bound = { max: MAX_MONEY, text: `±${MAX_MONEY.toLocaleString('en-GB')}` };
+export const DAYS: Bound = { max: MAX_DAYS, text: `±${MAX_DAYS.toLocaleString('en-GB')} days` };
+
+/** An optional number within ±bound: empty is null; text that is not a number says so. */
+const optNumber = (label: string, bound: Bound) =>
   z
     .number({ error: (iss) => `${label} must be a number (got ${describe(iss.input)}).` })
     .refine(Number.isFinite, { message: `${label} must be a finite number.` })
+    .refine((v) => Math.abs(v) <= bound.max, {
+      error: (iss) => `${label} must lie within ${bound.text} (got ${describe(iss.input)}).`,
+    })
     .nullable()
     .optional()
     .transform((v) => v ?? null);
@@ -91,12 +105,12 @@ const lineItemShape = {
     .nullable()
     .optional()
     .transform((v) => v ?? null),
-  low: optNumber('Low'),
-  mode: optNumber('Most likely'),
-  high: optNumber('High'),
-  mean: optNumber('Mean'),
-  sd: optNumber('SD'),
-  base: optNumber('Base'),
+  low: optNumber('Low', MONEY),
+  mode: optNumber('Most likely', MONEY),
+  high: optNumber('High', MONEY),
+  mean: optNumber('Mean', MONEY),
+  sd: optNumber('SD', MONEY),
+  base: optNumber('Base', MONEY),
   ownerName: optText(120, 'Owner'),
   notes: optText(4000, 'Notes'),
 };
@@ -162,25 +176,25 @@ const riskShape = {
     .default('reduce'),
   probability: probability('Probability'),
   costType: impactType('Cost impact'),
-  costLow: optNumber('Cost low'),
-  costMode: optNumber('Cost most likely'),
-  costHigh: optNumber('Cost high'),
+  costLow: optNumber('Cost low', MONEY),
+  costMode: optNumber('Cost most likely', MONEY),
+  costHigh: optNumber('Cost high', MONEY),
   delayType: impactType('Delay'),
-  delayLow: optNumber('Delay low'),
-  delayMode: optNumber('Delay most likely'),
-  delayHigh: optNumber('Delay high'),
+  delayLow: optNumber('Delay low', DAYS),
+  delayMode: optNumber('Delay most likely', DAYS),
+  delayHigh: optNumber('Delay high', DAYS),
   activityCode: optText(40, 'Activity'),
-  mitigationCost: optNumber('Mitigation cost'),
+  mitigationCost: optNumber('Mitigation cost', MONEY),
   postProbability: probability('Post-mitigation probability')
     .nullable()
     .optional()
     .transform((v) => v ?? null),
-  postCostLow: optNumber('Post cost low'),
-  postCostMode: optNumber('Post cost most likely'),
-  postCostHigh: optNumber('Post cost high'),
-  postDelayLow: optNumber('Post delay low'),
-  postDelayMode: optNumber('Post delay most likely'),
-  postDelayHigh: optNumber('Post delay high'),
+  postCostLow: optNumber('Post cost low', MONEY),
+  postCostMode: optNumber('Post cost most likely', MONEY),
+  postCostHigh: optNumber('Post cost high', MONEY),
+  postDelayLow: optNumber('Post delay low', DAYS),
+  postDelayMode: optNumber('Post delay most likely', DAYS),
+  postDelayHigh: optNumber('Post delay high', DAYS),
 };
 
 type RiskShape = z.infer<z.ZodObject<typeof riskShape>>;
@@ -258,7 +272,11 @@ export type RiskData = z.output<typeof riskSchema>;
 
 export const predecessorLinkSchema = z.object({
   code: codeSchema,
-  lag: z.number({ error: 'A lag must be a number of working days.' }).finite().default(0),
+  lag: z
+    .number({ error: 'A lag must be a number of working days.' })
+    .finite()
+    .refine((v) => Math.abs(v) <= MAX_DAYS, { message: `A lag must lie within ${DAYS.text}.` })
+    .default(0),
 });
 
 const activityShape = {
@@ -270,11 +288,11 @@ const activityShape = {
     .max(255, { message: 'Keep the name under 255 characters.' }),
   distType: z.enum(DIST_TYPES, { message: `Choose a distribution: ${DIST_TYPES.join(', ')}.` }),
   range: lineItemShape.range,
-  low: optNumber('Low'),
-  mode: optNumber('Most likely'),
-  high: optNumber('High'),
-  mean: optNumber('Mean'),
-  sd: optNumber('SD'),
+  low: optNumber('Low', DAYS),
+  mode: optNumber('Most likely', DAYS),
+  high: optNumber('High', DAYS),
+  mean: optNumber('Mean', DAYS),
+  sd: optNumber('SD', DAYS),
   predecessors: z
     .array(predecessorLinkSchema, { error: 'Predecessors must be a list.' })
     .max(100)

@@ -4,10 +4,12 @@ import 'server-only';
 
 import ExcelJS from 'exceljs';
 import Papa from 'papaparse';
-import { badRequest, AppError } from '@/lib/errors';
+import { badRequest, tooLarge } from '@/lib/errors';
 import { FILE_COLUMNS, SHEET_NAMES, writeCell } from '@/lib/registers/columns';
 import { escapeSpreadsheetText, unescapeSpreadsheetText } from '@/lib/registers/spreadsheet-escape';
 import { REGISTER_KINDS, type RegisterKind } from '@/lib/validation/registers';
+import { assertXlsxArchive } from './xlsx-archive';
+import { parseXlsxInWorker, type RawSheet } from './xlsx-worker';
 
 export const MAX_FILE_BYTES = 10 * 1024 * 1024;
 export const MAX_FILE_ROWS = 20_000;
@@ -27,11 +29,7 @@ export function formatOf(fileName: string): FileFormat | 'json' {
 
 export function assertSize(bytes: number) {
   if (bytes > MAX_FILE_BYTES) {
-    throw new AppError(
-      413,
-      'too_large',
-      `The file is ${(bytes / 1048576).toFixed(1)} MB; files up to 10 MB are accepted.`,
-    );
+    throw tooLarge(`The file is ${(bytes / 1048576).toFixed(1)} MB; files up to 10 MB are accepted.`);
   }
 }
 
@@ -59,30 +57,15 @@ export function readCsv(content: string, kind: RegisterKind): Table {
   };
 }
 
-function cellValue(v: ExcelJS.CellValue): unknown {
-  if (v === null || v === undefined) return null;
-  if (v instanceof Date) return v.toISOString().slice(0, 10);
-  if (typeof v === 'object') {
-    if ('result' in v) return cellValue(v.result as ExcelJS.CellValue);
-    if ('richText' in v) return v.richText.map((t) => t.text).join('');
-    if ('text' in v) return v.text;
-    if ('error' in v) return null;
-  }
-  return v;
-}
-
-/** Sheets of a workbook: the one named after `kind` (or the first), or every known one for 'all'. */
+/**
+ * Sheets of a workbook: the one named after `kind` (or the first), or every known one for 'all'.
+ * The archive is checked before it is inflated, and parsed in a worker with a memory cap.
+ */
 export async function readXlsx(buffer: ArrayBuffer, kind: RegisterKind | 'all'): Promise<Table[]> {
-  const workbook = new ExcelJS.Workbook();
-  try {
-    await workbook.xlsx.load(buffer);
-  } catch {
-    throw badRequest('The file is not a readable XLSX workbook.', [
-      { path: 'file', message: 'Not an XLSX workbook.' },
-    ]);
-  }
-  const byName = new Map(workbook.worksheets.map((w) => [w.name.trim().toLowerCase(), w]));
-  const picks: [RegisterKind, ExcelJS.Worksheet][] = [];
+  await assertXlsxArchive(buffer);
+  const worksheets = await parseXlsxInWorker(buffer);
+  const byName = new Map(worksheets.map((w) => [w.name.trim().toLowerCase(), w]));
+  const picks: [RegisterKind, RawSheet][] = [];
   if (kind === 'all') {
     for (const k of REGISTER_KINDS) {
       const w = byName.get(SHEET_NAMES[k].toLowerCase());
@@ -94,16 +77,12 @@ export async function readXlsx(buffer: ArrayBuffer, kind: RegisterKind | 'all'):
       );
     }
   } else {
-    const w = byName.get(SHEET_NAMES[kind].toLowerCase()) ?? workbook.worksheets[0];
+    const w = byName.get(SHEET_NAMES[kind].toLowerCase()) ?? worksheets[0];
     if (!w) throw badRequest('The workbook has no sheet.');
     picks.push([kind, w]);
   }
   return picks.map(([k, sheet]) => {
-    const all: unknown[][] = [];
-    sheet.eachRow({ includeEmpty: false }, (row) => {
-      const values = (row.values as ExcelJS.CellValue[]).slice(1).map((v) => text(cellValue(v)));
-      all.push(values);
-    });
+    const all = sheet.rows.map((values) => values.map(text));
     const [headers = [], ...rows] = all.filter((r) => !blank(r));
     assertRows(`Sheet "${sheet.name}"`, rows.length);
     return { kind: k, sheet: sheet.name, headers: headers.map((h) => String(h ?? '').trim()), rows };

@@ -7,6 +7,7 @@ import 'server-only';
 
 import { Op, type WhereOptions } from 'sequelize';
 import { SimulationRun } from '@/models';
+import { isActive } from './queue';
 import { notifyFinished, schedule } from './runner';
 
 export const INTERRUPTED_REASON =
@@ -37,4 +38,44 @@ export async function recoverInterruptedRuns(
     resumed = queued.length;
   }
   return { failed, resumed };
+}
+
+export const STALE_REASON =
+  'This run stopped reporting (the server lost its database connection or stopped while it ran), so it did not finish. Start it again: its settings and seed are kept on this page.';
+/** A running run's row is written at least every few seconds; this long without a write means it is lost. */
+export const STALE_AFTER_MS = 10 * 60_000;
+export const SWEEP_EVERY_MS = 60_000;
+
+/**
+ * Ends runs left 'running' that no engine of this process is executing and whose row has not
+ * been written for STALE_AFTER_MS (a final write lost to a database outage leaves exactly that).
+ */
+export async function sweepStaleRuns(
+  options: { organizationId?: number; staleAfterMs?: number } = {},
+): Promise<{ failed: number }> {
+  const scope: WhereOptions = options.organizationId ? { organizationId: options.organizationId } : {};
+  const before = new Date(Date.now() - (options.staleAfterMs ?? STALE_AFTER_MS));
+  const stale = await SimulationRun.findAll({
+    where: { ...scope, status: 'running', updatedAt: { [Op.lt]: before } },
+    attributes: ['id'],
+  });
+  const ids = stale.map((r) => r.id).filter((id) => !isActive(id));
+  const [failed] = ids.length
+    ? await SimulationRun.update(
+        { status: 'failed', failureReason: STALE_REASON, finishedAt: new Date() },
+        { where: { id: ids, status: 'running', updatedAt: { [Op.lt]: before } } },
+      )
+    : [0];
+  for (const id of ids) await notifyFinished(id);
+  return { failed };
+}
+
+/** Sweeps stale runs every SWEEP_EVERY_MS for the life of the server process (started once). */
+export function startRunSweeper() {
+  const holder = globalThis as unknown as { outturnRunSweeper?: NodeJS.Timeout };
+  if (holder.outturnRunSweeper) return;
+  holder.outturnRunSweeper = setInterval(() => {
+    sweepStaleRuns().catch((e) => console.error('Stale runs not swept:', e));
+  }, SWEEP_EVERY_MS);
+  holder.outturnRunSweeper.unref();
 }

@@ -15,6 +15,7 @@ import { formatMoney } from '@/lib/runs/format';
 import { enqueue, setExecutor, type Job } from './queue';
 import { CURRENT_ENGINE } from './engine-match';
 import { sampleOfRun } from './sample';
+import { nonFiniteReason } from './finite';
 
 export const PROGRESS_INTERVAL_MS = 250;
 
@@ -70,6 +71,22 @@ function progressWriter(runId: number, cap: number | null) {
   };
 }
 
+/** Waits between tries of the final write: a database that blinks must not leave a run 'running'. */
+export const FINAL_WRITE_DELAYS_MS = [500, 1000, 2000, 4000, 8000];
+
+async function withRetries<T>(what: string, write: () => Promise<T>): Promise<T> {
+  for (let attempt = 0; ; attempt++) {
+    try {
+      return await write();
+    } catch (e) {
+      const delay = FINAL_WRITE_DELAYS_MS[attempt];
+      if (delay === undefined) throw e;
+      console.error(`${what} not written, trying again in ${delay} ms`, e);
+      await new Promise((resolve) => setTimeout(resolve, delay));
+    }
+  }
+}
+
 const reasonOf = (e: unknown) =>
   e instanceof Error && e.message ? e.message : 'The engine stopped with an unexpected error.';
 
@@ -121,10 +138,13 @@ async function execute(job: Job, signal: AbortSignal): Promise<void> {
   const progress = progressWriter(run.id, s.precision?.maxIterations ?? null);
   const finish = async (values: Partial<InferAttributes<SimulationRun>>) => {
     await progress.settle();
-    await SimulationRun.update(
-      { ...values, finishedAt: new Date() },
-      { where: { id: run.id, status: { [Op.in]: ['running', 'queued'] } } },
-    );
+    // When every try fails, the stale-run sweeper (recover.ts) ends the run with a reason.
+    await withRetries(`run ${run.id}: outcome`, () =>
+      SimulationRun.update(
+        { ...values, finishedAt: new Date() },
+        { where: { id: run.id, status: { [Op.in]: ['running', 'queued'] } } },
+      ),
+    ).catch((e) => console.error(`run ${run.id}: outcome not written`, e));
   };
   try {
     const result = await runSimulation(snapshot, {
@@ -139,6 +159,8 @@ async function execute(job: Job, signal: AbortSignal): Promise<void> {
       onProgress: (p) => progress.report(p),
     });
     if (signal.aborted) throw new SimulationCancelledError();
+    const unusable = nonFiniteReason(result);
+    if (unusable) throw new Error(unusable);
     const sample = await sampleOfRun(snapshot, {
       iterations: result.iterations,
       seed: s.seed,

@@ -9,7 +9,11 @@ import { InputError } from './errors';
 import { checkModel } from './model-checks';
 import type { DistSpec, Model } from './formats';
 
-const num = z.number();
+// Magnitude bounds: beyond them the sums of a run lose every digit or overflow to Infinity.
+// Amounts lie within ±1e13, durations and delays within 1e5 working days.
+export const MAX_MAGNITUDE = 1e13;
+export const MAX_DAYS = 1e5;
+const num = z.number().min(-MAX_MAGNITUDE).max(MAX_MAGNITUDE);
 const threePoint = {
   low: num,
   mode: num,
@@ -65,6 +69,18 @@ const id = z.string().min(1);
 const probability = num.min(0).max(1);
 const numberOrDist = z.union([num, distSchema]);
 
+/** A distribution of working days: every parameter within MAX_DAYS. */
+const daysSchema = distSchema.superRefine((spec, ctx) => {
+  for (const [field, value] of Object.entries(spec)) {
+    if (typeof value === 'number' && Math.abs(value) > MAX_DAYS)
+      ctx.addIssue({
+        code: 'custom',
+        message: `must be within ±${MAX_DAYS} days (got ${value})`,
+        path: [field],
+      });
+  }
+});
+
 const itemSchema = z.strictObject({
   id,
   name: z.string().optional(),
@@ -86,7 +102,7 @@ const riskSchema = z.strictObject({
   name: z.string().optional(),
   probability,
   cost: distSchema.optional(),
-  delay: distSchema.optional(),
+  delay: daysSchema.optional(),
   activity: id.optional(),
   activities: z.array(id).optional(),
   items: z.array(id).optional(),
@@ -103,12 +119,15 @@ const driverSchema = z.strictObject({
   applies: z.array(id).min(1),
 });
 
-const predecessorSchema = z.union([id, z.strictObject({ id, lag: num.optional() })]);
+const predecessorSchema = z.union([
+  id,
+  z.strictObject({ id, lag: num.min(-MAX_DAYS).max(MAX_DAYS).optional() }),
+]);
 
 const activitySchema = z.strictObject({
   id,
   name: z.string().optional(),
-  duration: distSchema,
+  duration: daysSchema,
   predecessors: z.array(predecessorSchema).optional(),
 });
 

@@ -7,7 +7,7 @@ import { z } from 'zod';
 import { handle, readJson } from '@/lib/http/route';
 import { idParam } from '@/lib/http/params';
 import { requireActor } from '@/lib/auth/guard';
-import { AppError, badRequest } from '@/lib/errors';
+import { badRequest, tooLarge } from '@/lib/errors';
 import { parseOrThrow } from '@/lib/validation/parse';
 import { REGISTER_KINDS } from '@/lib/validation/registers';
 import { importModel } from '@/lib/services/model-file';
@@ -28,11 +28,7 @@ export const POST = handle(async (request: Request, ctx: Ctx) => {
   const projectId = idParam((await ctx.params).id, 'Project');
   const length = Number(request.headers.get('content-length') ?? 0);
   if (length > MAX_FILE_BYTES + 64 * 1024) {
-    throw new AppError(
-      413,
-      'too_large',
-      `The upload is ${(length / 1048576).toFixed(1)} MB; files up to 10 MB are accepted.`,
-    );
+    throw tooLarge(`The upload is ${(length / 1048576).toFixed(1)} MB; files up to 10 MB are accepted.`);
   }
   const type = request.headers.get('content-type') ?? '';
   if (type.includes('application/json')) {
