@@ -123,6 +123,14 @@ class Writer {
 
 const shareText = (share: number | null) => (share === null ? '—' : signedPercent(share));
 
+/** The columns of a confidence-level table whose values are named `value`. */
+const percentileColumns = (value: string): Column[] => [
+  { label: 'Level', width: 1 },
+  { label: value, width: 2, align: 'right' },
+  { label: '95 % interval', width: 3, align: 'right' },
+  { label: 'vs base', width: 1, align: 'right' },
+];
+
 function percentileRows(total: TotalBrief, show: (v: number) => string): string[][] {
   return total.percentiles.map((p) => [
     p.level,
@@ -258,24 +266,11 @@ export async function renderBriefPdf(
   headlineFigures(w, brief);
 
   w.heading('Confidence levels of total cost');
-  w.table(
-    [
-      { label: 'Level', width: 1 },
-      { label: 'Cost', width: 2, align: 'right' },
-      { label: '95 % interval', width: 3, align: 'right' },
-      { label: 'vs base', width: 1, align: 'right' },
-    ],
-    percentileRows(brief.cost, money),
-  );
+  w.table(percentileColumns('Cost'), percentileRows(brief.cost, money));
   if (brief.duration) {
     w.heading('Confidence levels of duration (working days)');
     w.table(
-      [
-        { label: 'Level', width: 1 },
-        { label: 'Duration', width: 2, align: 'right' },
-        { label: '95 % interval', width: 3, align: 'right' },
-        { label: 'vs base', width: 1, align: 'right' },
-      ],
+      percentileColumns('Duration'),
       percentileRows(brief.duration, (v) => formatDays(v)),
     );
   }
