@@ -41,6 +41,17 @@ class Writer {
     }
   }
 
+  /** A hairline across the text width at the current position. */
+  rule(lineWidth: number) {
+    const { doc, left, y } = this;
+    doc
+      .lineWidth(lineWidth)
+      .strokeColor(C.rule)
+      .moveTo(left, y)
+      .lineTo(left + this.width, y)
+      .stroke();
+  }
+
   /** A section title, kept on one page with the first `keepWith` points of what follows. */
   heading(text: string, keepWith = 40) {
     this.room(25 + keepWith);
@@ -51,12 +62,7 @@ class Writer {
       lineBreak: false,
     });
     this.y += 12;
-    this.doc
-      .lineWidth(0.5)
-      .strokeColor(C.rule)
-      .moveTo(this.left, this.y)
-      .lineTo(this.left + this.width, this.y)
-      .stroke();
+    this.rule(0.5);
     this.y += 5;
   }
 
@@ -91,12 +97,7 @@ class Writer {
         x += w;
       });
       this.y += h;
-      this.doc
-        .lineWidth(0.4)
-        .strokeColor(C.rule)
-        .moveTo(this.left, this.y)
-        .lineTo(this.left + this.width, this.y)
-        .stroke();
+      this.rule(0.4);
     };
     row(
       columns.map((c) => c.label),
