@@ -33,7 +33,8 @@ export async function getProjectNotes(actor: Actor, projectId: number): Promise<
   return notesOf(project);
 }
 
-const notesOf = (project: ProjectNotes): ProjectNotes => ({
+/** A project's notes, with none stated as null. */
+export const notesOf = (project: ProjectNotes): ProjectNotes => ({
   assumptions: project.assumptions ?? null,
   exclusions: project.exclusions ?? null,
 });
