@@ -88,13 +88,13 @@ export async function sendBriefToSponsors(
     if (!sponsors.length)
       throw conflict('There is no sponsor in this organisation yet: invite one from Members first.');
     await notifyBriefReady(
+      sponsors,
       {
         projectId: brief.project.id,
         projectName: brief.project.name,
         runId,
         p80Text: moneyWithInterval(p80.value, p80.ci95, brief.project.currency),
         preparedByName: actor.name,
-        sponsors,
       },
       transaction,
     );
