@@ -20,6 +20,11 @@ const engineBlocks = [0, 1, 2, 3].map((depth) => ({
   ),
 }));
 
+const ENGINE_DOOR = ban(
+  '^(@/lib/|(\\.\\.?/)+(lib/)?)sim/(?!runtime$)',
+  'Outside lib/sim, import the engine through its doors only: `@/lib/sim` or `@/lib/sim/runtime`.',
+);
+
 export default tseslint.config(
   {
     ignores: [
@@ -45,8 +50,16 @@ export default tseslint.config(
     },
   },
   {
+    // Every file outside the engine; the blocks below repeat ENGINE_DOOR, since a later block
+    // replaces this rule for its files.
+    files: ['**/*.{ts,tsx,mts,mjs}'],
+    ignores: ['lib/sim/**'],
+    rules: restrict(ENGINE_DOOR),
+  },
+  {
     files: ['components/**/*.{ts,tsx}'],
     rules: restrict(
+      ENGINE_DOOR,
       ban(
         '^(@/|(\\.\\./)+)(models|lib/services)(/|$)',
         'Components never touch models or services: take the shape from lib/view-types and the data from an API route or a page.',
@@ -56,6 +69,7 @@ export default tseslint.config(
   {
     files: ['app/**/*.{ts,tsx}'],
     rules: restrict(
+      ENGINE_DOOR,
       ban(
         '^(@/|(\\.\\./)+)models(/|$)',
         'Pages and routes reach the database through a service in lib/services.',
@@ -65,6 +79,7 @@ export default tseslint.config(
   {
     files: ['models/**/*.ts'],
     rules: restrict(
+      ENGINE_DOOR,
       ban(
         '^(@/|\\.\\./)(app|components|lib/(services|mail|billing|http|view-types|brief|registers|runs)|lib/auth/(?!roles$))',
         'Models import nothing above them: only the database connection, plain types and the role list.',
@@ -74,6 +89,7 @@ export default tseslint.config(
   {
     files: ['lib/mail/**/*.ts'],
     rules: restrict(
+      ENGINE_DOOR,
       ban(
         '^(@/lib/|(\\.\\./)+(lib/)?)services(/|$)',
         'Mail imports no service: the service that sends a mail passes its recipients in.',
@@ -88,6 +104,7 @@ export default tseslint.config(
         'error',
         {
           patterns: [
+            ENGINE_DOOR,
             {
               regex: '^@/(models|lib/(services|db|mail|auth/(?!roles$)))(/|$)',
               allowTypeImports: true,

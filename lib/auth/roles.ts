@@ -3,46 +3,35 @@
 export const ROLES = ['owner', 'estimator', 'sponsor', 'billing'] as const;
 export type Role = (typeof ROLES)[number];
 
-export const ACTIONS = [
-  'project:read',
-  'project:write',
-  'project:export',
-  'run:read',
-  'run:start',
-  'run:cancel',
-  'brief:read',
-  'baseline:decide',
-  'comment:write',
-  'members:read',
-  'members:manage',
-  'billing:read',
-  'billing:manage',
-] as const;
-export type Action = (typeof ACTIONS)[number];
+// For each action, the roles that may take it (the owner takes every action).
+const WHO_MAY = {
+  'project:read': ['owner', 'estimator', 'sponsor'],
+  'project:write': ['owner', 'estimator'],
+  'project:export': ['owner', 'estimator', 'sponsor'],
+  'run:read': ['owner', 'estimator', 'sponsor'],
+  'run:start': ['owner', 'estimator'],
+  'run:cancel': ['owner', 'estimator'],
+  'brief:read': ['owner', 'estimator', 'sponsor'],
+  'baseline:decide': ['owner', 'sponsor'],
+  'comment:write': ['owner', 'estimator', 'sponsor'],
+  'members:read': ['owner'],
+  'members:manage': ['owner'],
+  'billing:read': ['owner', 'billing'],
+  'billing:manage': ['owner', 'billing'],
+} as const satisfies Record<string, readonly Role[]>;
 
-const ESTIMATING: Action[] = [
-  'project:read',
-  'project:write',
-  'project:export',
-  'run:read',
-  'run:start',
-  'run:cancel',
-  'brief:read',
-  'comment:write',
-];
+export type Action = keyof typeof WHO_MAY;
+export const ACTIONS = Object.keys(WHO_MAY) as readonly Action[];
+
+const rolesOf: Record<Action, readonly Role[]> = WHO_MAY;
+const actionsOf = (role: Role): ReadonlySet<Action> =>
+  new Set(ACTIONS.filter((a) => rolesOf[a].includes(role)));
 
 export const PERMISSIONS: Record<Role, ReadonlySet<Action>> = {
-  owner: new Set(ACTIONS),
-  estimator: new Set(ESTIMATING),
-  sponsor: new Set<Action>([
-    'project:read',
-    'project:export',
-    'run:read',
-    'brief:read',
-    'baseline:decide',
-    'comment:write',
-  ]),
-  billing: new Set<Action>(['billing:read', 'billing:manage']),
+  owner: actionsOf('owner'),
+  estimator: actionsOf('estimator'),
+  sponsor: actionsOf('sponsor'),
+  billing: actionsOf('billing'),
 };
 
 export function can(role: Role, action: Action): boolean {

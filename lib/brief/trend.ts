@@ -16,13 +16,7 @@ export type BaselineSource = {
   result: Pick<SimulationResult, 'cost'>;
 };
 
-export type TrendRow = {
-  approvalId: number;
-  runId: number;
-  decidedAt: string;
-  stage: string;
-  estimateClass: number;
-  sponsorName: string;
+export type TrendRow = Omit<BaselineSource, 'result'> & {
   base: number;
   p50: number;
   p80: number;
@@ -36,16 +30,11 @@ export function trendRows(baselines: BaselineSource[]): TrendRow[] {
     (a, b) => a.decidedAt.localeCompare(b.decidedAt) || a.approvalId - b.approvalId,
   );
   let previous: number | null = null;
-  return ordered.map((b) => {
-    const { base, percentiles } = b.result.cost;
-    const contingencyP80 = contingencyAt(b.result.cost, 'P80').amount;
+  return ordered.map(({ result, ...source }) => {
+    const { base, percentiles } = result.cost;
+    const contingencyP80 = contingencyAt(result.cost, 'P80').amount;
     const row: TrendRow = {
-      approvalId: b.approvalId,
-      runId: b.runId,
-      decidedAt: b.decidedAt,
-      stage: b.stage,
-      estimateClass: b.estimateClass,
-      sponsorName: b.sponsorName,
+      ...source,
       base,
       p50: percentiles.P50,
       p80: percentiles.P80,

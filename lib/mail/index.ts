@@ -15,16 +15,17 @@ import 'server-only';
  *
  * For the runs and approvals services (recipientsWithRole is in lib/services/notifications):
  *
- *   await notifyRunFinished({ projectId, projectName, runId, outcome: 'succeeded', p80Text,
- *     startedBy: { userId, email, name } }, transaction);
+ *   await notifyRunFinished({ userId, email, name },
+ *     { projectId, projectName, runId, outcome: 'succeeded', p80Text }, transaction);
  *
  *   const sponsors = await recipientsWithRole(actor.organizationId, ['sponsor'], transaction);
- *   await notifyBriefReady({ projectId, projectName, runId, p80Text, preparedByName: actor.name,
- *     sponsors }, transaction);
+ *   await notifyBriefReady(sponsors,
+ *     { projectId, projectName, runId, p80Text, preparedByName: actor.name }, transaction);
  *
  *   const estimators = await recipientsWithRole(actor.organizationId, ['estimator'], transaction);
- *   await notifyDecision({ projectId, projectName, runId, decision: 'approved', comment,
- *     decidedByName: actor.name, p80Text, estimators }, transaction);
+ *   await notifyDecision(estimators,
+ *     { projectId, projectName, runId, decision: 'approved', comment, decidedByName: actor.name,
+ *       p80Text }, transaction);
  *
  * Links in the mails: the outcome at /projects/:id/runs/:runId, the brief at
  * /projects/:id/runs/:runId/brief (absolute, from APP_URL).

@@ -149,6 +149,7 @@ export async function decideOnRun(actor: Actor, projectId: number, input: unknow
       );
       // Queued in the same transaction: the mail goes if, and only if, the decision is kept.
       await notifyDecision(
+        await recipientsWithRole(actor.organizationId, ['estimator'], transaction),
         {
           projectId: project.id,
           projectName: project.name,
@@ -161,7 +162,6 @@ export async function decideOnRun(actor: Actor, projectId: number, input: unknow
             result.cost.percentileCI95.P80,
             project.currency,
           ),
-          estimators: await recipientsWithRole(actor.organizationId, ['estimator'], transaction),
         },
         transaction,
       );

@@ -12,23 +12,25 @@ export type AuditChange = {
   projectId?: number | null;
 };
 
+/** The stored form of one change, for one entry or a batch of them. */
+export function auditRow(actor: Actor, change: AuditChange) {
+  return {
+    organizationId: actor.organizationId,
+    projectId: change.projectId ?? null,
+    userId: actor.userId,
+    entity: change.entity,
+    entityId: change.entityId === null ? null : String(change.entityId),
+    action: change.action,
+    before: change.before ?? null,
+    after: change.after ?? null,
+  };
+}
+
 /** Appends one entry to the audit trail inside the caller's transaction. */
 export async function recordAudit(
   actor: Actor,
   change: AuditChange,
   transaction?: Transaction,
 ): Promise<void> {
-  await AuditEntry.create(
-    {
-      organizationId: actor.organizationId,
-      projectId: change.projectId ?? null,
-      userId: actor.userId,
-      entity: change.entity,
-      entityId: change.entityId === null ? null : String(change.entityId),
-      action: change.action,
-      before: change.before ?? null,
-      after: change.after ?? null,
-    },
-    { transaction },
-  );
+  await AuditEntry.create(auditRow(actor, change), { transaction });
 }

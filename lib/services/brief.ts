@@ -3,16 +3,17 @@ import 'server-only';
  * The brief of a run: one read that gathers the run's stored result and input snapshot, the
  * project's notes and the decision, and one write that puts the brief before the sponsors.
  */
-import { AuditEntry, User, sequelize } from '@/models';
+import { AuditEntry, type Project, User, sequelize } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
 import { conflict, forbidden } from '@/lib/errors';
 import { notifyBriefReady } from '@/lib/mail';
 import { recipientsWithRole } from './notifications';
-import { buildBrief, percentileOf, type BriefData } from '@/lib/brief/build';
+import { buildBrief, percentileOf, type BriefData, type BriefProject } from '@/lib/brief/build';
 import { moneyWithInterval } from '@/lib/brief/format';
 import { decisionOnRun } from './approvals';
 import { recordAudit } from './audit';
+import { notesOf } from './project-notes';
 import { findProject } from './projects';
 import { getRunOutcome } from './runs';
 
@@ -45,16 +46,7 @@ export async function getBrief(actor: Actor, projectId: number, runId: number): 
     lastSent(actor, project.id, runId),
   ]);
   return buildBrief({
-    project: {
-      id: project.id,
-      name: project.name,
-      code: project.code,
-      currency: project.currency,
-      stage: project.stage,
-      estimateClass: project.estimateClass,
-      assumptions: project.assumptions ?? null,
-      exclusions: project.exclusions ?? null,
-    },
+    project: briefProject(project),
     run: {
       id: outcome.run.id,
       inputHash: outcome.run.inputHash,
@@ -69,6 +61,12 @@ export async function getBrief(actor: Actor, projectId: number, runId: number): 
     decision,
     sentForDecision,
   });
+}
+
+/** The project as the brief names it. */
+function briefProject(project: Project): BriefProject {
+  const { id, name, code, currency, stage, estimateClass } = project;
+  return { id, name, code, currency, stage, estimateClass, ...notesOf(project) };
 }
 
 /**
@@ -90,13 +88,13 @@ export async function sendBriefToSponsors(
     if (!sponsors.length)
       throw conflict('There is no sponsor in this organisation yet: invite one from Members first.');
     await notifyBriefReady(
+      sponsors,
       {
         projectId: brief.project.id,
         projectName: brief.project.name,
         runId,
         p80Text: moneyWithInterval(p80.value, p80.ci95, brief.project.currency),
         preparedByName: actor.name,
-        sponsors,
       },
       transaction,
     );

@@ -125,44 +125,35 @@ export async function importModel(
     for (const model of [Correlation, RiskEvent, CostItem, Activity] as const) {
       await (model as typeof Correlation).destroy({ where: scope, transaction });
     }
-    const activities = model.activities ?? [];
+    // What every imported row shares: its scope, its code (the input's id), its place, version 1.
+    const placed = <T extends { id: string }, R>(inputs: T[], columns: (input: T) => R) =>
+      inputs.map((input, i) => ({ ...scope, code: input.id, sortOrder: i, version: 1, ...columns(input) }));
     await Activity.bulkCreate(
-      activities.map((a, i) => ({
-        ...scope,
-        code: a.id,
+      placed(model.activities ?? [], (a) => ({
         name: a.name || a.id,
         duration: a.duration,
         predecessors: (a.predecessors ?? []).map((p) =>
           typeof p === 'string' ? { code: p, lag: 0 } : { code: p.id, lag: p.lag ?? 0 },
         ),
-        sortOrder: i,
-        version: 1,
       })),
       { transaction },
     );
     const saved = await Activity.findAll({ where: scope, attributes: ['id', 'code'], transaction });
     const activityId = new Map(saved.map((a) => [a.code, a.id]));
     await CostItem.bulkCreate(
-      model.items.map((item, i) => ({
-        ...scope,
-        code: item.id,
+      placed(model.items, (item) => ({
         description: item.name || item.id,
         base: item.base ?? null,
         dist: item.dist ?? null,
         ratePerDay: item.ratePerDay ?? null,
-        version: 1,
         activityId: item.activity ? (activityId.get(item.activity) ?? null) : null,
         ownerName: null,
         notes: null,
-        sortOrder: i,
       })),
       { transaction },
     );
-    const risks = model.risks ?? [];
     await RiskEvent.bulkCreate(
-      risks.map((r, i) => ({
-        ...scope,
-        code: r.id,
+      placed(model.risks ?? [], (r) => ({
         title: r.name || r.id,
         cause: null,
         event: null,
@@ -178,8 +169,6 @@ export async function importModel(
         postCostImpact: null,
         postDelayImpact: null,
         mitigationCost: null,
-        sortOrder: i,
-        version: 1,
       })),
       { transaction },
     );
@@ -202,8 +191,8 @@ export async function importModel(
     );
     return {
       items: model.items.length,
-      risks: risks.length,
-      activities: activities.length,
+      risks: model.risks?.length ?? 0,
+      activities: model.activities?.length ?? 0,
       correlations: correlations.length,
     };
   });

@@ -1,13 +1,11 @@
 import 'server-only';
 // The assumptions and exclusions of a project: free text that estimators keep and every brief prints.
 import { z } from 'zod';
-import { sequelize } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
 import { forbidden } from '@/lib/errors';
 import { parseOrThrow } from '@/lib/validation/parse';
-import { recordAudit } from './audit';
-import { findProject } from './projects';
+import { findProject, updateAudited } from './projects';
 import { assertWritable } from './write-access';
 
 export const NOTES_MAX_LENGTH = 8000;
@@ -32,8 +30,14 @@ export const projectNotesSchema = z.object({
 
 export async function getProjectNotes(actor: Actor, projectId: number): Promise<ProjectNotes> {
   const project = await findProject(actor, projectId);
-  return { assumptions: project.assumptions ?? null, exclusions: project.exclusions ?? null };
+  return notesOf(project);
 }
+
+/** A project's notes, with none stated as null. */
+export const notesOf = (project: ProjectNotes): ProjectNotes => ({
+  assumptions: project.assumptions ?? null,
+  exclusions: project.exclusions ?? null,
+});
 
 export async function updateProjectNotes(
   actor: Actor,
@@ -44,24 +48,6 @@ export async function updateProjectNotes(
   const notes = parseOrThrow(projectNotesSchema, input);
   const project = await findProject(actor, projectId);
   await assertWritable(actor.organizationId);
-  return sequelize.transaction(async (transaction) => {
-    const before: ProjectNotes = {
-      assumptions: project.assumptions ?? null,
-      exclusions: project.exclusions ?? null,
-    };
-    await project.update(notes, { transaction });
-    await recordAudit(
-      actor,
-      {
-        entity: 'project-notes',
-        entityId: project.id,
-        projectId: project.id,
-        action: 'update',
-        before,
-        after: notes,
-      },
-      transaction,
-    );
-    return notes;
-  });
+  await updateAudited(actor, project, 'project-notes', notesOf(project), notes);
+  return notes;
 }

@@ -1,4 +1,5 @@
 import 'server-only';
+import type { InferAttributes } from 'sequelize';
 import { Project, sequelize } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
@@ -118,22 +119,29 @@ export async function updateProject(actor: Actor, projectId: number, input: unkn
   const project = await findProject(actor, projectId);
   await assertWritable(actor.organizationId);
   await assertCodeFree(actor, data.code, project.id);
+  await updateAudited(actor, project, 'project', toProjectView(project), data);
+  return toProjectView(project);
+}
+
+/** Updates a project and records the change (`before` → the changes) in one transaction. */
+export function updateAudited(
+  actor: Actor,
+  project: Project,
+  entity: string,
+  before: unknown,
+  changes: Partial<InferAttributes<Project>>,
+): Promise<void> {
   return sequelize.transaction(async (transaction) => {
-    const before = toProjectView(project);
-    await project.update(data, { transaction });
-    await recordAudit(
-      actor,
-      {
-        entity: 'project',
-        entityId: project.id,
-        projectId: project.id,
-        action: 'update',
-        before,
-        after: data,
-      },
-      transaction,
-    );
-    return toProjectView(project);
+    await project.update(changes, { transaction });
+    const change = {
+      entity,
+      entityId: project.id,
+      projectId: project.id,
+      action: 'update',
+      before,
+      after: changes,
+    };
+    await recordAudit(actor, change, transaction);
   });
 }
 

@@ -33,17 +33,31 @@ export type Bound = { max: number; text: string };
 export const MONEY: Bound = { max: MAX_MONEY, text: `±${MAX_MONEY.toLocaleString('en-GB')}` };
 export const DAYS: Bound = { max: MAX_DAYS, text: `±${MAX_DAYS.toLocaleString('en-GB')} days` };
 
-/** An optional number within ±bound: empty is null; text that is not a number says so. */
-const optNumber = (label: string, bound: Bound) =>
-  z
-    .number({ error: (iss) => `${label} must be a number (got ${describe(iss.input)}).` })
-    .refine(Number.isFinite, { message: `${label} must be a finite number.` })
-    .refine((v) => Math.abs(v) <= bound.max, {
-      error: (iss) => `${label} must lie within ${bound.text} (got ${describe(iss.input)}).`,
-    })
+/** The schema, or null when the cell is empty (absent, null). */
+const orNull = <T extends z.ZodType>(schema: T) =>
+  schema
     .nullable()
     .optional()
     .transform((v) => v ?? null);
+
+/** Required text of at most `max` characters, named `field` in the messages. */
+const requiredText = (field: string, max: number) =>
+  z
+    .string({ error: `Enter a ${field}.` })
+    .trim()
+    .min(1, { message: `Enter a ${field}.` })
+    .max(max, { message: `Keep the ${field} under ${max} characters.` });
+
+/** An optional number within ±bound: empty is null; text that is not a number says so. */
+const optNumber = (label: string, bound: Bound) =>
+  orNull(
+    z
+      .number({ error: (iss) => `${label} must be a number (got ${describe(iss.input)}).` })
+      .refine(Number.isFinite, { message: `${label} must be a finite number.` })
+      .refine((v) => Math.abs(v) <= bound.max, {
+        error: (iss) => `${label} must lie within ${bound.text} (got ${describe(iss.input)}).`,
+      }),
+  );
 
 const optText = (max: number, label: string) =>
   z
@@ -54,14 +68,9 @@ const optText = (max: number, label: string) =>
     .optional()
     .transform((v) => (v ? v : null));
 
-export const codeSchema = z
-  .string({ error: 'Enter a code.' })
-  .trim()
-  .min(1, { message: 'Enter a code.' })
-  .max(40, { message: 'Keep the code under 40 characters.' })
-  .regex(/^[A-Za-z0-9][A-Za-z0-9._\-/]*$/, {
-    message: 'Use letters, digits, dots, dashes or slashes (no spaces, commas or +).',
-  });
+export const codeSchema = requiredText('code', 40).regex(/^[A-Za-z0-9][A-Za-z0-9._\-/]*$/, {
+  message: 'Use letters, digits, dots, dashes or slashes (no spaces, commas or +).',
+});
 
 const probability = (label: string) =>
   z
@@ -92,19 +101,11 @@ function refineDist(
 
 const lineItemShape = {
   code: codeSchema,
-  description: z
-    .string({ error: 'Enter a description.' })
-    .trim()
-    .min(1, { message: 'Enter a description.' })
-    .max(255, { message: 'Keep the description under 255 characters.' }),
+  description: requiredText('description', 255),
   basis: z.enum(BASES, { message: 'Choose lump sum or per day.' }).default('lump-sum'),
   activityCode: optText(40, 'Activity'),
   distType: z.enum(DIST_TYPES, { message: `Choose a distribution: ${DIST_TYPES.join(', ')}.` }).nullable(),
-  range: z
-    .enum(RANGE_KINDS, { message: 'Range is min-max or p10-p90.' })
-    .nullable()
-    .optional()
-    .transform((v) => v ?? null),
+  range: orNull(z.enum(RANGE_KINDS, { message: 'Range is min-max or p10-p90.' })),
   low: optNumber('Low', MONEY),
   mode: optNumber('Most likely', MONEY),
   high: optNumber('High', MONEY),
@@ -153,19 +154,13 @@ export type LineItemData = z.output<typeof lineItemSchema>;
 // ---- Risk events ----
 
 const impactType = (label: string) =>
-  z
-    .enum(RISK_IMPACT_TYPES, { message: `${label}: choose fixed, uniform, triangular, pert or lognormal.` })
-    .nullable()
-    .optional()
-    .transform((v) => v ?? null);
+  orNull(
+    z.enum(RISK_IMPACT_TYPES, { message: `${label}: choose fixed, uniform, triangular, pert or lognormal.` }),
+  );
 
 const riskShape = {
   code: codeSchema,
-  title: z
-    .string({ error: 'Enter a title.' })
-    .trim()
-    .min(1, { message: 'Enter a title.' })
-    .max(255, { message: 'Keep the title under 255 characters.' }),
+  title: requiredText('title', 255),
   cause: optText(4000, 'Cause'),
   event: optText(4000, 'Event'),
   effect: optText(4000, 'Effect'),
@@ -185,10 +180,7 @@ const riskShape = {
   delayHigh: optNumber('Delay high', DAYS),
   activityCode: optText(40, 'Activity'),
   mitigationCost: optNumber('Mitigation cost', MONEY),
-  postProbability: probability('Post-mitigation probability')
-    .nullable()
-    .optional()
-    .transform((v) => v ?? null),
+  postProbability: orNull(probability('Post-mitigation probability')),
   postCostLow: optNumber('Post cost low', MONEY),
   postCostMode: optNumber('Post cost most likely', MONEY),
   postCostHigh: optNumber('Post cost high', MONEY),
@@ -281,11 +273,7 @@ export const predecessorLinkSchema = z.object({
 
 const activityShape = {
   code: codeSchema,
-  name: z
-    .string({ error: 'Enter a name.' })
-    .trim()
-    .min(1, { message: 'Enter a name.' })
-    .max(255, { message: 'Keep the name under 255 characters.' }),
+  name: requiredText('name', 255),
   distType: z.enum(DIST_TYPES, { message: `Choose a distribution: ${DIST_TYPES.join(', ')}.` }),
   range: lineItemShape.range,
   low: optNumber('Low', DAYS),

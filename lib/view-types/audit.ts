@@ -1,3 +1,13 @@
-// What the pages see of a project's audit trail. The shape is produced by the registers
-// service; it is named here so that client components take it from a module of types.
-export type { AuditView } from '@/lib/services/registers/read';
+// What the pages see of a project's audit trail. The registers service produces it; no server
+// code here, so client components may import it.
+
+export type AuditView = {
+  id: number;
+  at: string;
+  who: string;
+  entity: string;
+  entityId: string | null;
+  action: string;
+  before: unknown;
+  after: unknown;
+};

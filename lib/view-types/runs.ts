@@ -1,4 +1,34 @@
-// What the pages see of a run. The shape is produced by the runs service; it is named here so
-// that client components take it from a module of types rather than from the service.
-export type { RunView } from '@/lib/services/runs/view';
-export type { RunStatus, RunSummary } from '@/models/simulation-run';
+// What the pages see of a run: its state, settings and headline figures, never the large
+// snapshot or result (those have their own reads). The runs service produces it; no server code
+// here, so client components may import it. Status and summary are the run record's own types.
+import type { RunSettings } from '@/lib/validation/runs';
+import type { RunStatus, RunSummary } from '@/models/simulation-run';
+
+export type { RunStatus, RunSummary };
+
+export type RunView = {
+  id: number;
+  projectId: number;
+  status: RunStatus;
+  settings: RunSettings;
+  progress: number;
+  iterationsDone: number;
+  /** The iterations the run is heading for now (with a precision goal: its cap). */
+  iterationsPlanned: number;
+  failureReason: string | null;
+  inputHash: string;
+  startedBy: { id: number; name: string } | null;
+  createdAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+  /** 1 for the next to start, for a run waiting in its organisation's queue. */
+  queuePosition: number | null;
+  /** Estimated milliseconds left, for a running run that has made some progress. */
+  msLeft: number | null;
+  summary: RunSummary | null;
+  /**
+   * The engine the run was computed by (null for runs from before it was recorded, and for runs
+   * not started yet), and, when the current engine would compute other numbers for it, why.
+   */
+  engine: { version: string | null; blockSize: number | null; notice: string | null };
+};

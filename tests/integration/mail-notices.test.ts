@@ -37,11 +37,10 @@ describe('notices by e-mail', () => {
   });
 
   it('sends "run finished" to whoever started the run, with the link to its outcome', async () => {
-    const queued = await notifyRunFinished({
-      ...run,
-      p80Text: 'EUR 25,340,000',
-      startedBy: { userId: await userId(ownerEmail), email: ownerEmail },
-    });
+    const queued = await notifyRunFinished(
+      { userId: await userId(ownerEmail), email: ownerEmail },
+      { ...run, p80Text: 'EUR 25,340,000' },
+    );
     expect(queued).toBe(1);
     const [mail] = await waitForMail(ownerEmail, { kind: 'run_finished' });
     expect(mail.envelope.to).toEqual([ownerEmail]);
@@ -58,9 +57,9 @@ describe('notices by e-mail', () => {
       await count('NotificationPreferences', 'userId = ? AND kind = ? AND enabled = 0', [id, 'run_finished']),
     ).toBe(1);
 
-    expect(await notifyRunFinished({ ...run, startedBy: { userId: id, email: estimatorEmail } })).toBe(0);
+    expect(await notifyRunFinished({ userId: id, email: estimatorEmail }, run)).toBe(0);
     // Given by e-mail alone, the recipient is still recognised.
-    expect(await notifyRunFinished({ ...run, startedBy: { email: estimatorEmail.toUpperCase() } })).toBe(0);
+    expect(await notifyRunFinished({ email: estimatorEmail.toUpperCase() }, run)).toBe(0);
     expect(
       await count('OutboundMessages', 'toAddress = ? AND kind = ?', [estimatorEmail, 'run_finished']),
     ).toBe(0);
@@ -69,12 +68,11 @@ describe('notices by e-mail', () => {
     const estimators = await recipientsWithRole(organizationId, ['estimator']);
     expect(estimators.map((r) => r.email)).toEqual([estimatorEmail]);
     expect(
-      await notifyDecision({
+      await notifyDecision(estimators, {
         ...run,
         decision: 'returned',
         decidedByName: 'Sponsor Person',
         comment: 'Widen the <b>piling</b> range.',
-        estimators,
       }),
     ).toBe(1);
     const [decision] = await waitForMail(estimatorEmail, { kind: 'baseline_decision' });
@@ -85,7 +83,7 @@ describe('notices by e-mail', () => {
     expect((await estimator.put('/api/notifications', { kind: 'run_finished', enabled: true })).status).toBe(
       200,
     );
-    expect(await notifyRunFinished({ ...run, startedBy: { userId: id, email: estimatorEmail } })).toBe(1);
+    expect(await notifyRunFinished({ userId: id, email: estimatorEmail }, run)).toBe(1);
     await waitForMail(estimatorEmail, { kind: 'run_finished' });
   });
 
@@ -93,11 +91,10 @@ describe('notices by e-mail', () => {
     const sponsors = await recipientsWithRole(organizationId, ['sponsor']);
     expect(sponsors.map((s) => s.email)).toEqual([sponsorEmail]);
     expect(
-      await notifyBriefReady({
+      await notifyBriefReady(sponsors, {
         ...run,
         p80Text: 'EUR 25,340,000',
         preparedByName: 'Estimator Person',
-        sponsors,
       }),
     ).toBe(1);
     const [mail] = await waitForMail(sponsorEmail, { kind: 'brief_ready' });

@@ -41,6 +41,17 @@ class Writer {
     }
   }
 
+  /** A hairline across the text width at the current position. */
+  rule(lineWidth: number) {
+    const { doc, left, y } = this;
+    doc
+      .lineWidth(lineWidth)
+      .strokeColor(C.rule)
+      .moveTo(left, y)
+      .lineTo(left + this.width, y)
+      .stroke();
+  }
+
   /** A section title, kept on one page with the first `keepWith` points of what follows. */
   heading(text: string, keepWith = 40) {
     this.room(25 + keepWith);
@@ -51,12 +62,7 @@ class Writer {
       lineBreak: false,
     });
     this.y += 12;
-    this.doc
-      .lineWidth(0.5)
-      .strokeColor(C.rule)
-      .moveTo(this.left, this.y)
-      .lineTo(this.left + this.width, this.y)
-      .stroke();
+    this.rule(0.5);
     this.y += 5;
   }
 
@@ -91,12 +97,7 @@ class Writer {
         x += w;
       });
       this.y += h;
-      this.doc
-        .lineWidth(0.4)
-        .strokeColor(C.rule)
-        .moveTo(this.left, this.y)
-        .lineTo(this.left + this.width, this.y)
-        .stroke();
+      this.rule(0.4);
     };
     row(
       columns.map((c) => c.label),
@@ -122,6 +123,14 @@ class Writer {
 }
 
 const shareText = (share: number | null) => (share === null ? '—' : signedPercent(share));
+
+/** The columns of a confidence-level table whose values are named `value`. */
+const percentileColumns = (value: string): Column[] => [
+  { label: 'Level', width: 1 },
+  { label: value, width: 2, align: 'right' },
+  { label: '95 % interval', width: 3, align: 'right' },
+  { label: 'vs base', width: 1, align: 'right' },
+];
 
 function percentileRows(total: TotalBrief, show: (v: number) => string): string[][] {
   return total.percentiles.map((p) => [
@@ -258,24 +267,11 @@ export async function renderBriefPdf(
   headlineFigures(w, brief);
 
   w.heading('Confidence levels of total cost');
-  w.table(
-    [
-      { label: 'Level', width: 1 },
-      { label: 'Cost', width: 2, align: 'right' },
-      { label: '95 % interval', width: 3, align: 'right' },
-      { label: 'vs base', width: 1, align: 'right' },
-    ],
-    percentileRows(brief.cost, money),
-  );
+  w.table(percentileColumns('Cost'), percentileRows(brief.cost, money));
   if (brief.duration) {
     w.heading('Confidence levels of duration (working days)');
     w.table(
-      [
-        { label: 'Level', width: 1 },
-        { label: 'Duration', width: 2, align: 'right' },
-        { label: '95 % interval', width: 3, align: 'right' },
-        { label: 'vs base', width: 1, align: 'right' },
-      ],
+      percentileColumns('Duration'),
       percentileRows(brief.duration, (v) => formatDays(v)),
     );
   }

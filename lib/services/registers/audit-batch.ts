@@ -5,7 +5,7 @@ import 'server-only';
 import type { Transaction } from 'sequelize';
 import { AuditEntry } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
-import type { AuditChange } from '../audit';
+import { type AuditChange, auditRow } from '../audit';
 
 export async function recordAuditMany(
   actor: Actor,
@@ -15,16 +15,7 @@ export async function recordAuditMany(
 ): Promise<void> {
   if (changes.length === 0) return;
   await AuditEntry.bulkCreate(
-    changes.map((c) => ({
-      organizationId: actor.organizationId,
-      projectId,
-      userId: actor.userId,
-      entity: c.entity,
-      entityId: c.entityId === null ? null : String(c.entityId),
-      action: c.action,
-      before: c.before ?? null,
-      after: c.after ?? null,
-    })),
+    changes.map((c) => auditRow(actor, { ...c, projectId })),
     { transaction },
   );
 }

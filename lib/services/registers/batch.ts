@@ -24,7 +24,7 @@ import {
 } from './plan';
 import type { RegisterRow } from './rows';
 import { currentRows, loadState } from './state';
-import { StaleWrite, writePlan } from './write-plan';
+import { StaleWrite, writePlan, type WriteScope } from './write-plan';
 
 export type { Conflict, ParsedBatch } from './plan';
 export { rowCode } from './kinds';
@@ -62,26 +62,19 @@ export async function saveBatch<K extends RegisterKind>(
   if (issues.length) throw badRequest(summarise(issues), issues);
   const project = await findProject(actor, projectId);
   await assertWritable(actor.organizationId);
+  const parsed: ParsedBatch = { upserts: data, deletes: batch.deletes, order: batch.order };
   return sequelize.transaction((transaction) =>
-    applyBatch(
-      transaction,
-      actor,
-      project.id,
-      kind,
-      { upserts: data, deletes: batch.deletes, order: batch.order },
-      options,
-    ),
+    applyBatch({ actor, projectId: project.id }, kind, parsed, options, transaction),
   );
 }
 
 /** Applies a parsed batch inside the caller's transaction (imports chain several). */
 export async function applyBatch<K extends RegisterKind>(
-  transaction: Transaction,
-  actor: Actor,
-  projectId: number,
+  { actor, projectId }: WriteScope,
   kind: K,
   batch: ParsedBatch,
-  options: BatchOptions = {},
+  options: BatchOptions,
+  transaction: Transaction,
 ): Promise<BatchResult<K>> {
   // One writer per project at a time: cross-row rules (codes, network) hold under concurrency.
   await Project.findOne({

@@ -147,9 +147,7 @@ export async function commitImport(
     const sheets = [];
     for (const b of ordered) {
       const result = await applyBatch(
-        transaction,
-        actor,
-        project.id,
+        { actor, projectId: project.id },
         b.table.kind,
         { upserts: b.upserts, deletes: [] },
         {
@@ -158,6 +156,7 @@ export async function commitImport(
             `${b.label(i)}${(row as { code?: string }).code ? ` (${(row as { code?: string }).code})` : ''}`,
           auditAction: 'import',
         },
+        transaction,
       );
       sheets.push({
         kind: b.table.kind,

@@ -4,6 +4,7 @@ import 'server-only';
 import { Op } from 'sequelize';
 import { AuditEntry, User } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
+import type { AuditView } from '@/lib/view-types/audit';
 import type { RegisterKind } from '@/lib/validation/registers';
 import { findProject } from '../projects';
 import type { RegisterRow } from './rows';
@@ -18,17 +19,6 @@ export async function listRegister<K extends RegisterKind>(
   const state = await loadState(project.id, actor.organizationId, undefined, kind);
   return state[kind] as RegisterRow[K][];
 }
-
-export type AuditView = {
-  id: number;
-  at: string;
-  who: string;
-  entity: string;
-  entityId: string | null;
-  action: string;
-  before: unknown;
-  after: unknown;
-};
 
 /** The project's audit trail, newest first, in pages of `limit` before the entry `before`. */
 export async function listAudit(

@@ -45,27 +45,7 @@ export async function writePlan(
   const scope = { projectId, organizationId: actor.organizationId };
   const ids: InsertedIds = { items: [], risks: [], activities: [], correlations: [] };
   const order: RegisterKind[] = [plan.kind, ...REGISTERS.filter((k) => k !== plan.kind)];
-  for (const kind of order) {
-    const w = plan.writes;
-    switch (kind) {
-      case 'items':
-        ids.items = await writeRegister(CostItem, kind, w.items, scope, transaction);
-        await writeMoves(CostItem, kind, w.items.moves, scope, transaction);
-        break;
-      case 'risks':
-        ids.risks = await writeRegister(RiskEvent, kind, w.risks, scope, transaction);
-        await writeMoves(RiskEvent, kind, w.risks.moves, scope, transaction);
-        break;
-      case 'activities':
-        ids.activities = await writeRegister(Activity, kind, w.activities, scope, transaction);
-        await writeMoves(Activity, kind, w.activities.moves, scope, transaction);
-        break;
-      case 'correlations':
-        // Correlations have no place of their own: the plan never moves one.
-        ids.correlations = await writeRegister(Correlation, kind, w.correlations, scope, transaction);
-        break;
-    }
-  }
+  for (const kind of order) ids[kind] = await WRITERS[kind](plan.writes, scope, transaction);
   await recordAuditMany(
     actor,
     projectId,
@@ -82,6 +62,16 @@ export async function writePlan(
 }
 
 const REGISTERS: RegisterKind[] = ['items', 'risks', 'activities', 'correlations'];
+
+type Writer = (writes: WritePlan['writes'], scope: Scope, transaction: Transaction) => Promise<number[]>;
+
+/** Each register's model; correlations have no place of their own, so the plan never moves one. */
+const WRITERS: Record<RegisterKind, Writer> = {
+  items: placedWriter(CostItem, 'items', (w) => w.items),
+  risks: placedWriter(RiskEvent, 'risks', (w) => w.risks),
+  activities: placedWriter(Activity, 'activities', (w) => w.activities),
+  correlations: (w, scope, t) => writeRegister(Correlation, 'correlations', w.correlations, scope, t),
+};
 
 type Scope = { projectId: number; organizationId: number };
 
@@ -127,6 +117,20 @@ async function writeRegister<M extends Model<Scoped, Partial<Scoped>>>(
 }
 
 /** A move changes a row's place, not its content: its version and updatedAt stay. */
+/** The writer of a register that keeps an order: its rows' writes, then their moves. */
+function placedWriter<M extends Model<Placed, Partial<Placed>>>(
+  model: ModelStatic<M>,
+  kind: RegisterKind,
+  writesOf: (plan: WritePlan['writes']) => RegisterWrites<CreationAttributes<M>>,
+): Writer {
+  return async (planWrites, scope, transaction) => {
+    const writes = writesOf(planWrites);
+    const ids = await writeRegister(model, kind, writes, scope, transaction);
+    await writeMoves(model, kind, writes.moves, scope, transaction);
+    return ids;
+  };
+}
+
 async function writeMoves<M extends Model<Placed, Partial<Placed>>>(
   model: ModelStatic<M>,
   kind: RegisterKind,

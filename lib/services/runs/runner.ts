@@ -106,16 +106,18 @@ export async function notifyFinished(runId: number) {
       run.status === 'succeeded' ? 'succeeded' : run.status === 'cancelled' ? 'cancelled' : 'failed';
     const s = run.settings;
     const { notifyRunFinished } = await import('@/lib/mail');
-    await notifyRunFinished({
-      projectId: project.id,
-      projectName: project.name,
-      runId: run.id,
-      outcome,
-      p80Text: run.summary ? formatMoney(run.summary.cost.P80, project.currency) : undefined,
-      settingsText: `${s.iterations.toLocaleString('en-GB')} iterations, ${s.sampling.toUpperCase()}, seed ${s.seed}`,
-      failureText: outcome === 'failed' ? (run.failureReason ?? undefined) : undefined,
-      startedBy: { userId: user.id, email: user.email, name: user.name },
-    });
+    await notifyRunFinished(
+      { userId: user.id, email: user.email, name: user.name },
+      {
+        projectId: project.id,
+        projectName: project.name,
+        runId: run.id,
+        outcome,
+        p80Text: run.summary ? formatMoney(run.summary.cost.P80, project.currency) : undefined,
+        settingsText: `${s.iterations.toLocaleString('en-GB')} iterations, ${s.sampling.toUpperCase()}, seed ${s.seed}`,
+        failureText: outcome === 'failed' ? (run.failureReason ?? undefined) : undefined,
+      },
+    );
   } catch (e) {
     // A mail that cannot be queued must not change the run's outcome.
     console.error(`run ${runId}: finish notice not queued`, e);

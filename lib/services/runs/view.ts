@@ -2,36 +2,11 @@ import 'server-only';
 // What the pages and the API see of a run: its state, settings and headline figures, never the
 // large snapshot or result (those have their own reads).
 
-import type { SimulationRun, RunStatus, RunSummary } from '@/models/simulation-run';
-import type { RunSettings } from '@/lib/validation/runs';
+import type { SimulationRun } from '@/models/simulation-run';
+import type { RunView } from '@/lib/view-types/runs';
 import { engineDifference } from './engine-match';
 
-export type RunView = {
-  id: number;
-  projectId: number;
-  status: RunStatus;
-  settings: RunSettings;
-  progress: number;
-  iterationsDone: number;
-  /** The iterations the run is heading for now (with a precision goal: its cap). */
-  iterationsPlanned: number;
-  failureReason: string | null;
-  inputHash: string;
-  startedBy: { id: number; name: string } | null;
-  createdAt: string;
-  startedAt: string | null;
-  finishedAt: string | null;
-  /** 1 for the next to start, for a run waiting in its organisation's queue. */
-  queuePosition: number | null;
-  /** Estimated milliseconds left, for a running run that has made some progress. */
-  msLeft: number | null;
-  summary: RunSummary | null;
-  /**
-   * The engine the run was computed by (null for runs from before it was recorded, and for runs
-   * not started yet), and, when the current engine would compute other numbers for it, why.
-   */
-  engine: { version: string | null; blockSize: number | null; notice: string | null };
-};
+export type { RunView };
 
 type Row = SimulationRun & { startedBy?: { id: number; name: string } | null };
 

@@ -14,19 +14,20 @@ export type { Distribution, DistributionKind } from './types';
 export type { DistLocation } from './checks';
 export { createFixed, createUniform, createTriangular, createPert, createNormal, createLognormal };
 
+type Factory<T extends DistSpec['type']> = (
+  spec: Extract<DistSpec, { type: T }>,
+  at: DistLocation,
+) => Distribution;
+
+const FACTORIES: { [T in DistSpec['type']]: Factory<T> } = {
+  fixed: createFixed,
+  uniform: createUniform,
+  triangular: createTriangular,
+  pert: createPert,
+  normal: createNormal,
+  lognormal: createLognormal,
+};
+
 export function createDistribution(spec: DistSpec, at: DistLocation): Distribution {
-  switch (spec.type) {
-    case 'fixed':
-      return createFixed(spec, at);
-    case 'uniform':
-      return createUniform(spec, at);
-    case 'triangular':
-      return createTriangular(spec, at);
-    case 'pert':
-      return createPert(spec, at);
-    case 'normal':
-      return createNormal(spec, at);
-    case 'lognormal':
-      return createLognormal(spec, at);
-  }
+  return (FACTORIES[spec.type] as Factory<DistSpec['type']>)(spec, at);
 }

@@ -14,27 +14,21 @@
 import { normalCdf, normalQuantile } from '../math/normal';
 import { normalQuantilesInto } from '../math/normal-quantile-table';
 import { type DistLocation, fail, requireFinite, requireGreater, requirePositive } from './checks';
+import { SpreadDistribution } from './spread';
 import type { Distribution } from './types';
 
 export type LognormalParams = { p10: number; p90: number } | { mean: number; sd: number };
 
 const Z90 = normalQuantile(0.9);
 
-class LognormalDistribution implements Distribution {
+class LognormalDistribution extends SpreadDistribution {
   readonly kind = 'lognormal';
-  readonly degenerate = false;
-  readonly support: readonly [number, number] = [0, Infinity];
-  readonly mean: number;
-  readonly variance: number;
-  readonly base: number;
   constructor(
     private readonly mu: number,
     private readonly sigma: number,
   ) {
     const s2 = sigma * sigma;
-    this.mean = Math.exp(mu + s2 / 2);
-    this.variance = Math.expm1(s2) * Math.exp(2 * mu + s2);
-    this.base = Math.exp(mu);
+    super(Math.exp(mu + s2 / 2), Math.expm1(s2) * Math.exp(2 * mu + s2), Math.exp(mu), [0, Infinity]);
   }
   quantile(u: number): number {
     return Math.exp(this.mu + this.sigma * normalQuantile(u));

@@ -12,6 +12,7 @@
 import { normalCdf, normalQuantile } from '../math/normal';
 import { normalQuantilesInto } from '../math/normal-quantile-table';
 import { type DistLocation, requireFinite, requirePositive } from './checks';
+import { SpreadDistribution } from './spread';
 import type { Distribution } from './types';
 
 export interface NormalParams {
@@ -19,18 +20,13 @@ export interface NormalParams {
   sd: number;
 }
 
-class NormalDistribution implements Distribution {
+class NormalDistribution extends SpreadDistribution {
   readonly kind = 'normal';
-  readonly degenerate = false;
-  readonly support: readonly [number, number] = [-Infinity, Infinity];
-  readonly variance: number;
-  readonly base: number;
   constructor(
-    readonly mean: number,
+    mean: number,
     private readonly sigma: number,
   ) {
-    this.variance = sigma * sigma;
-    this.base = mean;
+    super(mean, sigma * sigma, mean, [-Infinity, Infinity]);
   }
   quantile(u: number): number {
     return this.mean + this.sigma * normalQuantile(u);

@@ -19,6 +19,7 @@ import { type BetaQuantileTable, betaQuantileTable } from '../math/beta-quantile
 import type { DistLocation } from './checks';
 import { fitBoundsToP10P90 } from './fit-p10-p90';
 import { checkThreePoint, type ThreePointParams } from './triangular';
+import { SpreadDistribution } from './spread';
 import type { Distribution } from './types';
 
 const LAMBDA = 4;
@@ -28,13 +29,8 @@ function standardPertQuantile(r: number, u: number): number {
   return jStat.ibetainv(u, 1 + LAMBDA * r, 1 + LAMBDA * (1 - r));
 }
 
-class PertDistribution implements Distribution {
+class PertDistribution extends SpreadDistribution {
   readonly kind = 'pert';
-  readonly degenerate = false;
-  readonly mean: number;
-  readonly variance: number;
-  readonly base: number;
-  readonly support: readonly [number, number];
   private readonly w: number;
   private readonly alpha: number;
   private readonly beta: number;
@@ -46,15 +42,13 @@ class PertDistribution implements Distribution {
     c: number,
     b: number,
   ) {
+    const mean = (a + LAMBDA * c + b) / (LAMBDA + 2);
+    super(mean, ((mean - a) * (b - mean)) / 7, c, [a, b]);
     const w = b - a;
     this.w = w;
     this.alpha = 1 + (LAMBDA * (c - a)) / w;
     this.beta = 1 + (LAMBDA * (b - c)) / w;
     this.betaShape = [this.alpha, this.beta];
-    this.mean = (a + LAMBDA * c + b) / (LAMBDA + 2);
-    this.variance = ((this.mean - a) * (b - this.mean)) / 7;
-    this.base = c;
-    this.support = [a, b];
   }
   private getTable(): BetaQuantileTable {
     return (this.table ??= betaQuantileTable(this.alpha, this.beta));

@@ -16,6 +16,7 @@
 
 import { type DistLocation, requireBetween, requireFinite, requireGreater } from './checks';
 import { fitBoundsToP10P90 } from './fit-p10-p90';
+import { SpreadDistribution } from './spread';
 import type { Distribution } from './types';
 
 export interface ThreePointParams {
@@ -38,13 +39,8 @@ export function checkThreePoint(p: ThreePointParams, at: DistLocation): void {
   requireBetween(at, 'mode', p.mode, p.low, p.high);
 }
 
-class TriangularDistribution implements Distribution {
+class TriangularDistribution extends SpreadDistribution {
   readonly kind = 'triangular';
-  readonly degenerate = false;
-  readonly mean: number;
-  readonly variance: number;
-  readonly base: number;
-  readonly support: readonly [number, number];
   private readonly left: number;
   private readonly right: number;
   private readonly fc: number;
@@ -53,13 +49,10 @@ class TriangularDistribution implements Distribution {
     private readonly c: number,
     private readonly b: number,
   ) {
+    super((a + b + c) / 3, (a * a + b * b + c * c - a * b - a * c - b * c) / 18, c, [a, b]);
     this.left = (b - a) * (c - a);
     this.right = (b - a) * (b - c);
     this.fc = (c - a) / (b - a);
-    this.mean = (a + b + c) / 3;
-    this.variance = (a * a + b * b + c * c - a * b - a * c - b * c) / 18;
-    this.base = c;
-    this.support = [a, b];
   }
   quantile(u: number): number {
     return u < this.fc ? this.a + Math.sqrt(u * this.left) : this.b - Math.sqrt((1 - u) * this.right);

@@ -8,6 +8,7 @@
  */
 
 import { type DistLocation, requireFinite, requireGreater } from './checks';
+import { SpreadDistribution } from './spread';
 import type { Distribution } from './types';
 
 export interface UniformParams {
@@ -15,21 +16,13 @@ export interface UniformParams {
   high: number;
 }
 
-class UniformDistribution implements Distribution {
+class UniformDistribution extends SpreadDistribution {
   readonly kind = 'uniform';
-  readonly degenerate = false;
-  readonly mean: number;
-  readonly variance: number;
-  readonly base: number;
-  readonly support: readonly [number, number];
   constructor(
     private readonly a: number,
     private readonly w: number,
   ) {
-    this.mean = a + w / 2;
-    this.base = this.mean;
-    this.variance = (w * w) / 12;
-    this.support = [a, a + w];
+    super(a + w / 2, (w * w) / 12, a + w / 2, [a, a + w]);
   }
   quantile(u: number): number {
     return this.a + u * this.w;

@@ -21,6 +21,7 @@
  */
 
 import jStat from 'jstat';
+import { hermiteCell, hermiteCellsInto } from './hermite-cells';
 
 const K = 256;
 const CELLS = 4 * K;
@@ -138,6 +139,8 @@ class QuantileTable implements BetaQuantileTable {
   private sink = 0;
   private readonly one = new Float64Array(1);
   private readonly result = new Float64Array(1);
+  /** The exact quantile, for flagged cells. */
+  private readonly exact = (v: number) => this.slow.invert(v);
   constructor(
     readonly node: Float64Array,
     readonly flagged: Uint8Array,
@@ -146,12 +149,7 @@ class QuantileTable implements BetaQuantileTable {
 
   /** The cubic of cell g at t ∈ [0, 1]. */
   cubic(g: number, t: number): number {
-    const nd = this.node;
-    const x0 = nd[2 * g];
-    const m0 = nd[2 * g + 1];
-    const d = nd[2 * g + 2] - x0;
-    const m1 = nd[2 * g + 3];
-    return x0 + t * (m0 + t * (3 * d - 2 * m0 - m1 + t * (m0 + m1 - 2 * d)));
+    return hermiteCell(this.node, g, t);
   }
 
   quantile(u: number): number {
@@ -166,21 +164,7 @@ class QuantileTable implements BetaQuantileTable {
     // Read the table once in order first: a sequential sweep brings it into cache far faster
     // than the scattered lookups below would, one miss at a time.
     if (n >= 256) this.sink = prefetch(nd, fl);
-    for (let i = 0; i < n; i++) {
-      const s = u[i] * G;
-      const g = s | 0;
-      if (g >= G || fl[g] === 1 || !(s > 0)) {
-        out[i] = a + w * this.slow.invert(u[i]);
-        continue;
-      }
-      const t = s - g;
-      const j = 2 * g;
-      const x0 = nd[j];
-      const m0 = nd[j + 1];
-      const d = nd[j + 2] - x0;
-      const m1 = nd[j + 3];
-      out[i] = a + w * (x0 + t * (m0 + t * (3 * d - 2 * m0 - m1 + t * (m0 + m1 - 2 * d))));
-    }
+    hermiteCellsInto(nd, fl, G, this.exact, u, out, n, a, w);
   }
 }
 

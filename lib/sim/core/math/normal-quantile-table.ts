@@ -9,6 +9,7 @@
  * Accuracy is checked against the exact function in the unit tests.
  */
 
+import { hermiteCell, hermiteCellsInto } from './hermite-cells';
 import { normalPdf, normalQuantile } from './normal';
 
 const G = 2048;
@@ -21,15 +22,8 @@ for (let g = 0; g <= G; g++) {
   node[2 * g] = z;
   node[2 * g + 1] = 1 / G / normalPdf(z);
 }
-const cubic = (g: number, t: number) => {
-  const z0 = node[2 * g];
-  const m0 = node[2 * g + 1];
-  const d = node[2 * g + 2] - z0;
-  const m1 = node[2 * g + 3];
-  return z0 + t * (m0 + t * (3 * d - 2 * m0 - m1 + t * (m0 + m1 - 2 * d)));
-};
 for (let g = 0; g < G; g++) {
-  const approx = cubic(g, 0.5);
+  const approx = hermiteCell(node, g, 0.5);
   exact[g] = Number.isFinite(approx) && Math.abs(approx - normalQuantile((g + 0.5) / G)) <= TOLERANCE ? 0 : 1;
 }
 
@@ -41,21 +35,5 @@ export function normalQuantilesInto(
   mean: number,
   sd: number,
 ): void {
-  const nd = node;
-  const ex = exact;
-  for (let i = 0; i < n; i++) {
-    const s = u[i] * G;
-    const g = s | 0;
-    if (g >= G || ex[g] === 1 || !(s > 0)) {
-      out[i] = mean + sd * normalQuantile(u[i]);
-      continue;
-    }
-    const t = s - g;
-    const j = 2 * g;
-    const z0 = nd[j];
-    const m0 = nd[j + 1];
-    const d = nd[j + 2] - z0;
-    const m1 = nd[j + 3];
-    out[i] = mean + sd * (z0 + t * (m0 + t * (3 * d - 2 * m0 - m1 + t * (m0 + m1 - 2 * d))));
-  }
+  hermiteCellsInto(node, exact, G, normalQuantile, u, out, n, mean, sd);
 }

@@ -11,6 +11,23 @@
 
 const INV_SQRT_2PI = 0.3989422804014327;
 
+// Hart's coefficients for |z| < 7.07, highest power first.
+const HART_NUM = [
+  3.52624965998911e-2, 0.700383064443688, 6.37396220353165, 33.912866078383, 112.079291497871,
+  221.213596169931, 220.206867912376,
+];
+const HART_DEN = [
+  8.83883476483184e-2, 1.75566716318264, 16.064177579207, 86.7807322029461, 296.564248779674,
+  637.333633378831, 793.826512519948, 440.413735824752,
+];
+
+/** c[0]·xⁿ + … + c[n] by Horner's rule, in the same order of operations as written out. */
+function horner(c: readonly number[], x: number): number {
+  let v = c[0];
+  for (let i = 1; i < c.length; i++) v = v * x + c[i];
+  return v;
+}
+
 export function normalPdf(z: number): number {
   return INV_SQRT_2PI * Math.exp(-0.5 * z * z);
 }
@@ -24,26 +41,11 @@ export function normalCdf(z: number): number {
   } else {
     const e = Math.exp(-0.5 * x * x);
     if (x < 7.07106781186547) {
-      let n = 3.52624965998911e-2 * x + 0.700383064443688;
-      n = n * x + 6.37396220353165;
-      n = n * x + 33.912866078383;
-      n = n * x + 112.079291497871;
-      n = n * x + 221.213596169931;
-      n = n * x + 220.206867912376;
-      let d = 8.83883476483184e-2 * x + 1.75566716318264;
-      d = d * x + 16.064177579207;
-      d = d * x + 86.7807322029461;
-      d = d * x + 296.564248779674;
-      d = d * x + 637.333633378831;
-      d = d * x + 793.826512519948;
-      d = d * x + 440.413735824752;
-      tail = (e * n) / d;
+      tail = (e * horner(HART_NUM, x)) / horner(HART_DEN, x);
     } else {
+      // Continued fraction x + 1/(x + 2/(x + 3/(x + 4/(x + 0.65)))), evaluated from the inside.
       let d = x + 0.65;
-      d = x + 4 / d;
-      d = x + 3 / d;
-      d = x + 2 / d;
-      d = x + 1 / d;
+      for (let k = 4; k >= 1; k--) d = x + k / d;
       tail = e / d / 2.506628274631;
     }
   }

@@ -70,7 +70,8 @@ function lowerBound(sorted: Float64Array, n: number, x: number): number {
   return lo;
 }
 
-function upperBound(sorted: Float64Array, n: number, x: number): number {
+/** Number of values ≤ x among the first n of a sorted array. */
+export function upperBound(sorted: Float64Array, n: number, x: number): number {
   let lo = 0;
   let hi = n;
   while (lo < hi) {

@@ -8,6 +8,7 @@
  */
 
 import type { Interval, PercentileKey, TotalSummary } from '../formats';
+import { upperBound } from '../math/ranks';
 import { percentileRank, quantileIntervalRanks } from './order-statistics';
 import { contingencyOf, PERCENTILES } from './percentiles';
 import { wilsonInterval } from './wilson';
@@ -23,14 +24,7 @@ export function percentileIntervalOfSorted(sorted: Float64Array, p: number): Int
 
 /** Number of values ≤ x in a sorted array. */
 export function countAtMost(sorted: Float64Array, x: number): number {
-  let lo = 0;
-  let hi = sorted.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (sorted[mid] <= x) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
+  return upperBound(sorted, sorted.length, x);
 }
 
 export function summarizeTotal(
