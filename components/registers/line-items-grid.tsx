@@ -10,7 +10,7 @@ import { meanOf, specFromParts, summarise, type DistType } from '@/lib/registers
 import { formatMoney } from '@/lib/registers/numbers';
 import { wbsLevel } from '@/lib/registers/wbs';
 import { distColumns } from './dist-columns';
-import { RegisterTab } from './register-tab';
+import { RegisterTab, type RegisterTabProps } from './register-tab';
 import { summaryColumns, type RowSummary } from './summary-columns';
 import { duplicateCodeIssue, totalRowOf, useRegisterPage, useSavedRows } from './use-register-page';
 
@@ -39,15 +39,7 @@ function lineSummary(row: GridRow, meanDays: Map<string, number>): RowSummary {
   return s;
 }
 
-export function LineItemsGrid({
-  projectId,
-  currency,
-  readOnly,
-}: {
-  projectId: number;
-  currency: string;
-  readOnly: boolean;
-}) {
+export function LineItemsGrid({ projectId, currency, readOnly }: RegisterTabProps) {
   const activities = useSavedRows(projectId, 'activities');
   const activityCodes = useMemo(
     () => new Set((activities.data ?? []).map((a) => String(a.code))),
@@ -177,19 +169,5 @@ export function LineItemsGrid({
     });
   }, [register.rows, durations, currency]);
 
-  return (
-    <RegisterTab
-      page={page}
-      projectId={projectId}
-      kind="items"
-      readOnly={readOnly}
-      label="Line items"
-      subject="The line items"
-      noun="line"
-      firstCode="1.1"
-      columns={columns}
-      totalRow={total}
-      emptyReadOnly="No line items yet."
-    />
-  );
+  return <RegisterTab page={page} readOnly={readOnly} columns={columns} totalRow={total} />;
 }

@@ -13,46 +13,56 @@ import { RegisterNotice } from './register-notice';
 import { RegisterToolbar } from './register-toolbar';
 import { nextCode, type RegisterPage } from './use-register-page';
 
-type Props = {
-  page: RegisterPage;
-  projectId: number;
-  kind: RegisterKind;
-  readOnly: boolean;
-  /** The grid's accessible name, e.g. "Line items". */
+/** The props a register tab takes from its page. */
+export type RegisterTabProps = { projectId: number; currency: string; readOnly: boolean };
+
+/**
+ * Each register's words: the grid's accessible name, what failed to load, the row noun, the
+ * code a first row gets when no earlier code can be continued, and what a reader sees when empty.
+ */
+type TabWords = {
   label: string;
-  /** What failed to load, e.g. "The line items". */
   subject: string;
   noun: string;
   plural?: string;
-  /** The code a first row gets when no earlier code can be continued. */
   firstCode: string;
+  empty?: string;
+};
+
+const TABS: Partial<Record<RegisterKind, TabWords>> = {
+  items: {
+    label: 'Line items',
+    subject: 'The line items',
+    noun: 'line',
+    firstCode: '1.1',
+    empty: 'No line items yet.',
+  },
+  risks: { label: 'Risk events', subject: 'The risk events', noun: 'risk', firstCode: 'R1' },
+  activities: {
+    label: 'Schedule',
+    subject: 'The schedule',
+    noun: 'activity',
+    plural: 'activities',
+    firstCode: 'A1',
+  },
+};
+
+type Props = {
+  page: RegisterPage;
+  readOnly: boolean;
   columns: RegisterColumn[];
   /** The rows to show when they differ from the register's own (e.g. with network issues). */
   rows?: GridRow[];
   totalRow?: Record<string, unknown>;
-  /** Said instead of an empty grid to a reader who cannot add rows. */
-  emptyReadOnly?: string;
   /** A panel to the right of the grid. */
   aside?: ReactNode;
 };
 
-export function RegisterTab({
-  page,
-  projectId,
-  kind,
-  readOnly,
-  label,
-  subject,
-  noun,
-  plural,
-  firstCode,
-  columns,
-  rows,
-  totalRow,
-  emptyReadOnly,
-  aside,
-}: Props) {
-  const { register, blank } = page;
+export function RegisterTab({ page, readOnly, columns, rows, totalRow, aside }: Props) {
+  const { register, blank, projectId, kind } = page;
+  const words = TABS[kind];
+  if (!words) throw new Error(`The ${kind} register has no grid tab.`);
+  const { label, subject, noun, plural, firstCode, empty } = words;
   if (register.query.isPending) return <Skeleton rows={8} />;
   if (register.query.isError)
     return (
@@ -93,9 +103,7 @@ export function RegisterTab({
         <ImportExport projectId={projectId} register={kind} readOnly={readOnly} />
       </RegisterToolbar>
       <RegisterNotice register={register} />
-      {emptyReadOnly && register.rows.length === 0 && readOnly ? (
-        <p className="text-ink-soft">{emptyReadOnly}</p>
-      ) : null}
+      {empty && register.rows.length === 0 && readOnly ? <p className="text-ink-soft">{empty}</p> : null}
       {aside ? (
         <div className="grid grid-cols-[1fr_auto] gap-3">
           <div className="min-w-0">{grid}</div>

@@ -14,7 +14,7 @@ import {
   type ImpactPrefix,
 } from '@/lib/validation/registers';
 import { ProbabilityImpactMatrix } from './probability-impact-matrix';
-import { RegisterTab } from './register-tab';
+import { RegisterTab, type RegisterTabProps } from './register-tab';
 import { duplicateCodeIssue, totalRowOf, useRegisterPage, useSavedRows } from './use-register-page';
 
 function impactMean(row: GridRow, prefix: ImpactPrefix): number | null {
@@ -93,15 +93,7 @@ function expectedColumn(
   };
 }
 
-export function RiskEventsGrid({
-  projectId,
-  currency,
-  readOnly,
-}: {
-  projectId: number;
-  currency: string;
-  readOnly: boolean;
-}) {
+export function RiskEventsGrid({ projectId, currency, readOnly }: RegisterTabProps) {
   const activities = useSavedRows(projectId, 'activities');
   const items = useSavedRows(projectId, 'items');
   const activityCodes = useMemo(() => (activities.data ?? []).map((a) => String(a.code)), [activities.data]);
@@ -191,13 +183,7 @@ export function RiskEventsGrid({
   return (
     <RegisterTab
       page={page}
-      projectId={projectId}
-      kind="risks"
       readOnly={readOnly}
-      label="Risk events"
-      subject="The risk events"
-      noun="risk"
-      firstCode="R1"
       columns={columns}
       totalRow={total}
       aside={

@@ -97,19 +97,5 @@ export function ScheduleGrid({ projectId, readOnly }: { projectId: number; readO
     [],
   );
 
-  return (
-    <RegisterTab
-      page={page}
-      projectId={projectId}
-      kind="activities"
-      readOnly={readOnly}
-      label="Schedule"
-      subject="The schedule"
-      noun="activity"
-      plural="activities"
-      firstCode="A1"
-      columns={columns}
-      rows={rows}
-    />
-  );
+  return <RegisterTab page={page} readOnly={readOnly} columns={columns} rows={rows} />;
 }

@@ -48,7 +48,20 @@ export function useRegisterPage(
   );
   const onFocusRow = useCallback((key: string | null) => (focused.current = key), []);
 
-  return { register, blank, selected, setSelected, add, insert, addRows, remove, move, onFocusRow };
+  return {
+    projectId,
+    kind,
+    register,
+    blank,
+    selected,
+    setSelected,
+    add,
+    insert,
+    addRows,
+    remove,
+    move,
+    onFocusRow,
+  };
 }
 
 export type RegisterPage = ReturnType<typeof useRegisterPage>;
