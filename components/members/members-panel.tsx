@@ -14,6 +14,7 @@ import { Field, Select, TextInput } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Card, Skeleton } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
+import { TableHead } from '@/components/ui/table';
 
 type InviteValues = z.input<typeof inviteSchema>;
 
@@ -106,14 +107,7 @@ export function MembersPanel({ selfUserId }: { selfUserId: number }) {
           <Notice tone="invalid">{failureText(members.error)}</Notice>
         ) : (
           <table className="w-full text-sm" aria-label="Members">
-            <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-              <tr>
-                <th className="py-1">Name</th>
-                <th className="py-1">E-mail</th>
-                <th className="py-1">Role</th>
-                <th className="py-1" />
-              </tr>
-            </thead>
+            <TableHead look="plain" cells={['Name', 'E-mail', 'Role', '']} />
             <tbody>
               {members.data.members.map((m) => (
                 <tr key={m.id} className="border-t border-rule" data-testid={`member-${m.email}`}>
