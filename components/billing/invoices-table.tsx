@@ -7,6 +7,7 @@ import { ApiError, callApi } from '@/components/forms/api';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { INVOICE_REASONS, day, money } from './format';
+import { TableHead, type HeadCell } from '@/components/ui/table';
 
 function InvoiceLines({ id }: { id: number }) {
   const detail = useQuery({
@@ -34,6 +35,16 @@ function InvoiceLines({ id }: { id: number }) {
   );
 }
 
+const HEAD: HeadCell[] = [
+  'Number',
+  'Issued',
+  'For',
+  'Period',
+  'Status',
+  { title: 'Amount', align: 'right' },
+  '',
+];
+
 export function InvoicesTable({ invoices }: { invoices: InvoiceView[] }) {
   const [open, setOpen] = useState<number | null>(null);
   if (!invoices.length)
@@ -42,17 +53,7 @@ export function InvoicesTable({ invoices }: { invoices: InvoiceView[] }) {
     );
   return (
     <table className="w-full text-sm" aria-label="Invoices">
-      <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-        <tr>
-          <th className="py-1">Number</th>
-          <th className="py-1">Issued</th>
-          <th className="py-1">For</th>
-          <th className="py-1">Period</th>
-          <th className="py-1">Status</th>
-          <th className="py-1 text-right">Amount</th>
-          <th className="py-1" />
-        </tr>
-      </thead>
+      <TableHead look="plain" cells={HEAD} />
       <tbody>
         {invoices.map((i) => (
           <Fragment key={i.id}>

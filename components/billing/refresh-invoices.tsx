@@ -2,9 +2,9 @@
 
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { InvoiceRefresh } from '@/lib/view-types/billing';
-import { ApiError, callApi } from '@/components/forms/api';
+import { callApi } from '@/components/forms/api';
+import { FailureNotice } from '@/components/forms/failure-notice';
 import { Button } from '@/components/ui/button';
-import { Notice } from '@/components/ui/notice';
 
 /** Reads the invoice list again from the payment service, for when a webhook went missing. */
 export function RefreshInvoices() {
@@ -18,13 +18,7 @@ export function RefreshInvoices() {
       <Button variant="secondary" onClick={() => refresh.mutate()} disabled={refresh.isPending}>
         {refresh.isPending ? 'Reading…' : 'Read the invoices again'}
       </Button>
-      {refresh.isError ? (
-        <Notice tone="invalid">
-          {refresh.error instanceof ApiError
-            ? refresh.error.failure.message
-            : 'The server could not be reached.'}
-        </Notice>
-      ) : null}
+      <FailureNotice error={refresh.error} />
     </div>
   );
 }

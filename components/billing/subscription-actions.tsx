@@ -2,9 +2,9 @@
 
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { BillingOverview } from '@/lib/view-types/billing';
-import { ApiError, callApi } from '@/components/forms/api';
+import { callApi } from '@/components/forms/api';
+import { FailureNotice } from '@/components/forms/failure-notice';
 import { Button } from '@/components/ui/button';
-import { Notice } from '@/components/ui/notice';
 import { day } from './format';
 
 /** Cancel at the end of the paid period, or undo that before it ends. */
@@ -18,13 +18,7 @@ export function SubscriptionActions({ billing }: { billing: BillingOverview }) {
   const end = day(billing.currentPeriodEnd);
   return (
     <div className="space-y-2 text-sm">
-      {change.isError ? (
-        <Notice tone="invalid">
-          {change.error instanceof ApiError
-            ? change.error.failure.message
-            : 'The server could not be reached.'}
-        </Notice>
-      ) : null}
+      <FailureNotice error={change.error} />
       {billing.cancelAtPeriodEnd ? (
         <>
           <p>

@@ -9,6 +9,19 @@ import { ApiError, callApi } from '@/components/forms/api';
 
 type Choice = 'approved' | 'returned';
 
+const CHOICES: { value: Choice; title: string; detail: (levelText: string) => string }[] = [
+  {
+    value: 'approved',
+    title: 'Approve as the baseline',
+    detail: (levelText) => `Funds the project at ${levelText}; the trend records it.`,
+  },
+  {
+    value: 'returned',
+    title: 'Return for rework',
+    detail: () => 'The project keeps its current baseline.',
+  },
+];
+
 /** A sponsor's decision on the run: approve it as the baseline, or return it with a reason. */
 export function DecisionPanel({
   projectId,
@@ -53,36 +66,22 @@ export function DecisionPanel({
       {error ? <Notice tone="invalid">{error}</Notice> : null}
       <fieldset className="space-y-1.5">
         <legend className="text-sm font-medium text-ink-soft">Your decision</legend>
-        <label className="flex items-start gap-2 text-sm">
-          <input
-            type="radio"
-            name="decision"
-            value="approved"
-            checked={choice === 'approved'}
-            onChange={() => setChoice('approved')}
-            className="mt-1"
-          />
-          <span>
-            <strong>Approve as the baseline</strong>
-            <span className="block text-xs text-ink-faint">
-              Funds the project at {levelText}; the trend records it.
+        {CHOICES.map((c) => (
+          <label key={c.value} className="flex items-start gap-2 text-sm">
+            <input
+              type="radio"
+              name="decision"
+              value={c.value}
+              checked={choice === c.value}
+              onChange={() => setChoice(c.value)}
+              className="mt-1"
+            />
+            <span>
+              <strong>{c.title}</strong>
+              <span className="block text-xs text-ink-faint">{c.detail(levelText)}</span>
             </span>
-          </span>
-        </label>
-        <label className="flex items-start gap-2 text-sm">
-          <input
-            type="radio"
-            name="decision"
-            value="returned"
-            checked={choice === 'returned'}
-            onChange={() => setChoice('returned')}
-            className="mt-1"
-          />
-          <span>
-            <strong>Return for rework</strong>
-            <span className="block text-xs text-ink-faint">The project keeps its current baseline.</span>
-          </span>
-        </label>
+          </label>
+        ))}
       </fieldset>
       <Field
         id="decision-comment"

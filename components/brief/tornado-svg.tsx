@@ -1,7 +1,10 @@
 import { tornadoGeometry } from '@/lib/brief/chart-geometry';
 import type { DriverBrief } from '@/lib/brief/build';
+import { SvgFigure } from './svg-figure';
 
 const W = 920;
+const CAPTION =
+  'Rank correlation of each input with total cost: the longer the bar, the more that input drives the spread and the more its mitigation is worth.';
 
 /** The top drivers of cost as SVG bars of their rank correlation with the total. */
 export function TornadoSvg({ drivers }: { drivers: DriverBrief[] }) {
@@ -14,45 +17,34 @@ export function TornadoSvg({ drivers }: { drivers: DriverBrief[] }) {
     200,
   );
   return (
-    <figure className="break-inside-avoid">
-      <svg
-        viewBox={`0 0 ${W} ${height}`}
-        className="w-full"
-        role="img"
-        aria-label="Top drivers of total cost"
-      >
-        {g.ticks.map((t) => (
-          <g key={t.value}>
-            <line x1={t.at} x2={t.at} y1={g.plot.y} y2={g.plot.y + g.plot.height} stroke="#e6e1d6" />
-            <text x={t.at} y={g.plot.y + g.plot.height + 14} textAnchor="middle" fontSize="10" fill="#7b8190">
-              {t.value.toFixed(2)}
-            </text>
-          </g>
-        ))}
-        {g.bars.map((b) => (
-          <g key={b.label}>
-            <text x={192} y={b.y + b.height / 2 + 4} textAnchor="end" fontSize="11" fill="#1d2430">
-              {b.label.length > 32 ? `${b.label.slice(0, 31)}…` : b.label}
-            </text>
-            <rect
-              x={b.x}
-              y={b.y}
-              width={Math.max(1, b.width)}
-              height={b.height}
-              fill={b.value < 0 ? '#7a3f86' : '#16607a'}
-            >
-              <title>
-                {b.label}: {b.value.toFixed(3)}
-              </title>
-            </rect>
-          </g>
-        ))}
-        <line x1={g.zero} x2={g.zero} y1={g.plot.y} y2={g.plot.y + g.plot.height} stroke="#4a5261" />
-      </svg>
-      <figcaption className="text-xs text-ink-soft">
-        Rank correlation of each input with total cost: the longer the bar, the more that input drives the
-        spread and the more its mitigation is worth.
-      </figcaption>
-    </figure>
+    <SvgFigure width={W} height={height} label="Top drivers of total cost" caption={CAPTION}>
+      {g.ticks.map((t) => (
+        <g key={t.value}>
+          <line x1={t.at} x2={t.at} y1={g.plot.y} y2={g.plot.y + g.plot.height} stroke="#e6e1d6" />
+          <text x={t.at} y={g.plot.y + g.plot.height + 14} textAnchor="middle" fontSize="10" fill="#7b8190">
+            {t.value.toFixed(2)}
+          </text>
+        </g>
+      ))}
+      {g.bars.map((b) => (
+        <g key={b.label}>
+          <text x={192} y={b.y + b.height / 2 + 4} textAnchor="end" fontSize="11" fill="#1d2430">
+            {b.label.length > 32 ? `${b.label.slice(0, 31)}…` : b.label}
+          </text>
+          <rect
+            x={b.x}
+            y={b.y}
+            width={Math.max(1, b.width)}
+            height={b.height}
+            fill={b.value < 0 ? '#7a3f86' : '#16607a'}
+          >
+            <title>
+              {b.label}: {b.value.toFixed(3)}
+            </title>
+          </rect>
+        </g>
+      ))}
+      <line x1={g.zero} x2={g.zero} y1={g.plot.y} y2={g.plot.y + g.plot.height} stroke="#4a5261" />
+    </SvgFigure>
   );
 }

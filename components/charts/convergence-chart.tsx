@@ -3,6 +3,7 @@
 import { Line } from 'react-chartjs-2';
 import type { ChartData, ChartOptions } from 'chart.js';
 import type { ConvergenceSeries } from '@/lib/sim';
+import { BOTTOM_LEGEND, linearAxis, POINTS_FRAME, titled } from './options';
 import { COLORS } from './setup';
 
 /** Running P50 and P80 as the iterations accumulate, each inside its 95% interval band. */
@@ -34,22 +35,16 @@ export function ConvergenceChart({
     ],
   };
   const options: ChartOptions<'line'> = {
-    responsive: true,
-    maintainAspectRatio: false,
-    parsing: false,
+    ...POINTS_FRAME,
     interaction: { mode: 'index', intersect: false },
     scales: {
-      x: {
-        type: 'linear',
-        title: { display: true, text: 'Iterations' },
-        ticks: { callback: (v) => Number(v).toLocaleString('en-GB') },
-      },
-      y: { title: { display: true, text: yTitle }, ticks: { callback: (v) => formatY(Number(v)) } },
+      x: linearAxis('Iterations', (v) => v.toLocaleString('en-GB')),
+      y: { title: titled(yTitle), ticks: { callback: (v) => formatY(Number(v)) } },
     },
     plugins: {
       legend: {
-        position: 'bottom',
-        labels: { boxWidth: 12, filter: (item) => !item.text.includes('interval high') },
+        ...BOTTOM_LEGEND,
+        labels: { ...BOTTOM_LEGEND.labels, filter: (item) => !item.text.includes('interval high') },
       },
       tooltip: {
         filter: (item) => item.dataset.label === 'P50' || item.dataset.label === 'P80',

@@ -3,6 +3,7 @@
 import { Scatter } from 'react-chartjs-2';
 import type { ChartOptions } from 'chart.js';
 import { COLORS, type Marker } from './setup';
+import { linearAxis, POINTS_FRAME, titled } from './options';
 
 /** One dot per sampled iteration: its duration (x) against its cost (y), with both targets. */
 export function CostFinishScatter({
@@ -17,16 +18,10 @@ export function CostFinishScatter({
   formatY: (v: number) => string;
 }) {
   const options: ChartOptions<'scatter'> = {
-    responsive: true,
-    maintainAspectRatio: false,
-    parsing: false,
+    ...POINTS_FRAME,
     scales: {
-      x: {
-        type: 'linear',
-        title: { display: true, text: 'Finish (date; working days from the base date)' },
-        ticks: { callback: (v) => formatX(Number(v)), maxTicksLimit: 7 },
-      },
-      y: { title: { display: true, text: 'Total cost' }, ticks: { callback: (v) => formatY(Number(v)) } },
+      x: linearAxis('Finish (date; working days from the base date)', formatX, 7),
+      y: { title: titled('Total cost'), ticks: { callback: (v) => formatY(Number(v)) } },
     },
     plugins: {
       legend: { display: false },

@@ -3,6 +3,7 @@
 import { Chart } from 'react-chartjs-2';
 import type { ChartData, ChartOptions } from 'chart.js';
 import type { Histogram, Point } from '@/lib/runs/outcome-data';
+import { BOTTOM_LEGEND, linearAxis, POINTS_FRAME, PROBABILITY_AXIS } from './options';
 import { COLORS, type Marker } from './setup';
 
 /**
@@ -56,35 +57,19 @@ export function DistributionChart({
     ],
   };
   const options: ChartOptions<'bar' | 'line'> = {
-    responsive: true,
-    maintainAspectRatio: false,
-    parsing: false,
+    ...POINTS_FRAME,
     interaction: { mode: 'nearest', intersect: false },
     scales: {
-      x: {
-        type: 'linear',
-        title: { display: true, text: xTitle },
-        ticks: { callback: (v) => formatX(Number(v)), maxTicksLimit: 8 },
-      },
+      x: linearAxis(xTitle, formatX, 8),
       y: {
-        type: 'linear',
+        ...linearAxis('Share of iterations (%)', (v) => (v * 100).toFixed(1)),
         position: 'left',
         beginAtZero: true,
-        title: { display: true, text: 'Share of iterations (%)' },
-        ticks: { callback: (v) => `${(Number(v) * 100).toFixed(1)}` },
       },
-      y2: {
-        type: 'linear',
-        position: 'right',
-        min: 0,
-        max: 1,
-        grid: { drawOnChartArea: false },
-        title: { display: true, text: 'Cumulative probability (%)' },
-        ticks: { callback: (v) => `${Math.round(Number(v) * 100)}` },
-      },
+      y2: { ...PROBABILITY_AXIS, type: 'linear', position: 'right', grid: { drawOnChartArea: false } },
     },
     plugins: {
-      legend: { position: 'bottom', labels: { boxWidth: 12 } },
+      legend: BOTTOM_LEGEND,
       tooltip: {
         callbacks: {
           title: (items) => formatX(items[0].parsed.x ?? 0),

@@ -3,6 +3,7 @@
 import { Line } from 'react-chartjs-2';
 import type { ChartOptions } from 'chart.js';
 import type { Point } from '@/lib/runs/outcome-data';
+import { BOTTOM_LEGEND, linearAxis, POINTS_FRAME, PROBABILITY_AXIS } from './options';
 import { COLORS } from './setup';
 
 /** Two runs' S-curves on one axis. */
@@ -20,25 +21,11 @@ export function SCurveCompare({
   xTitle: string;
 }) {
   const options: ChartOptions<'line'> = {
-    responsive: true,
-    maintainAspectRatio: false,
-    parsing: false,
+    ...POINTS_FRAME,
     interaction: { mode: 'nearest', intersect: false },
-    scales: {
-      x: {
-        type: 'linear',
-        title: { display: true, text: xTitle },
-        ticks: { callback: (v) => formatX(Number(v)) },
-      },
-      y: {
-        min: 0,
-        max: 1,
-        title: { display: true, text: 'Cumulative probability (%)' },
-        ticks: { callback: (v) => `${Math.round(Number(v) * 100)}` },
-      },
-    },
+    scales: { x: linearAxis(xTitle, formatX), y: PROBABILITY_AXIS },
     plugins: {
-      legend: { position: 'bottom', labels: { boxWidth: 12 } },
+      legend: BOTTOM_LEGEND,
       tooltip: {
         callbacks: {
           label: (item) =>

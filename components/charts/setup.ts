@@ -17,19 +17,8 @@ import {
   type Plugin,
 } from 'chart.js';
 
-ChartJS.register(
-  BarController,
-  BarElement,
-  CategoryScale,
-  Filler,
-  Legend,
-  LinearScale,
-  LineController,
-  LineElement,
-  PointElement,
-  ScatterController,
-  Tooltip,
-);
+ChartJS.register(BarController, BarElement, CategoryScale, Filler, Legend, LinearScale);
+ChartJS.register(LineController, LineElement, PointElement, ScatterController, Tooltip);
 ChartJS.defaults.font.family = 'var(--font-inter), system-ui, sans-serif';
 ChartJS.defaults.font.size = 11;
 ChartJS.defaults.color = '#4a5261';

@@ -1,8 +1,8 @@
 'use client';
 
 import { Bar } from 'react-chartjs-2';
-import type { ChartOptions } from 'chart.js';
 import type { SensitivityEntry } from '@/lib/sim';
+import { horizontalBarOptions } from './options';
 import { COLORS } from './setup';
 
 /** Drivers as horizontal bars of their rank correlation with the total, strongest on top. */
@@ -20,31 +20,14 @@ export function TornadoChart({
     const short = name.length > 34 ? `${name.slice(0, 33)}…` : name;
     return `${e.id}${short && short !== e.id ? ` ${short}` : ''} · ${Math.round(e.varianceShare * 100)} %`;
   });
-  const options: ChartOptions<'bar'> = {
-    indexAxis: 'y',
-    responsive: true,
-    maintainAspectRatio: false,
-    scales: {
-      x: {
-        min: -1,
-        max: 1,
-        title: { display: true, text: 'Rank correlation with the total (−1 to 1)' },
-        ticks: { stepSize: 0.25 },
-      },
-      y: { ticks: { autoSkip: false, font: { size: 11 } } },
+  const options = horizontalBarOptions(
+    { min: -1, max: 1, title: 'Rank correlation with the total (−1 to 1)', ticks: { stepSize: 0.25 } },
+    (item) => {
+      const e = entries[item.dataIndex];
+      return `rank correlation ${e.rankCorrelation.toFixed(2)}, ${(e.varianceShare * 100).toFixed(1)} % of the variance`;
     },
-    plugins: {
-      legend: { display: false },
-      tooltip: {
-        callbacks: {
-          label: (item) => {
-            const e = entries[item.dataIndex];
-            return `rank correlation ${e.rankCorrelation.toFixed(2)}, ${(e.varianceShare * 100).toFixed(1)} % of the variance`;
-          },
-        },
-      },
-    },
-  };
+    { font: { size: 11 } },
+  );
   return (
     <Bar
       data={{

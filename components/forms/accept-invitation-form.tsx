@@ -4,24 +4,55 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { signIn, signOut } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
-import { Field, TextInput } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { ApiError, callApi } from './api';
+import { AccountForm, type SubmitWords, showRefusal, type TextFieldSpec } from './form-parts';
 
 type Values = { name: string; password: string };
 
+const FIELDS: TextFieldSpec<Values>[] = [
+  { name: 'name', label: 'Your name', autoComplete: 'name' },
+  {
+    name: 'password',
+    label: 'Choose a password',
+    type: 'password',
+    autoComplete: 'new-password',
+    hint: 'At least 10 characters.',
+  },
+];
+const SUBMIT: SubmitWords = { idle: 'Create account and join' };
+
 const acceptUrl = (token: string) => `/api/invitations/accept/${encodeURIComponent(token)}`;
+
+/**
+ * Joins with the signed-in account, then opens the projects; the join answers the server's
+ * reason when it is refused.
+ */
+function useJoin(token: string) {
+  const router = useRouter();
+  return async (): Promise<string | null> => {
+    try {
+      await callApi(acceptUrl(token), { body: {} });
+    } catch (e) {
+      if (!(e instanceof ApiError)) throw e;
+      return e.failure.message;
+    }
+    router.push('/projects');
+    router.refresh();
+    return null;
+  };
+}
 
 /**
  * Signed out: makes a new account for the invited address. The server answers the same when
  * the address already has an account, so only a successful sign-in tells us the account is new.
  */
 export function AcceptInvitationForm({ token, email }: { token: string; email: string }) {
-  const router = useRouter();
+  const join = useJoin(token);
   const [failure, setFailure] = useState<string | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError } = useForm<Values>();
+  const form = useForm<Values>();
 
   async function onSubmit(values: Values) {
     setFailure(null);
@@ -31,8 +62,7 @@ export function AcceptInvitationForm({ token, email }: { token: string; email: s
       reply = await callApi<{ message: string }>(acceptUrl(token), { body: values });
     } catch (e) {
       if (!(e instanceof ApiError)) throw e;
-      for (const i of e.failure.issues) setError(i.path as keyof Values, { message: i.message });
-      setFailure(e.failure.message);
+      showRefusal(e, form.setError, setFailure);
       return;
     }
     const result = await signIn('credentials', { email, password: values.password, redirect: false });
@@ -41,42 +71,13 @@ export function AcceptInvitationForm({ token, email }: { token: string; email: s
       return;
     }
     // Signed in: confirm as this account (a no-op when the account was just made with the invitation).
-    try {
-      await callApi(acceptUrl(token), { body: {} });
-    } catch (e) {
-      if (!(e instanceof ApiError)) throw e;
-      setFailure(e.failure.message);
-      return;
-    }
-    router.push('/projects');
-    router.refresh();
+    setFailure(await join());
   }
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} className="space-y-4" noValidate>
-      {failure ? <Notice tone="invalid">{failure}</Notice> : null}
+    <AccountForm form={form} fields={FIELDS} onSubmit={onSubmit} failure={failure} submit={SUBMIT}>
       {notice ? <Notice>{notice}</Notice> : null}
-      <Field id="name" label="Your name" error={formState.errors.name?.message}>
-        <TextInput id="name" autoComplete="name" invalid={!!formState.errors.name} {...register('name')} />
-      </Field>
-      <Field
-        id="password"
-        label="Choose a password"
-        error={formState.errors.password?.message}
-        hint="At least 10 characters."
-      >
-        <TextInput
-          id="password"
-          type="password"
-          autoComplete="new-password"
-          invalid={!!formState.errors.password}
-          {...register('password')}
-        />
-      </Field>
-      <Button type="submit" className="w-full" disabled={formState.isSubmitting}>
-        Create account and join
-      </Button>
-    </form>
+    </AccountForm>
   );
 }
 
@@ -90,7 +91,7 @@ export function AcceptSignedInForm({
   invitedEmail: string;
   signedInEmail: string;
 }) {
-  const router = useRouter();
+  const join = useJoin(token);
   const [failure, setFailure] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
@@ -115,16 +116,14 @@ export function AcceptSignedInForm({
   async function accept() {
     setFailure(null);
     setBusy(true);
-    try {
-      await callApi(acceptUrl(token), { body: {} });
-    } catch (e) {
+    const refusal = await join().catch((e: unknown) => {
       setBusy(false);
-      if (!(e instanceof ApiError)) throw e;
-      setFailure(e.failure.message);
-      return;
+      throw e;
+    });
+    if (refusal) {
+      setBusy(false);
+      setFailure(refusal);
     }
-    router.push('/projects');
-    router.refresh();
   }
 
   return (

@@ -27,3 +27,8 @@ export async function callApi<T>(url: string, init: { method?: string; body?: un
   }
   return json as T;
 }
+
+/** The server's reason for a failed call, or `fallback` when the server was not reached. */
+export function failureMessage(error: unknown, fallback = 'The server could not be reached.'): string {
+  return error instanceof ApiError ? error.failure.message : fallback;
+}

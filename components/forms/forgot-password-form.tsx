@@ -5,33 +5,29 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { emailSchema } from '@/lib/validation/auth';
-import { Field, TextInput } from '@/components/ui/field';
-import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { ApiError, callApi } from './api';
+import { callApi } from './api';
+import { AccountForm, type SubmitWords, sendForm, type TextFieldSpec } from './form-parts';
 
 const schema = z.object({ email: emailSchema });
 type Values = z.input<typeof schema>;
 
+const FIELDS: TextFieldSpec<Values>[] = [
+  { name: 'email', label: 'E-mail', type: 'email', autoComplete: 'email', autoFocus: true },
+];
+const UNREACHABLE = 'The server could not be reached. Try again.';
+const SUBMIT: SubmitWords = { idle: 'Send me a reset link', busy: 'Sending…' };
+
 export function ForgotPasswordForm() {
   const [sent, setSent] = useState<string | null>(null);
   const [failure, setFailure] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError } = useForm<Values>({ resolver: zodResolver(schema) });
+  const form = useForm<Values>({ resolver: zodResolver(schema) });
 
-  async function onSubmit(values: Values) {
-    setFailure(null);
-    try {
-      const reply = await callApi<{ message: string }>('/api/password-reset', { body: values });
-      setSent(reply.message);
-    } catch (e) {
-      if (!(e instanceof ApiError)) {
-        setFailure('The server could not be reached. Try again.');
-        return;
-      }
-      for (const i of e.failure.issues) setError(i.path as keyof Values, { message: i.message });
-      setFailure(e.failure.message);
-    }
+  async function send(values: Values) {
+    const reply = await callApi<{ message: string }>('/api/password-reset', { body: values });
+    setSent(reply.message);
   }
+  const onSubmit = (values: Values) => sendForm(() => send(values), form.setError, setFailure, UNREACHABLE);
 
   if (sent) {
     return (
@@ -47,22 +43,5 @@ export function ForgotPasswordForm() {
     );
   }
 
-  return (
-    <form onSubmit={handleSubmit(onSubmit)} className="space-y-4" noValidate>
-      {failure ? <Notice tone="invalid">{failure}</Notice> : null}
-      <Field id="email" label="E-mail" error={formState.errors.email?.message}>
-        <TextInput
-          id="email"
-          type="email"
-          autoComplete="email"
-          autoFocus
-          invalid={!!formState.errors.email}
-          {...register('email')}
-        />
-      </Field>
-      <Button type="submit" className="w-full" disabled={formState.isSubmitting}>
-        {formState.isSubmitting ? 'Sending…' : 'Send me a reset link'}
-      </Button>
-    </form>
-  );
+  return <AccountForm form={form} fields={FIELDS} onSubmit={onSubmit} failure={failure} submit={SUBMIT} />;
 }

@@ -6,10 +6,10 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { passwordSchema } from '@/lib/validation/auth';
-import { Field, TextInput } from '@/components/ui/field';
-import { Button, buttonClass } from '@/components/ui/button';
+import { buttonClass } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { ApiError, callApi } from './api';
+import { callApi } from './api';
+import { AccountForm, type SubmitWords, sendForm, type TextFieldSpec } from './form-parts';
 
 // The same password rule as sign-up, plus a second entry to catch a typing slip.
 const schema = z
@@ -17,27 +17,31 @@ const schema = z
   .refine((v) => v.password === v.confirm, { path: ['confirm'], message: 'The two passwords differ.' });
 type Values = z.input<typeof schema>;
 
+const FIELDS: TextFieldSpec<Values>[] = [
+  {
+    name: 'password',
+    label: 'New password',
+    type: 'password',
+    autoComplete: 'new-password',
+    autoFocus: true,
+    hint: 'At least 10 characters.',
+  },
+  { name: 'confirm', label: 'New password again', type: 'password', autoComplete: 'new-password' },
+];
+const UNREACHABLE = 'The server could not be reached. Your password is unchanged; try again.';
+const SUBMIT: SubmitWords = { idle: 'Set the new password', busy: 'Saving…' };
+
 export function ResetPasswordForm({ token }: { token: string }) {
   const [done, setDone] = useState(false);
   const [failure, setFailure] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError } = useForm<Values>({ resolver: zodResolver(schema) });
+  const form = useForm<Values>({ resolver: zodResolver(schema) });
 
-  async function onSubmit(values: Values) {
-    setFailure(null);
-    try {
-      await callApi(`/api/password-reset/${encodeURIComponent(token)}`, {
-        body: { password: values.password },
-      });
-      setDone(true);
-    } catch (e) {
-      if (!(e instanceof ApiError)) {
-        setFailure('The server could not be reached. Your password is unchanged; try again.');
-        return;
-      }
-      for (const i of e.failure.issues) setError(i.path as keyof Values, { message: i.message });
-      setFailure(e.failure.message);
-    }
+  async function send(values: Values) {
+    const url = `/api/password-reset/${encodeURIComponent(token)}`;
+    await callApi(url, { body: { password: values.password } });
+    setDone(true);
   }
+  const onSubmit = (values: Values) => sendForm(() => send(values), form.setError, setFailure, UNREACHABLE);
 
   if (done) {
     return (
@@ -52,36 +56,5 @@ export function ResetPasswordForm({ token }: { token: string }) {
     );
   }
 
-  return (
-    <form onSubmit={handleSubmit(onSubmit)} className="space-y-4" noValidate>
-      {failure ? <Notice tone="invalid">{failure}</Notice> : null}
-      <Field
-        id="password"
-        label="New password"
-        error={formState.errors.password?.message}
-        hint="At least 10 characters."
-      >
-        <TextInput
-          id="password"
-          type="password"
-          autoComplete="new-password"
-          autoFocus
-          invalid={!!formState.errors.password}
-          {...register('password')}
-        />
-      </Field>
-      <Field id="confirm" label="New password again" error={formState.errors.confirm?.message}>
-        <TextInput
-          id="confirm"
-          type="password"
-          autoComplete="new-password"
-          invalid={!!formState.errors.confirm}
-          {...register('confirm')}
-        />
-      </Field>
-      <Button type="submit" className="w-full" disabled={formState.isSubmitting}>
-        {formState.isSubmitting ? 'Saving…' : 'Set the new password'}
-      </Button>
-    </form>
-  );
+  return <AccountForm form={form} fields={FIELDS} onSubmit={onSubmit} failure={failure} submit={SUBMIT} />;
 }

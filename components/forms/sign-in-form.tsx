@@ -7,17 +7,21 @@ import { signIn } from 'next-auth/react';
 import { useRouter, useSearchParams } from 'next/navigation';
 import { signInSchema } from '@/lib/validation/auth';
 import { safeCallbackPath } from '@/lib/auth/callback-url';
-import { Field, TextInput } from '@/components/ui/field';
-import { Button } from '@/components/ui/button';
-import { Notice } from '@/components/ui/notice';
+import { AccountForm, type SubmitWords, type TextFieldSpec } from './form-parts';
 
 type Values = { email: string; password: string };
+
+const FIELDS: TextFieldSpec<Values>[] = [
+  { name: 'email', label: 'E-mail', type: 'email', autoComplete: 'email' },
+  { name: 'password', label: 'Password', type: 'password', autoComplete: 'current-password' },
+];
+const SUBMIT: SubmitWords = { idle: 'Sign in', busy: 'Signing in…' };
 
 export function SignInForm() {
   const router = useRouter();
   const params = useSearchParams();
   const [failure, setFailure] = useState<string | null>(null);
-  const { register, handleSubmit, formState } = useForm<Values>({ resolver: zodResolver(signInSchema) });
+  const form = useForm<Values>({ resolver: zodResolver(signInSchema) });
 
   async function onSubmit(values: Values) {
     setFailure(null);
@@ -34,30 +38,5 @@ export function SignInForm() {
     router.refresh();
   }
 
-  return (
-    <form onSubmit={handleSubmit(onSubmit)} className="space-y-4" noValidate>
-      {failure ? <Notice tone="invalid">{failure}</Notice> : null}
-      <Field id="email" label="E-mail" error={formState.errors.email?.message}>
-        <TextInput
-          id="email"
-          type="email"
-          autoComplete="email"
-          invalid={!!formState.errors.email}
-          {...register('email')}
-        />
-      </Field>
-      <Field id="password" label="Password" error={formState.errors.password?.message}>
-        <TextInput
-          id="password"
-          type="password"
-          autoComplete="current-password"
-          invalid={!!formState.errors.password}
-          {...register('password')}
-        />
-      </Field>
-      <Button type="submit" className="w-full" disabled={formState.isSubmitting}>
-        {formState.isSubmitting ? 'Signing in…' : 'Sign in'}
-      </Button>
-    </form>
-  );
+  return <AccountForm form={form} fields={FIELDS} onSubmit={onSubmit} failure={failure} submit={SUBMIT} />;
 }

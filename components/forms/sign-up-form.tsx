@@ -6,18 +6,29 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { signIn } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
 import { signUpSchema, type SignUpInput } from '@/lib/validation/auth';
-import { Field, TextInput } from '@/components/ui/field';
-import { Button } from '@/components/ui/button';
-import { Notice } from '@/components/ui/notice';
 import { ApiError, callApi } from './api';
+import { AccountForm, type SubmitWords, showRefusal, type TextFieldSpec } from './form-parts';
+
+const FIELDS: TextFieldSpec<SignUpInput>[] = [
+  { name: 'name', label: 'Your name', autoComplete: 'name' },
+  { name: 'organizationName', label: 'Organisation', autoComplete: 'organization' },
+  { name: 'email', label: 'Work e-mail', type: 'email', autoComplete: 'email' },
+  {
+    name: 'password',
+    label: 'Password',
+    type: 'password',
+    autoComplete: 'new-password',
+    hint: 'At least 10 characters.',
+  },
+];
+const SUBMIT: SubmitWords = { idle: 'Create organisation', busy: 'Creating…' };
 
 export function SignUpForm() {
   const router = useRouter();
   const [failure, setFailure] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError } = useForm<SignUpInput>({
+  const form = useForm<SignUpInput>({
     resolver: zodResolver(signUpSchema),
   });
-  const errors = formState.errors;
 
   async function onSubmit(values: SignUpInput) {
     setFailure(null);
@@ -25,10 +36,7 @@ export function SignUpForm() {
       await callApi('/api/sign-up', { body: values });
     } catch (e) {
       if (e instanceof ApiError) {
-        for (const issue of e.failure.issues) {
-          if (issue.path in values) setError(issue.path as keyof SignUpInput, { message: issue.message });
-        }
-        setFailure(e.failure.message);
+        showRefusal(e, form.setError, setFailure, values);
         return;
       }
       throw e;
@@ -49,41 +57,5 @@ export function SignUpForm() {
     router.refresh();
   }
 
-  return (
-    <form onSubmit={handleSubmit(onSubmit)} className="space-y-4" noValidate>
-      {failure ? <Notice tone="invalid">{failure}</Notice> : null}
-      <Field id="name" label="Your name" error={errors.name?.message}>
-        <TextInput id="name" autoComplete="name" invalid={!!errors.name} {...register('name')} />
-      </Field>
-      <Field id="organizationName" label="Organisation" error={errors.organizationName?.message}>
-        <TextInput
-          id="organizationName"
-          autoComplete="organization"
-          invalid={!!errors.organizationName}
-          {...register('organizationName')}
-        />
-      </Field>
-      <Field id="email" label="Work e-mail" error={errors.email?.message}>
-        <TextInput
-          id="email"
-          type="email"
-          autoComplete="email"
-          invalid={!!errors.email}
-          {...register('email')}
-        />
-      </Field>
-      <Field id="password" label="Password" error={errors.password?.message} hint="At least 10 characters.">
-        <TextInput
-          id="password"
-          type="password"
-          autoComplete="new-password"
-          invalid={!!errors.password}
-          {...register('password')}
-        />
-      </Field>
-      <Button type="submit" className="w-full" disabled={formState.isSubmitting}>
-        {formState.isSubmitting ? 'Creating…' : 'Create organisation'}
-      </Button>
-    </form>
-  );
+  return <AccountForm form={form} fields={FIELDS} onSubmit={onSubmit} failure={failure} submit={SUBMIT} />;
 }

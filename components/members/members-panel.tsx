@@ -9,17 +9,22 @@ import { z } from 'zod';
 import { inviteSchema } from '@/lib/validation/auth';
 import { ROLES, ROLE_LABELS, type Role } from '@/lib/auth/roles';
 import type { InvitationView, MemberView } from '@/lib/view-types/members';
-import { ApiError, callApi } from '@/components/forms/api';
+import { ApiError, callApi, failureMessage } from '@/components/forms/api';
 import { Field, Select, TextInput } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Card, Skeleton } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
+import { TableHead } from '@/components/ui/table';
 
 type InviteValues = z.input<typeof inviteSchema>;
 
-function failureText(e: unknown) {
-  return e instanceof ApiError ? e.failure.message : 'The server could not be reached. Try again.';
-}
+const failureText = (e: unknown) => failureMessage(e, 'The server could not be reached. Try again.');
+
+const ROLE_OPTIONS = ROLES.map((r) => (
+  <option key={r} value={r}>
+    {ROLE_LABELS[r]}
+  </option>
+));
 
 /** A refusal that points somewhere to fix it (all paid seats taken → billing). */
 type Problem = { message: string; link?: string };
@@ -106,14 +111,7 @@ export function MembersPanel({ selfUserId }: { selfUserId: number }) {
           <Notice tone="invalid">{failureText(members.error)}</Notice>
         ) : (
           <table className="w-full text-sm" aria-label="Members">
-            <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-              <tr>
-                <th className="py-1">Name</th>
-                <th className="py-1">E-mail</th>
-                <th className="py-1">Role</th>
-                <th className="py-1" />
-              </tr>
-            </thead>
+            <TableHead look="plain" cells={['Name', 'E-mail', 'Role', '']} />
             <tbody>
               {members.data.members.map((m) => (
                 <tr key={m.id} className="border-t border-rule" data-testid={`member-${m.email}`}>
@@ -126,11 +124,7 @@ export function MembersPanel({ selfUserId }: { selfUserId: number }) {
                       className="w-36 py-1"
                       onChange={(ev) => changeRole.mutate({ id: m.id, role: ev.target.value as Role })}
                     >
-                      {ROLES.map((r) => (
-                        <option key={r} value={r}>
-                          {ROLE_LABELS[r]}
-                        </option>
-                      ))}
+                      {ROLE_OPTIONS}
                     </Select>
                   </td>
                   <td className="py-1.5 text-right">
@@ -168,11 +162,7 @@ export function MembersPanel({ selfUserId }: { selfUserId: number }) {
           </div>
           <Field id="invite-role" label="Role" error={form.formState.errors.role?.message}>
             <Select id="invite-role" className="w-40" {...form.register('role')}>
-              {ROLES.map((r) => (
-                <option key={r} value={r}>
-                  {ROLE_LABELS[r]}
-                </option>
-              ))}
+              {ROLE_OPTIONS}
             </Select>
           </Field>
           <Button type="submit" disabled={form.formState.isSubmitting}>

@@ -1,6 +1,7 @@
 // Who changed what and when, with the fields that changed from before to after.
 import type { AuditView } from '@/lib/view-types/audit';
 import { EmptyState } from '@/components/ui/card';
+import { TableHead } from '@/components/ui/table';
 
 const show = (v: unknown) =>
   v === null || v === undefined
@@ -41,14 +42,7 @@ export function AuditTrail({ entries }: { entries: AuditView[] }) {
       className="w-full border-collapse rounded border border-rule bg-paper-raised text-sm"
       aria-label="Audit trail"
     >
-      <thead className="bg-paper-sunk text-left text-xs uppercase tracking-wide text-ink-soft">
-        <tr>
-          <th className="px-3 py-2">When (UTC)</th>
-          <th className="px-3 py-2">Who</th>
-          <th className="px-3 py-2">What</th>
-          <th className="px-3 py-2">Change</th>
-        </tr>
-      </thead>
+      <TableHead look="banded" cells={['When (UTC)', 'Who', 'What', 'Change']} />
       <tbody>
         {entries.map((e) => (
           <tr key={e.id} className="border-t border-rule align-top">

@@ -20,6 +20,7 @@ import { planCorrelations } from '@/lib/sim';
 import { rowIssues } from '@/lib/validation/registers';
 import { ImportExport } from './import-export';
 import { RegisterNotice } from './register-notice';
+import { TableHead } from '@/components/ui/table';
 
 type Input = { code: string; label: string; group: string };
 
@@ -203,15 +204,16 @@ export function CorrelationsPanel({ projectId, readOnly }: { projectId: number; 
           </p>
         ) : (
           <table className="w-full border-collapse text-sm" aria-label="Correlations">
-            <thead className="bg-paper-sunk text-left text-xs text-ink-soft">
-              <tr>
-                <th className="px-2 py-1">First input</th>
-                <th className="px-2 py-1">Second input</th>
-                <th className="px-2 py-1 text-right">Coefficient</th>
-                <th className="px-2 py-1 text-right">Used</th>
-                <th className="px-2 py-1" />
-              </tr>
-            </thead>
+            <TableHead
+              look="compact"
+              cells={[
+                'First input',
+                'Second input',
+                { title: 'Coefficient', align: 'right' },
+                { title: 'Used', align: 'right' },
+                '',
+              ]}
+            />
             <tbody>
               {register.rows.map((r) => {
                 const i = pairs.findIndex((p) => p.key === r._key);

@@ -3,24 +3,16 @@
 // you type, a total row with the base estimate, and lines indented by WBS level.
 
 import { useCallback, useMemo } from 'react';
-import { useQuery } from '@tanstack/react-query';
-import { callApi } from '@/components/forms/api';
-import { RegisterGrid } from '@/components/grid/register-grid';
 import type { RegisterColumn } from '@/components/grid/columns';
-import { registerQueryKey, type GridRow, type SavedRow } from '@/components/grid/use-register-rows';
-import { Skeleton } from '@/components/ui/card';
-import { Notice } from '@/components/ui/notice';
+import type { GridRow } from '@/components/grid/use-register-rows';
 import { activityBaseDurations, lineBase } from '@/lib/registers/base-estimate';
 import { meanOf, specFromParts, summarise, type DistType } from '@/lib/registers/dist-fields';
 import { formatMoney } from '@/lib/registers/numbers';
 import { wbsLevel } from '@/lib/registers/wbs';
 import { distColumns } from './dist-columns';
-import { RegisterNotice } from './register-notice';
-import { RegisterToolbar } from './register-toolbar';
-import { ImportExport } from './import-export';
-import { nextCode, useRegisterPage } from './use-register-page';
-
-type Summary = { mean: number | null; p10: number | null; p90: number | null };
+import { RegisterTab, type RegisterTabProps } from './register-tab';
+import { summaryColumns, type RowSummary } from './summary-columns';
+import { duplicateCodeIssue, totalRowOf, useRegisterPage, useSavedRows } from './use-register-page';
 
 /** The line's mean without its percentiles (for the total row). */
 function lineMean(row: GridRow, meanDays: Map<string, number>): number | null {
@@ -33,7 +25,7 @@ function lineMean(row: GridRow, meanDays: Map<string, number>): number | null {
   return days === undefined ? null : meanOf(r.spec) * days;
 }
 
-function lineSummary(row: GridRow, meanDays: Map<string, number>): Summary {
+function lineSummary(row: GridRow, meanDays: Map<string, number>): RowSummary {
   const type = row.distType as DistType | null;
   if (!type) return { mean: typeof row.base === 'number' ? row.base : null, p10: null, p90: null };
   const r = specFromParts({ ...(row as object), type } as never);
@@ -47,19 +39,8 @@ function lineSummary(row: GridRow, meanDays: Map<string, number>): Summary {
   return s;
 }
 
-export function LineItemsGrid({
-  projectId,
-  currency,
-  readOnly,
-}: {
-  projectId: number;
-  currency: string;
-  readOnly: boolean;
-}) {
-  const activities = useQuery({
-    queryKey: registerQueryKey(projectId, 'activities'),
-    queryFn: async () => (await callApi<{ rows: SavedRow[] }>(`/api/projects/${projectId}/activities`)).rows,
-  });
+export function LineItemsGrid({ projectId, currency, readOnly }: RegisterTabProps) {
+  const activities = useSavedRows(projectId, 'activities');
   const activityCodes = useMemo(
     () => new Set((activities.data ?? []).map((a) => String(a.code))),
     [activities.data],
@@ -75,8 +56,8 @@ export function LineItemsGrid({
       ) {
         out.activityCode = `Unknown activity "${v.activityCode}": add it on the Schedule tab first.`;
       }
-      if (v.code && all.filter((r) => r.code === v.code).length > 1)
-        out.code = `${v.code} is used by another line.`;
+      const duplicate = duplicateCodeIssue(v, all, 'line');
+      if (duplicate) out.code = duplicate;
       return out;
     },
     [activities.data, activityCodes],
@@ -159,30 +140,12 @@ export function LineItemsGrid({
           return d === null ? '' : `(${formatMoney(d)})`;
         },
       },
-      {
-        field: '_mean',
-        header: 'Mean',
-        kind: 'computed',
-        width: 110,
-        value: (r) => summaries(r).mean,
-        format: money,
-      },
-      {
-        field: '_p10',
-        header: 'P10',
-        kind: 'computed',
-        width: 110,
-        value: (r) => summaries(r).p10,
-        format: (v, r) => (r.basis === 'per-day' && r._key !== 'total' ? 'by run' : money(v)),
-      },
-      {
-        field: '_p90',
-        header: 'P90',
-        kind: 'computed',
-        width: 110,
-        value: (r) => summaries(r).p90,
-        format: (v, r) => (r.basis === 'per-day' && r._key !== 'total' ? 'by run' : money(v)),
-      },
+      ...summaryColumns(summaries, {
+        meanHeader: 'Mean',
+        widths: [110, 110],
+        formatMean: money,
+        formatPercentile: (v, r) => (r.basis === 'per-day' && r._key !== 'total' ? 'by run' : money(v)),
+      }),
       { field: 'ownerName', header: 'Owner', kind: 'text', width: 120 },
       { field: 'notes', header: 'Notes', kind: 'text', width: 200 },
     ],
@@ -196,54 +159,15 @@ export function LineItemsGrid({
       base += lineBase(r as never, durations.base) ?? 0;
       mean += lineMean(r, durations.mean) ?? 0;
     }
-    return {
-      _key: 'total',
+    return totalRowOf({
       code: 'Total',
       description: `Base estimate (${currency})`,
       base,
       _mean: mean,
-      _issues: {},
-      _draft: false,
-      _id: null,
-      _version: null,
-    };
+      _p10: null,
+      _p90: null,
+    });
   }, [register.rows, durations, currency]);
 
-  const totalRow = useMemo(() => ({ ...total, _p10: null, _p90: null }), [total]);
-
-  if (register.query.isPending) return <Skeleton rows={8} />;
-  if (register.query.isError)
-    return <Notice tone="invalid">The line items could not be loaded: {register.query.error.message}</Notice>;
-
-  const codes = register.rows.map((r) => String(r.code ?? ''));
-  return (
-    <div className="space-y-2">
-      <RegisterToolbar
-        readOnly={readOnly}
-        selected={page.selected.length}
-        saving={register.saving}
-        count={register.rows.length}
-        noun="line"
-        onAdd={() => register.insertRow(register.rows.length, { ...blank(0), code: nextCode(codes, '1.1') })}
-        onInsert={page.insert}
-        onDelete={page.remove}
-        onMove={page.move}
-      >
-        <ImportExport projectId={projectId} register="items" readOnly={readOnly} />
-      </RegisterToolbar>
-      <RegisterNotice register={register} />
-      {register.rows.length === 0 && readOnly ? <p className="text-ink-soft">No line items yet.</p> : null}
-      <RegisterGrid
-        label="Line items"
-        rows={register.rows}
-        columns={columns}
-        readOnly={readOnly}
-        onChange={register.applyValues}
-        onAddRows={page.addRows}
-        onSelectionChange={page.setSelected}
-        onFocusRow={page.onFocusRow}
-        totalRow={totalRow}
-      />
-    </div>
-  );
+  return <RegisterTab page={page} readOnly={readOnly} columns={columns} totalRow={total} />;
 }

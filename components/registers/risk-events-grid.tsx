@@ -1,13 +1,8 @@
 'use client';
 // The risk events register with each risk's expected value and the probability–impact matrix.
 import { useCallback, useMemo } from 'react';
-import { useQuery } from '@tanstack/react-query';
-import { callApi } from '@/components/forms/api';
-import { RegisterGrid } from '@/components/grid/register-grid';
 import type { RegisterColumn } from '@/components/grid/columns';
-import { registerQueryKey, type GridRow, type SavedRow } from '@/components/grid/use-register-rows';
-import { Skeleton } from '@/components/ui/card';
-import { Notice } from '@/components/ui/notice';
+import type { GridRow } from '@/components/grid/use-register-rows';
 import { baseEstimate } from '@/lib/registers/base-estimate';
 import { specFromParts, summarise, DIST_LABELS } from '@/lib/registers/dist-fields';
 import { formatMoney, formatNumber } from '@/lib/registers/numbers';
@@ -18,11 +13,9 @@ import {
   RISK_STATUSES,
   type ImpactPrefix,
 } from '@/lib/validation/registers';
-import { ImportExport } from './import-export';
 import { ProbabilityImpactMatrix } from './probability-impact-matrix';
-import { RegisterNotice } from './register-notice';
-import { RegisterToolbar } from './register-toolbar';
-import { nextCode, useRegisterPage } from './use-register-page';
+import { RegisterTab, type RegisterTabProps } from './register-tab';
+import { duplicateCodeIssue, totalRowOf, useRegisterPage, useSavedRows } from './use-register-page';
 
 function impactMean(row: GridRow, prefix: ImpactPrefix): number | null {
   const parts = impactParts(row, prefix);
@@ -38,53 +31,71 @@ const impactTypes = [
   ...RISK_IMPACT_TYPES.map((t) => ({ value: t, label: DIST_LABELS[t] })),
 ];
 
+const PARTS = ['Low', 'Mode', 'High'] as const;
+
+/** Whether a low, most likely or high cell takes a value under the row's impact type. */
+const hasPart = (typeField: string, part: (typeof PARTS)[number]) => (r: GridRow) => {
+  const type = r[typeField] as string | null;
+  if (!type) return false;
+  if (type === 'fixed') return part === 'Mode';
+  if (type === 'uniform' || type === 'lognormal') return part !== 'Mode';
+  return true;
+};
+
+/** The low, most likely and high cells of one impact, before or after mitigation. */
+function partColumns(
+  field: string,
+  typeField: string,
+  headers: [string, string, string],
+  widths: [number, number, number],
+): RegisterColumn[] {
+  return PARTS.map((part, i) => ({
+    field: `${field}${part}`,
+    header: headers[i],
+    kind: 'number',
+    width: widths[i],
+    applies: hasPart(typeField, part),
+  }));
+}
+
 function impactColumns(prefix: 'cost' | 'delay', unit: string): RegisterColumn[] {
   const t = `${prefix}Type`;
-  const has = (part: string) => (r: GridRow) => {
-    const type = r[t] as string | null;
-    if (!type) return false;
-    if (type === 'fixed') return part === 'Mode';
-    if (type === 'uniform' || type === 'lognormal') return part !== 'Mode';
-    return true;
-  };
   const name = prefix === 'cost' ? 'Cost' : 'Delay';
   return [
     { field: t, header: name, kind: 'choice', width: 100, options: impactTypes },
-    {
-      field: `${prefix}Low`,
-      header: `${name} low (${unit})`,
-      kind: 'number',
-      width: 110,
-      applies: has('Low'),
-    },
-    {
-      field: `${prefix}Mode`,
-      header: `${name} most likely`,
-      kind: 'number',
-      width: 116,
-      applies: has('Mode'),
-    },
-    { field: `${prefix}High`, header: `${name} high`, kind: 'number', width: 100, applies: has('High') },
+    ...partColumns(
+      prefix,
+      t,
+      [`${name} low (${unit})`, `${name} most likely`, `${name} high`],
+      [110, 116, 100],
+    ),
   ];
 }
 
-export function RiskEventsGrid({
-  projectId,
-  currency,
-  readOnly,
-}: {
-  projectId: number;
-  currency: string;
-  readOnly: boolean;
-}) {
-  const activities = useQuery({
-    queryKey: registerQueryKey(projectId, 'activities'),
-    queryFn: async () => (await callApi<{ rows: SavedRow[] }>(`/api/projects/${projectId}/activities`)).rows,
-  });
-  const items = useQuery({
-    queryKey: registerQueryKey(projectId, 'items'),
-    queryFn: async () => (await callApi<{ rows: SavedRow[] }>(`/api/projects/${projectId}/items`)).rows,
-  });
+/** Probability × mean impact, the risk's expected cost or delay. */
+function expectedColumn(
+  field: string,
+  header: string,
+  prefix: ImpactPrefix,
+  width: number,
+  format: (v: number) => string,
+): RegisterColumn {
+  return {
+    field,
+    header,
+    kind: 'computed',
+    width,
+    value: (r) => {
+      const m = impactMean(r, prefix);
+      return m === null || typeof r.probability !== 'number' ? null : r.probability * m;
+    },
+    format: (v) => (typeof v === 'number' ? format(v) : ''),
+  };
+}
+
+export function RiskEventsGrid({ projectId, currency, readOnly }: RegisterTabProps) {
+  const activities = useSavedRows(projectId, 'activities');
+  const items = useSavedRows(projectId, 'items');
   const activityCodes = useMemo(() => (activities.data ?? []).map((a) => String(a.code)), [activities.data]);
   const extraIssues = useCallback(
     (v: Record<string, unknown>, all: Record<string, unknown>[]) => {
@@ -92,8 +103,8 @@ export function RiskEventsGrid({
       if (v.activityCode && activities.data && !activityCodes.includes(String(v.activityCode))) {
         out.activityCode = `Unknown activity "${v.activityCode}".`;
       }
-      if (v.code && all.filter((r) => r.code === v.code).length > 1)
-        out.code = `${v.code} is used by another risk.`;
+      const duplicate = duplicateCodeIssue(v, all, 'risk');
+      if (duplicate) out.code = duplicate;
       return out;
     },
     [activities.data, activityCodes],
@@ -132,74 +143,26 @@ export function RiskEventsGrid({
         options: [{ value: null, label: '—' }, ...activityCodes.map((c) => ({ value: c, label: c }))],
       },
       {
-        field: '_ev',
-        header: `Expected cost (${currency})`,
-        kind: 'computed',
-        width: 130,
+        ...expectedColumn('_ev', `Expected cost (${currency})`, 'cost', 130, formatMoney),
         headerTooltip: 'Probability × mean cost impact',
-        value: (r) => {
-          const m = impactMean(r, 'cost');
-          return m === null || typeof r.probability !== 'number' ? null : r.probability * m;
-        },
-        format: (v) => (typeof v === 'number' ? formatMoney(v) : ''),
       },
-      {
-        field: '_evDelay',
-        header: 'Expected delay (days)',
-        kind: 'computed',
-        width: 120,
-        value: (r) => {
-          const m = impactMean(r, 'delay');
-          return m === null || typeof r.probability !== 'number' ? null : r.probability * m;
-        },
-        format: (v) => (typeof v === 'number' ? formatNumber(v, 1) : ''),
-      },
+      expectedColumn('_evDelay', 'Expected delay (days)', 'delay', 120, (v) => formatNumber(v, 1)),
       { field: 'response', header: 'Response', kind: 'choice', width: 96, options: choice(RISK_RESPONSES) },
       { field: 'ownerName', header: 'Owner', kind: 'text', width: 110 },
       { field: 'mitigationCost', header: `Mitigation cost`, kind: 'number', width: 116 },
       { field: 'postProbability', header: 'Post probability', kind: 'percent', width: 110 },
-      {
-        field: 'postCostLow',
-        header: 'Post cost low',
-        kind: 'number',
-        width: 104,
-        applies: (r) => Boolean(r.costType) && r.costType !== 'fixed',
-      },
-      {
-        field: 'postCostMode',
-        header: 'Post cost most likely',
-        kind: 'number',
-        width: 130,
-        applies: (r) => Boolean(r.costType) && r.costType !== 'uniform' && r.costType !== 'lognormal',
-      },
-      {
-        field: 'postCostHigh',
-        header: 'Post cost high',
-        kind: 'number',
-        width: 104,
-        applies: (r) => Boolean(r.costType) && r.costType !== 'fixed',
-      },
-      {
-        field: 'postDelayLow',
-        header: 'Post delay low',
-        kind: 'number',
-        width: 104,
-        applies: (r) => Boolean(r.delayType) && r.delayType !== 'fixed',
-      },
-      {
-        field: 'postDelayMode',
-        header: 'Post delay most likely',
-        kind: 'number',
-        width: 134,
-        applies: (r) => Boolean(r.delayType) && r.delayType !== 'uniform' && r.delayType !== 'lognormal',
-      },
-      {
-        field: 'postDelayHigh',
-        header: 'Post delay high',
-        kind: 'number',
-        width: 104,
-        applies: (r) => Boolean(r.delayType) && r.delayType !== 'fixed',
-      },
+      ...partColumns(
+        'postCost',
+        'costType',
+        ['Post cost low', 'Post cost most likely', 'Post cost high'],
+        [104, 130, 104],
+      ),
+      ...partColumns(
+        'postDelay',
+        'delayType',
+        ['Post delay low', 'Post delay most likely', 'Post delay high'],
+        [104, 134, 104],
+      ),
       { field: 'cause', header: 'Cause', kind: 'text', width: 180 },
       { field: 'event', header: 'Event', kind: 'text', width: 180 },
       { field: 'effect', header: 'Effect', kind: 'text', width: 180 },
@@ -215,62 +178,21 @@ export function RiskEventsGrid({
       ev += r.probability * (impactMean(r, 'cost') ?? 0);
       evDelay += r.probability * (impactMean(r, 'delay') ?? 0);
     }
-    return {
-      _key: 'total',
-      code: 'Total',
-      title: 'Open risks, expected',
-      _ev: ev,
-      _evDelay: evDelay,
-      _issues: {},
-      _draft: false,
-      _id: null,
-      _version: null,
-    };
+    return totalRowOf({ code: 'Total', title: 'Open risks, expected', _ev: ev, _evDelay: evDelay });
   }, [register.rows]);
-  const totalRow = useMemo(() => total, [total]);
-
-  if (register.query.isPending) return <Skeleton rows={8} />;
-  if (register.query.isError)
-    return (
-      <Notice tone="invalid">The risk events could not be loaded: {register.query.error.message}</Notice>
-    );
-  const codes = register.rows.map((r) => String(r.code ?? ''));
   return (
-    <div className="space-y-2">
-      <RegisterToolbar
-        readOnly={readOnly}
-        selected={page.selected.length}
-        saving={register.saving}
-        count={register.rows.length}
-        noun="risk"
-        onAdd={() => register.insertRow(register.rows.length, { ...blank(), code: nextCode(codes, 'R1') })}
-        onInsert={page.insert}
-        onDelete={page.remove}
-        onMove={page.move}
-      >
-        <ImportExport projectId={projectId} register="risks" readOnly={readOnly} />
-      </RegisterToolbar>
-      <RegisterNotice register={register} />
-      <div className="grid grid-cols-[1fr_auto] gap-3">
-        <div className="min-w-0">
-          <RegisterGrid
-            label="Risk events"
-            rows={register.rows}
-            columns={columns}
-            readOnly={readOnly}
-            onChange={register.applyValues}
-            onAddRows={page.addRows}
-            onSelectionChange={page.setSelected}
-            onFocusRow={page.onFocusRow}
-            totalRow={totalRow}
-          />
-        </div>
+    <RegisterTab
+      page={page}
+      readOnly={readOnly}
+      columns={columns}
+      totalRow={total}
+      aside={
         <ProbabilityImpactMatrix
           risks={register.rows}
           baseEstimate={base}
           meanCost={(r) => impactMean(r, 'cost')}
         />
-      </div>
-    </div>
+      }
+    />
   );
 }

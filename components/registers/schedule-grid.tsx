@@ -2,19 +2,15 @@
 // The schedule: activities with duration ranges (working days) and predecessors typed as text,
 // "A1, A3+5". An unknown code or a cycle is shown in the cell, naming the activities.
 import { useCallback, useMemo } from 'react';
-import { RegisterGrid } from '@/components/grid/register-grid';
 import type { RegisterColumn } from '@/components/grid/columns';
 import type { GridRow } from '@/components/grid/use-register-rows';
-import { Skeleton } from '@/components/ui/card';
-import { Notice } from '@/components/ui/notice';
 import { specFromParts, summarise, type DistType } from '@/lib/registers/dist-fields';
 import { formatNumber } from '@/lib/registers/numbers';
 import { checkNetwork } from '@/lib/sim';
 import { distColumns } from './dist-columns';
-import { ImportExport } from './import-export';
-import { RegisterNotice } from './register-notice';
-import { RegisterToolbar } from './register-toolbar';
-import { nextCode, useRegisterPage } from './use-register-page';
+import { RegisterTab } from './register-tab';
+import { summaryColumns } from './summary-columns';
+import { duplicateCodeIssue, useRegisterPage } from './use-register-page';
 
 type Link = { code: string; lag: number };
 
@@ -44,6 +40,8 @@ function networkIssue(values: Record<string, unknown>, all: Record<string, unkno
   return cycle ? `${cycle.message[0].toUpperCase()}${cycle.message.slice(1)}.` : null;
 }
 
+const days = (v: unknown) => formatNumber(v as number, 1);
+
 function durationSummary(row: GridRow) {
   const type = row.distType as DistType | null;
   if (!type) return null;
@@ -56,8 +54,8 @@ export function ScheduleGrid({ projectId, readOnly }: { projectId: number; readO
     const out: Record<string, string> = {};
     const issue = networkIssue(v, all);
     if (issue) out.predecessors = issue;
-    if (v.code && all.filter((r) => r.code === v.code).length > 1)
-      out.code = `${v.code} is used by another activity.`;
+    const duplicate = duplicateCodeIssue(v, all, 'activity');
+    if (duplicate) out.code = duplicate;
     return out;
   }, []);
   const blank = useCallback(
@@ -89,65 +87,15 @@ export function ScheduleGrid({ projectId, readOnly }: { projectId: number; readO
         width: 170,
         headerTooltip: 'Finish-to-start links: A1, A3+5 (5 working days of lag), A4-2 (2 days of lead)',
       },
-      {
-        field: '_mean',
-        header: 'Mean (days)',
-        kind: 'computed',
-        width: 100,
-        value: (r) => durationSummary(r)?.mean ?? null,
-        format: (v) => formatNumber(v as number, 1),
-      },
-      {
-        field: '_p10',
-        header: 'P10',
-        kind: 'computed',
-        width: 80,
-        value: (r) => durationSummary(r)?.p10 ?? null,
-        format: (v) => formatNumber(v as number, 1),
-      },
-      {
-        field: '_p90',
-        header: 'P90',
-        kind: 'computed',
-        width: 80,
-        value: (r) => durationSummary(r)?.p90 ?? null,
-        format: (v) => formatNumber(v as number, 1),
-      },
+      ...summaryColumns(durationSummary, {
+        meanHeader: 'Mean (days)',
+        widths: [100, 80],
+        formatMean: days,
+        formatPercentile: days,
+      }),
     ],
     [],
   );
 
-  if (register.query.isPending) return <Skeleton rows={8} />;
-  if (register.query.isError)
-    return <Notice tone="invalid">The schedule could not be loaded: {register.query.error.message}</Notice>;
-  const codes = register.rows.map((r) => String(r.code ?? ''));
-  return (
-    <div className="space-y-2">
-      <RegisterToolbar
-        readOnly={readOnly}
-        selected={page.selected.length}
-        saving={register.saving}
-        count={register.rows.length}
-        noun="activity"
-        plural="activities"
-        onAdd={() => register.insertRow(register.rows.length, { ...blank(), code: nextCode(codes, 'A1') })}
-        onInsert={page.insert}
-        onDelete={page.remove}
-        onMove={page.move}
-      >
-        <ImportExport projectId={projectId} register="activities" readOnly={readOnly} />
-      </RegisterToolbar>
-      <RegisterNotice register={register} />
-      <RegisterGrid
-        label="Schedule"
-        rows={rows}
-        columns={columns}
-        readOnly={readOnly}
-        onChange={register.applyValues}
-        onAddRows={page.addRows}
-        onSelectionChange={page.setSelected}
-        onFocusRow={page.onFocusRow}
-      />
-    </div>
-  );
+  return <RegisterTab page={page} readOnly={readOnly} columns={columns} rows={rows} />;
 }

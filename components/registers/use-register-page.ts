@@ -2,7 +2,14 @@
 // Glue shared by the register tabs: the rows hook, selection, focus and the toolbar actions.
 import { useCallback, useRef, useState } from 'react';
 import type { RegisterKind } from '@/lib/validation/registers';
-import { useRegisterRows } from '@/components/grid/use-register-rows';
+import { useQuery } from '@tanstack/react-query';
+import { callApi } from '@/components/forms/api';
+import {
+  registerQueryKey,
+  useRegisterRows,
+  type GridRow,
+  type SavedRow,
+} from '@/components/grid/use-register-rows';
 
 export function useRegisterPage(
   projectId: number,
@@ -41,7 +48,45 @@ export function useRegisterPage(
   );
   const onFocusRow = useCallback((key: string | null) => (focused.current = key), []);
 
-  return { register, selected, setSelected, add, insert, addRows, remove, move, onFocusRow };
+  return {
+    projectId,
+    kind,
+    register,
+    blank,
+    selected,
+    setSelected,
+    add,
+    insert,
+    addRows,
+    remove,
+    move,
+    onFocusRow,
+  };
+}
+
+export type RegisterPage = ReturnType<typeof useRegisterPage>;
+
+/** Another register's saved rows, read for reference (e.g. the activity codes on the line items). */
+export function useSavedRows(projectId: number, kind: RegisterKind) {
+  return useQuery({
+    queryKey: registerQueryKey(projectId, kind),
+    queryFn: async () => (await callApi<{ rows: SavedRow[] }>(`/api/projects/${projectId}/${kind}`)).rows,
+  });
+}
+
+/** The issue of a code that another row of the register uses as well. */
+export function duplicateCodeIssue(
+  values: Record<string, unknown>,
+  all: Record<string, unknown>[],
+  noun: string,
+): string | null {
+  if (!values.code || all.filter((r) => r.code === values.code).length < 2) return null;
+  return `${String(values.code)} is used by another ${noun}.`;
+}
+
+/** A read-only row below the grid's rows holding the register's totals. */
+export function totalRowOf(values: Record<string, unknown>): GridRow {
+  return { ...values, _key: 'total', _issues: {}, _draft: false, _id: null, _version: null } as GridRow;
 }
 
 /** The next code in a sequence: after "C12" comes "C13"; after "2.3" comes "2.4". */

@@ -10,6 +10,7 @@ import type { SnapshotDiff } from '@/lib/runs/snapshot-diff';
 import { percentileCurve } from '@/lib/runs/outcome-data';
 import { finishDate } from '@/lib/runs/working-days';
 import { formatChange, formatDate, formatDays, formatMoney, formatMoneyShort } from '@/lib/runs/format';
+import { TableHead, type HeadCell } from '@/components/ui/table';
 import { settingsText } from './settings-text';
 
 const when = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' });
@@ -23,6 +24,11 @@ const KIND_LABEL = {
   activity: 'Activity',
   correlation: 'Correlation',
 };
+
+const VALUES_HEAD: HeadCell[] = [
+  'Level',
+  ...['Older', 'Newer', 'Change'].map((title) => ({ title, align: 'right' as const })),
+];
 
 const show = (v: unknown) =>
   v === null || v === undefined ? '—' : typeof v === 'object' ? JSON.stringify(v) : String(v);
@@ -43,14 +49,7 @@ function ValuesTable({
       <caption className="pb-1 text-left text-xs font-semibold uppercase tracking-wide text-ink-soft">
         {title}
       </caption>
-      <thead className="text-xs text-ink-soft">
-        <tr className="border-b border-rule">
-          <th className="py-1 text-left font-medium">Level</th>
-          <th className="py-1 text-right font-medium">Older</th>
-          <th className="py-1 text-right font-medium">Newer</th>
-          <th className="py-1 text-right font-medium">Change</th>
-        </tr>
-      </thead>
+      <TableHead look="captioned" cells={VALUES_HEAD} />
       <tbody>
         {(['base', ...LEVELS] as const).map((k) => {
           const va = k === 'base' ? a.base : a.percentiles[k];

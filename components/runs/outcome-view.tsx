@@ -1,17 +1,14 @@
 'use client';
 
 import '@/components/charts/setup';
-import { COLORS, type Marker } from '@/components/charts/setup';
+import { COLORS } from '@/components/charts/setup';
 import { ChartFrame } from '@/components/charts/chart-frame';
-import { DistributionChart } from '@/components/charts/distribution-chart';
-import { TornadoChart } from '@/components/charts/tornado-chart';
-import { ConvergenceChart } from '@/components/charts/convergence-chart';
 import { CriticalityChart } from '@/components/charts/criticality-chart';
 import { CostFinishScatter } from '@/components/charts/cost-finish-scatter';
 import { ResultCautions } from '@/components/ui/notice';
-import type { SimulationResult, TotalSummary } from '@/lib/sim';
+import type { SimulationResult } from '@/lib/sim';
 import type { RunView } from '@/lib/view-types/runs';
-import { percentileCurve, topDrivers, type SampleCharts } from '@/lib/runs/outcome-data';
+import type { SampleCharts } from '@/lib/runs/outcome-data';
 import { contingencyAt } from '@/lib/domain/contingency';
 import { finishDate } from '@/lib/runs/working-days';
 import {
@@ -25,6 +22,7 @@ import {
 import { PercentileTable } from './outcome/percentile-table';
 import { CorrelationsTable } from './outcome/correlations-table';
 import { WarningsList } from './outcome/warnings-list';
+import { ConvergenceFrame, DistributionFrame, DriversFrame, type SideView } from './outcome/side-frames';
 
 export type OutcomeViewProps = {
   project: { id: number; code: string; currency: string; baseDate: string };
@@ -34,11 +32,20 @@ export type OutcomeViewProps = {
   names: Record<string, string>;
 };
 
-function Section({ title, children }: { title: string; children: React.ReactNode }) {
+/** A titled section; with `columns`, its children stand side by side in a grid of those columns. */
+function Section({
+  title,
+  columns,
+  children,
+}: {
+  title: string;
+  columns?: string;
+  children: React.ReactNode;
+}) {
   return (
     <section className="space-y-3">
       <h2 className="border-b border-rule pb-1 text-base font-semibold">{title}</h2>
-      {children}
+      {columns ? <div className={`grid ${columns} gap-4`}>{children}</div> : children}
     </section>
   );
 }
@@ -87,39 +94,13 @@ export function OutcomeView({ project, run, result, charts, names }: OutcomeView
       : `Bars, curve and markers: all ${formatCount(charts.of)} iterations.`
     : 'The curve runs through the percentiles of all iterations.';
 
-  const costMarkers: Marker[] = [
-    {
-      value: cost.percentiles.P50,
-      label: `P50 ${moneyShort(cost.percentiles.P50)}`,
-      color: COLORS.ink,
-      dash: [4, 3],
-    },
-    { value: cost.percentiles.P80, label: `P80 ${moneyShort(cost.percentiles.P80)}`, color: COLORS.cost },
-    ...(s.costTarget !== null
-      ? [
-          {
-            value: s.costTarget,
-            label: `Target ${moneyShort(s.costTarget)}`,
-            color: COLORS.caution,
-            dash: [2, 2],
-          },
-        ]
-      : []),
-  ];
-  const durationMarkers = (d: TotalSummary): Marker[] => [
-    { value: d.percentiles.P50, label: `P50 ${dateOf(d.percentiles.P50)}`, color: COLORS.ink, dash: [4, 3] },
-    { value: d.percentiles.P80, label: `P80 ${dateOf(d.percentiles.P80)}`, color: COLORS.time },
-    ...(s.durationTarget !== null
-      ? [
-          {
-            value: s.durationTarget,
-            label: `Target ${dateOf(s.durationTarget)}`,
-            color: COLORS.caution,
-            dash: [2, 2],
-          },
-        ]
-      : []),
-  ];
+  const costView: SideView = {
+    side: 'cost',
+    summary: cost,
+    target: s.costTarget,
+    format: moneyShort,
+    axisTitle: `Total cost (${currency})`,
+  };
 
   const costWithin = cost.probabilityWithinTarget;
   const durationWithin = duration?.probabilityWithinTarget;
@@ -195,245 +176,191 @@ export function OutcomeView({ project, run, result, charts, names }: OutcomeView
         <ResultCautions />
       </div>
 
-      <Section title="Cost">
-        <div className="grid grid-cols-[1fr_480px] gap-4">
-          <ChartFrame
-            title="Total cost: distribution and S-curve"
-            testId="chart-cost-histogram"
-            reading={`80 % of simulated outcomes cost at most ${money(cost.percentiles.P80)}; half cost at most ${money(cost.percentiles.P50)}.`}
-            note={sampleNote}
-            height={300}
-          >
-            <DistributionChart
-              hist={charts?.cost ?? { edges: [], counts: [], n: 1 }}
-              curve={percentileCurve(cost)}
-              markers={costMarkers}
-              color={COLORS.cost}
-              colorLight={COLORS.costLight}
-              formatX={moneyShort}
-              xTitle={`Total cost (${currency})`}
-            />
-          </ChartFrame>
-          <div className="space-y-3 rounded border border-rule bg-paper-raised p-3">
-            <PercentileTable
-              summary={cost}
-              format={money}
-              caption="Cost P-table"
-              withContingency
-              testId="cost-ptable"
-            />
-            <p className="text-xs text-ink-soft">
-              Contingency at the chosen {level}: <strong className="num">{money(chosen.amount)}</strong> over
-              the base.
-            </p>
-          </div>
+      <Section title="Cost" columns="grid-cols-[1fr_480px]">
+        <DistributionFrame
+          view={costView}
+          charts={charts}
+          reading={`80 % of simulated outcomes cost at most ${money(cost.percentiles.P80)}; half cost at most ${money(cost.percentiles.P50)}.`}
+          note={sampleNote}
+        />
+        <div className="space-y-3 rounded border border-rule bg-paper-raised p-3">
+          <PercentileTable
+            summary={cost}
+            format={money}
+            caption="Cost P-table"
+            withContingency
+            testId="cost-ptable"
+          />
+          <p className="text-xs text-ink-soft">
+            Contingency at the chosen {level}: <strong className="num">{money(chosen.amount)}</strong> over
+            the base.
+          </p>
         </div>
       </Section>
 
       {duration ? (
-        <Section title="Finish date">
-          <div className="grid grid-cols-[1fr_480px] gap-4">
-            <ChartFrame
-              title="Finish date: distribution and S-curve"
-              testId="chart-finish-curve"
-              reading={`80 % of simulated outcomes finish by ${dateOf(duration.percentiles.P80)} (${formatDays(duration.percentiles.P80)} from the base date).`}
-              note={`Working days Monday to Friday from the base date ${formatDate(project.baseDate)}. ${sampleNote}`}
-              height={300}
-            >
-              <DistributionChart
-                hist={charts?.duration ?? { edges: [], counts: [], n: 1 }}
-                curve={percentileCurve(duration)}
-                markers={durationMarkers(duration)}
-                color={COLORS.time}
-                colorLight={COLORS.timeLight}
-                formatX={dateOf}
-                xTitle="Finish date (working days from the base date)"
-              />
-            </ChartFrame>
-            <div className="rounded border border-rule bg-paper-raised p-3">
-              <PercentileTable
-                summary={duration}
-                format={(v) => formatDays(v)}
-                caption="Duration P-table (working days)"
-                extra={{ title: 'Finish', cell: dateOf }}
-                testId="duration-ptable"
-              />
-            </div>
+        <Section title="Finish date" columns="grid-cols-[1fr_480px]">
+          <DistributionFrame
+            view={{
+              side: 'duration',
+              summary: duration,
+              target: s.durationTarget,
+              format: dateOf,
+              axisTitle: 'Finish date (working days from the base date)',
+            }}
+            charts={charts}
+            reading={`80 % of simulated outcomes finish by ${dateOf(duration.percentiles.P80)} (${formatDays(duration.percentiles.P80)} from the base date).`}
+            note={`Working days Monday to Friday from the base date ${formatDate(project.baseDate)}. ${sampleNote}`}
+          />
+          <div className="rounded border border-rule bg-paper-raised p-3">
+            <PercentileTable
+              summary={duration}
+              format={(v) => formatDays(v)}
+              caption="Duration P-table (working days)"
+              extra={{ title: 'Finish', cell: dateOf }}
+              testId="duration-ptable"
+            />
           </div>
         </Section>
       ) : null}
 
-      <Section title="Targets">
-        <div className="grid grid-cols-[400px_1fr] gap-4">
-          <table className="h-fit w-full border-collapse rounded border border-rule bg-paper-raised text-sm">
-            <thead className="text-xs text-ink-soft">
-              <tr className="border-b border-rule">
-                <th className="px-3 py-1.5 text-left font-medium">Probability of meeting</th>
-                <th className="px-3 py-1.5 text-right font-medium">Value</th>
-                <th className="px-3 py-1.5 text-right font-medium">95 % interval</th>
+      <Section title="Targets" columns="grid-cols-[400px_1fr]">
+        <table className="h-fit w-full border-collapse rounded border border-rule bg-paper-raised text-sm">
+          <thead className="text-xs text-ink-soft">
+            <tr className="border-b border-rule">
+              <th className="px-3 py-1.5 text-left font-medium">Probability of meeting</th>
+              <th className="px-3 py-1.5 text-right font-medium">Value</th>
+              <th className="px-3 py-1.5 text-right font-medium">95 % interval</th>
+            </tr>
+          </thead>
+          <tbody>
+            {[
+              {
+                label: s.costTarget !== null ? `Cost ≤ ${money(s.costTarget)}` : 'Cost target (not set)',
+                p: costWithin ? { value: costWithin.value, ci95: costWithin.ci95 } : null,
+              },
+              {
+                label:
+                  s.finishTarget !== null
+                    ? `Finish by ${formatDate(s.finishTarget)}`
+                    : 'Finish target (not set)',
+                p: durationWithin ? { value: durationWithin.value, ci95: durationWithin.ci95 } : null,
+              },
+              {
+                label: 'Both targets',
+                p: result.joint ? { value: result.joint.probability, ci95: result.joint.ci95 } : null,
+              },
+            ].map((row) => (
+              <tr key={row.label} className="border-b border-rule/60">
+                <td className="px-3 py-1">{row.label}</td>
+                <td className="num px-3 py-1 font-semibold">{row.p ? formatShare(row.p.value) : '—'}</td>
+                <td className="num px-3 py-1 text-ink-soft">
+                  {row.p ? `${formatShare(row.p.ci95[0])} – ${formatShare(row.p.ci95[1])}` : '—'}
+                </td>
               </tr>
-            </thead>
-            <tbody>
-              {[
-                {
-                  label: s.costTarget !== null ? `Cost ≤ ${money(s.costTarget)}` : 'Cost target (not set)',
-                  p: costWithin ? { value: costWithin.value, ci95: costWithin.ci95 } : null,
-                },
-                {
-                  label:
-                    s.finishTarget !== null
-                      ? `Finish by ${formatDate(s.finishTarget)}`
-                      : 'Finish target (not set)',
-                  p: durationWithin ? { value: durationWithin.value, ci95: durationWithin.ci95 } : null,
-                },
-                {
-                  label: 'Both targets',
-                  p: result.joint ? { value: result.joint.probability, ci95: result.joint.ci95 } : null,
-                },
-              ].map((row) => (
-                <tr key={row.label} className="border-b border-rule/60">
-                  <td className="px-3 py-1">{row.label}</td>
-                  <td className="num px-3 py-1 font-semibold">{row.p ? formatShare(row.p.value) : '—'}</td>
-                  <td className="num px-3 py-1 text-ink-soft">
-                    {row.p ? `${formatShare(row.p.ci95[0])} – ${formatShare(row.p.ci95[1])}` : '—'}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-          {duration && charts && charts.scatter.length ? (
-            <ChartFrame
-              title="Cost against finish"
-              testId="chart-scatter"
-              reading={
-                result.joint
-                  ? `${formatShare(result.joint.probability)} of simulated outcomes meet both the cost and the finish target (lower left of the lines).`
-                  : 'Set both a cost and a finish target to read the joint probability here.'
-              }
-              note={`One dot per iteration: ${formatCount(charts.scatter.length)} of the ${formatCount(charts.of)} iterations.`}
-              height={300}
-            >
-              <CostFinishScatter
-                points={charts.scatter}
-                markers={[
-                  ...(s.durationTarget !== null
-                    ? [
-                        {
-                          value: s.durationTarget,
-                          label: 'Finish target',
-                          color: COLORS.caution,
-                          axis: 'x' as const,
-                        },
-                      ]
-                    : []),
-                  ...(s.costTarget !== null
-                    ? [
-                        {
-                          value: s.costTarget,
-                          label: 'Cost target',
-                          color: COLORS.caution,
-                          axis: 'y' as const,
-                        },
-                      ]
-                    : []),
-                ]}
-                formatX={dateOf}
-                formatY={moneyShort}
-              />
-            </ChartFrame>
-          ) : (
-            <p className="text-sm text-ink-soft">
-              The scatter of cost against finish needs a schedule (activities).
-            </p>
-          )}
-        </div>
-      </Section>
-
-      <Section title="What drives the spread">
-        <div className="grid grid-cols-2 gap-4">
+            ))}
+          </tbody>
+        </table>
+        {duration && charts && charts.scatter.length ? (
           <ChartFrame
-            title="Cost drivers (top 15)"
-            testId="chart-tornado-cost"
+            title="Cost against finish"
+            testId="chart-scatter"
             reading={
-              result.sensitivity.cost.length
-                ? `${topDrivers(result.sensitivity.cost, 1)[0].id} ${nameOf(topDrivers(result.sensitivity.cost, 1)[0].id)} moves the total cost most; the share after each name is its part of the variance.`
-                : 'No uncertain input moves the cost.'
+              result.joint
+                ? `${formatShare(result.joint.probability)} of simulated outcomes meet both the cost and the finish target (lower left of the lines).`
+                : 'Set both a cost and a finish target to read the joint probability here.'
             }
-            height={Math.max(160, topDrivers(result.sensitivity.cost).length * 22 + 50)}
+            note={`One dot per iteration: ${formatCount(charts.scatter.length)} of the ${formatCount(charts.of)} iterations.`}
+            height={300}
           >
-            <TornadoChart entries={topDrivers(result.sensitivity.cost)} nameOf={nameOf} color={COLORS.cost} />
-          </ChartFrame>
-          {duration ? (
-            <ChartFrame
-              title="Duration drivers (top 15)"
-              testId="chart-tornado-duration"
-              reading={
-                result.sensitivity.duration.length
-                  ? `${topDrivers(result.sensitivity.duration, 1)[0].id} ${nameOf(topDrivers(result.sensitivity.duration, 1)[0].id)} moves the finish most.`
-                  : 'No uncertain input moves the finish.'
-              }
-              height={Math.max(160, topDrivers(result.sensitivity.duration).length * 22 + 50)}
-            >
-              <TornadoChart
-                entries={topDrivers(result.sensitivity.duration)}
-                nameOf={nameOf}
-                color={COLORS.time}
-              />
-            </ChartFrame>
-          ) : null}
-        </div>
-      </Section>
-
-      <Section title="Convergence and criticality">
-        <div className="grid grid-cols-2 gap-4">
-          <ChartFrame
-            title="Convergence of cost P50 and P80"
-            testId="chart-convergence-cost"
-            reading={`After ${formatCount(result.iterations)} iterations the cost P80 is known to within ${moneyShort(cost.percentileCI95.P80[1] - cost.percentileCI95.P80[0])} (95 % interval width).`}
-            height={240}
-          >
-            <ConvergenceChart
-              iterations={result.convergence.iterations}
-              series={result.convergence.cost}
-              color={COLORS.cost}
-              band={COLORS.costBand}
+            <CostFinishScatter
+              points={charts.scatter}
+              markers={[
+                ...(s.durationTarget !== null
+                  ? [
+                      {
+                        value: s.durationTarget,
+                        label: 'Finish target',
+                        color: COLORS.caution,
+                        axis: 'x' as const,
+                      },
+                    ]
+                  : []),
+                ...(s.costTarget !== null
+                  ? [
+                      {
+                        value: s.costTarget,
+                        label: 'Cost target',
+                        color: COLORS.caution,
+                        axis: 'y' as const,
+                      },
+                    ]
+                  : []),
+              ]}
+              formatX={dateOf}
               formatY={moneyShort}
-              yTitle={`Total cost (${currency})`}
             />
           </ChartFrame>
-          {duration && result.convergence.duration ? (
-            <ChartFrame
-              title="Convergence of duration P50 and P80"
-              testId="chart-convergence-duration"
-              reading={`The duration P80 is known to within ${formatDays(duration.percentileCI95.P80[1] - duration.percentileCI95.P80[0])} (95 % interval width).`}
-              height={240}
-            >
-              <ConvergenceChart
-                iterations={result.convergence.iterations}
-                series={result.convergence.duration}
-                color={COLORS.time}
-                band={COLORS.timeBand}
-                formatY={(v) => formatDays(v, 0)}
-                yTitle="Duration (working days)"
-              />
-            </ChartFrame>
-          ) : null}
-          {criticality.length ? (
-            <ChartFrame
-              title="Criticality of activities"
-              testId="chart-criticality"
-              reading={`${criticality[0].label} is on the critical path in ${formatShare(criticality[0].value, 0)} of iterations.`}
-              height={Math.max(140, criticality.length * 22 + 50)}
-              note={
-                allCriticality.length > criticality.length
-                  ? `The ${criticality.length} most critical of ${allCriticality.length} activities.`
-                  : undefined
-              }
-            >
-              <CriticalityChart rows={criticality} />
-            </ChartFrame>
-          ) : null}
-        </div>
+        ) : (
+          <p className="text-sm text-ink-soft">
+            The scatter of cost against finish needs a schedule (activities).
+          </p>
+        )}
+      </Section>
+
+      <Section title="What drives the spread" columns="grid-cols-2">
+        <DriversFrame
+          side="cost"
+          entries={result.sensitivity.cost}
+          nameOf={nameOf}
+          reading={(d) =>
+            `${d} moves the total cost most; the share after each name is its part of the variance.`
+          }
+          empty="No uncertain input moves the cost."
+        />
+        {duration ? (
+          <DriversFrame
+            side="duration"
+            entries={result.sensitivity.duration}
+            nameOf={nameOf}
+            reading={(d) => `${d} moves the finish most.`}
+            empty="No uncertain input moves the finish."
+          />
+        ) : null}
+      </Section>
+
+      <Section title="Convergence and criticality" columns="grid-cols-2">
+        <ConvergenceFrame
+          side="cost"
+          convergence={result.convergence}
+          reading={`After ${formatCount(result.iterations)} iterations the cost P80 is known to within ${moneyShort(cost.percentileCI95.P80[1] - cost.percentileCI95.P80[0])} (95 % interval width).`}
+          formatY={moneyShort}
+          yTitle={`Total cost (${currency})`}
+        />
+        {duration ? (
+          <ConvergenceFrame
+            side="duration"
+            convergence={result.convergence}
+            reading={`The duration P80 is known to within ${formatDays(duration.percentileCI95.P80[1] - duration.percentileCI95.P80[0])} (95 % interval width).`}
+            formatY={(v) => formatDays(v, 0)}
+            yTitle="Duration (working days)"
+          />
+        ) : null}
+        {criticality.length ? (
+          <ChartFrame
+            title="Criticality of activities"
+            testId="chart-criticality"
+            reading={`${criticality[0].label} is on the critical path in ${formatShare(criticality[0].value, 0)} of iterations.`}
+            height={Math.max(140, criticality.length * 22 + 50)}
+            note={
+              allCriticality.length > criticality.length
+                ? `The ${criticality.length} most critical of ${allCriticality.length} activities.`
+                : undefined
+            }
+          >
+            <CriticalityChart rows={criticality} />
+          </ChartFrame>
+        ) : null}
       </Section>
 
       <Section title="Correlations">

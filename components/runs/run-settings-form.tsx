@@ -1,6 +1,6 @@
 'use client';
 
-import { useState } from 'react';
+import { useState, type InputHTMLAttributes, type ReactNode } from 'react';
 import { useRouter } from 'next/navigation';
 import { useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
@@ -19,6 +19,50 @@ import {
 import type { RunView } from '@/lib/view-types/runs';
 
 const newSeed = () => 1 + Math.floor(Math.random() * MAX_SEED);
+const id = (name: string) => `run-${name}`;
+
+/** A typed field of the form; number inputs are read as numbers. */
+type TextFieldSpec = {
+  name: 'iterations' | 'relativePercent' | 'maxIterations' | 'seed' | 'costTarget' | 'finishTarget';
+  id: string;
+  label: string;
+  hint: string;
+  input: InputHTMLAttributes<HTMLInputElement>;
+  /** A control to the right of the input. */
+  beside?: ReactNode;
+};
+
+const SELECT_FIELDS: {
+  name: 'sampling' | 'riskValues' | 'confidence';
+  id: string;
+  label: string;
+  options: [string, string][];
+}[] = [
+  {
+    name: 'sampling',
+    id: 'sampling',
+    label: 'Sampling',
+    options: [
+      ['lhs', 'Latin hypercube'],
+      ['mc', 'Plain Monte Carlo'],
+    ],
+  },
+  {
+    name: 'riskValues',
+    id: 'risk-values',
+    label: 'Risk values',
+    options: [
+      ['pre', 'Pre-mitigation'],
+      ['post', 'Post-mitigation'],
+    ],
+  },
+  {
+    name: 'confidence',
+    id: 'confidence',
+    label: 'Contingency at',
+    options: CONFIDENCE_LEVELS.map((c) => [c, c]),
+  },
+];
 
 /**
  * The settings of a new run. The seed is drawn at random but always shown (and stored), so the
@@ -83,7 +127,83 @@ export function RunSettingsForm({
     }
   }
 
-  const id = (name: string) => `run-${name}`;
+  const textFields: TextFieldSpec[] = [
+    {
+      name: 'iterations',
+      id: 'iterations',
+      label: mode === 'precision' ? 'First round (iterations)' : 'Iterations',
+      hint: '1,000 to 1,000,000',
+      input: { type: 'number', step: 1000, min: 1000, max: 1_000_000 },
+    },
+    {
+      name: 'relativePercent',
+      id: 'relative',
+      label: 'P80 known to ± (%)',
+      hint: 'Relative half-width of its 95 % interval',
+      input: { type: 'number', step: 0.1 },
+    },
+    {
+      name: 'maxIterations',
+      id: 'cap',
+      label: 'Cap (iterations)',
+      hint: 'Never more than this',
+      input: { type: 'number', step: 1000 },
+    },
+    {
+      name: 'costTarget',
+      id: 'cost-target',
+      label: `Cost target (${currency})`,
+      hint: 'Optional; e.g. the budget',
+      input: { inputMode: 'decimal' },
+    },
+    {
+      name: 'finishTarget',
+      id: 'finish-target',
+      label: 'Finish target',
+      hint: `Optional; on or after the base date ${baseDate}`,
+      input: { type: 'date', min: baseDate },
+    },
+  ];
+  const seedField: TextFieldSpec = {
+    name: 'seed',
+    id: 'seed',
+    label: 'Seed',
+    hint: 'Same seed, same result',
+    input: { type: 'number' },
+    beside: (
+      <Button
+        variant="secondary"
+        onClick={() => setValue('seed', newSeed(), { shouldValidate: true })}
+        aria-label="Draw a new seed"
+        title="Draw a new seed"
+      >
+        New
+      </Button>
+    ),
+  };
+  const textField = (f: TextFieldSpec) => {
+    const input = (
+      <TextInput
+        id={id(f.id)}
+        {...f.input}
+        invalid={!!errors[f.name]}
+        {...register(f.name, { valueAsNumber: f.input.type === 'number' })}
+      />
+    );
+    return (
+      <Field key={f.name} id={id(f.id)} label={f.label} error={errors[f.name]?.message} hint={f.hint}>
+        {f.beside ? (
+          <div className="flex gap-1.5">
+            {input}
+            {f.beside}
+          </div>
+        ) : (
+          input
+        )}
+      </Field>
+    );
+  };
+
   return (
     <form onSubmit={handleSubmit(onSubmit)} noValidate className="space-y-4" aria-label="Run settings">
       <fieldset className="space-y-2">
@@ -98,123 +218,23 @@ export function RunSettingsForm({
         </div>
       </fieldset>
       <div className="grid grid-cols-4 gap-3">
-        <Field
-          id={id('iterations')}
-          label={mode === 'precision' ? 'First round (iterations)' : 'Iterations'}
-          error={errors.iterations?.message}
-          hint="1,000 to 1,000,000"
-        >
-          <TextInput
-            id={id('iterations')}
-            type="number"
-            step={1000}
-            min={1000}
-            max={1_000_000}
-            invalid={!!errors.iterations}
-            {...register('iterations', { valueAsNumber: true })}
-          />
-        </Field>
-        {mode === 'precision' ? (
-          <>
-            <Field
-              id={id('relative')}
-              label="P80 known to ± (%)"
-              error={errors.relativePercent?.message}
-              hint="Relative half-width of its 95 % interval"
-            >
-              <TextInput
-                id={id('relative')}
-                type="number"
-                step={0.1}
-                invalid={!!errors.relativePercent}
-                {...register('relativePercent', { valueAsNumber: true })}
-              />
-            </Field>
-            <Field
-              id={id('cap')}
-              label="Cap (iterations)"
-              error={errors.maxIterations?.message}
-              hint="Never more than this"
-            >
-              <TextInput
-                id={id('cap')}
-                type="number"
-                step={1000}
-                invalid={!!errors.maxIterations}
-                {...register('maxIterations', { valueAsNumber: true })}
-              />
-            </Field>
-          </>
-        ) : null}
-        <Field id={id('seed')} label="Seed" error={errors.seed?.message} hint="Same seed, same result">
-          <div className="flex gap-1.5">
-            <TextInput
-              id={id('seed')}
-              type="number"
-              invalid={!!errors.seed}
-              {...register('seed', { valueAsNumber: true })}
-            />
-            <Button
-              variant="secondary"
-              onClick={() => setValue('seed', newSeed(), { shouldValidate: true })}
-              aria-label="Draw a new seed"
-              title="Draw a new seed"
-            >
-              New
-            </Button>
-          </div>
-        </Field>
+        {textFields.slice(0, mode === 'precision' ? 3 : 1).map(textField)}
+        {textField(seedField)}
       </div>
       <div className="grid grid-cols-4 gap-3">
-        <Field id={id('sampling')} label="Sampling">
-          <Select id={id('sampling')} {...register('sampling')}>
-            <option value="lhs">Latin hypercube</option>
-            <option value="mc">Plain Monte Carlo</option>
-          </Select>
-        </Field>
-        <Field id={id('risk-values')} label="Risk values">
-          <Select id={id('risk-values')} {...register('riskValues')}>
-            <option value="pre">Pre-mitigation</option>
-            <option value="post">Post-mitigation</option>
-          </Select>
-        </Field>
-        <Field id={id('confidence')} label="Contingency at">
-          <Select id={id('confidence')} {...register('confidence')}>
-            {CONFIDENCE_LEVELS.map((c) => (
-              <option key={c} value={c}>
-                {c}
-              </option>
-            ))}
-          </Select>
-        </Field>
+        {SELECT_FIELDS.map((f) => (
+          <Field key={f.name} id={id(f.id)} label={f.label}>
+            <Select id={id(f.id)} {...register(f.name)}>
+              {f.options.map(([value, label]) => (
+                <option key={value} value={value}>
+                  {label}
+                </option>
+              ))}
+            </Select>
+          </Field>
+        ))}
         <div />
-        <Field
-          id={id('cost-target')}
-          label={`Cost target (${currency})`}
-          error={errors.costTarget?.message}
-          hint="Optional; e.g. the budget"
-        >
-          <TextInput
-            id={id('cost-target')}
-            inputMode="decimal"
-            invalid={!!errors.costTarget}
-            {...register('costTarget')}
-          />
-        </Field>
-        <Field
-          id={id('finish-target')}
-          label="Finish target"
-          error={errors.finishTarget?.message}
-          hint={`Optional; on or after the base date ${baseDate}`}
-        >
-          <TextInput
-            id={id('finish-target')}
-            type="date"
-            min={baseDate}
-            invalid={!!errors.finishTarget}
-            {...register('finishTarget')}
-          />
-        </Field>
+        {textFields.slice(3).map(textField)}
       </div>
       {failure ? (
         <Notice tone="invalid" title="The run was not started">

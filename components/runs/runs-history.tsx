@@ -11,6 +11,13 @@ import type { RunView } from '@/lib/view-types/runs';
 import { formatDays, formatMoney } from '@/lib/runs/format';
 import { RunStatusBadge } from './run-status';
 import { settingsText } from './settings-text';
+import { TableHead, type HeadCell } from '@/components/ui/table';
+
+const HEAD: HeadCell[] = [
+  { title: <span className="sr-only">Compare</span>, padding: 'w-8 px-2 py-2' },
+  ...['Run', 'Status', 'Started (UTC)', 'By', 'Settings'],
+  ...['Cost P50', 'Cost P80', 'Duration P80'].map((title) => ({ title, align: 'right' as const })),
+];
 
 const when = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' });
 
@@ -65,21 +72,7 @@ export function RunsHistory({
         className="w-full border-collapse rounded border border-rule bg-paper-raised text-sm"
         data-testid="runs-table"
       >
-        <thead className="bg-paper-sunk text-left text-xs uppercase tracking-wide text-ink-soft">
-          <tr>
-            <th className="w-8 px-2 py-2">
-              <span className="sr-only">Compare</span>
-            </th>
-            <th className="px-3 py-2">Run</th>
-            <th className="px-3 py-2">Status</th>
-            <th className="px-3 py-2">Started (UTC)</th>
-            <th className="px-3 py-2">By</th>
-            <th className="px-3 py-2">Settings</th>
-            <th className="px-3 py-2 text-right">Cost P50</th>
-            <th className="px-3 py-2 text-right">Cost P80</th>
-            <th className="px-3 py-2 text-right">Duration P80</th>
-          </tr>
-        </thead>
+        <TableHead look="banded" cells={HEAD} />
         <tbody>
           {runs.map((r) => (
             <tr key={r.id} className="border-t border-rule hover:bg-paper" data-run-id={r.id}>

@@ -24,30 +24,26 @@ export function Field({ label, error, hint, id, children }: FieldProps) {
   );
 }
 
-export const TextInput = forwardRef<
-  HTMLInputElement,
-  InputHTMLAttributes<HTMLInputElement> & { invalid?: boolean }
->(function TextInput({ invalid, className = '', ...props }, ref) {
-  return (
-    <input
-      ref={ref}
-      aria-invalid={invalid || undefined}
-      className={`${control} ${invalid ? 'border-invalid' : 'border-rule-strong'} ${className}`}
-      {...props}
-    />
-  );
+type Invalid = { invalid?: boolean; className?: string };
+
+/** The look and state every control shares: its border says whether the value is accepted. */
+const controlProps = ({ invalid, className = '' }: Invalid) => ({
+  'aria-invalid': invalid || undefined,
+  className: `${control} ${invalid ? 'border-invalid' : 'border-rule-strong'} ${className}`,
 });
 
-export const Select = forwardRef<
-  HTMLSelectElement,
-  SelectHTMLAttributes<HTMLSelectElement> & { invalid?: boolean }
->(function Select({ invalid, className = '', ...props }, ref) {
-  return (
-    <select
-      ref={ref}
-      aria-invalid={invalid || undefined}
-      className={`${control} ${invalid ? 'border-invalid' : 'border-rule-strong'} ${className}`}
-      {...props}
-    />
-  );
+type InputProps = InputHTMLAttributes<HTMLInputElement> & Invalid;
+export const TextInput = forwardRef<HTMLInputElement, InputProps>(function TextInput(
+  { invalid, className, ...props },
+  ref,
+) {
+  return <input ref={ref} {...controlProps({ invalid, className })} {...props} />;
+});
+
+type SelectProps = SelectHTMLAttributes<HTMLSelectElement> & Invalid;
+export const Select = forwardRef<HTMLSelectElement, SelectProps>(function Select(
+  { invalid, className, ...props },
+  ref,
+) {
+  return <select ref={ref} {...controlProps({ invalid, className })} {...props} />;
 });

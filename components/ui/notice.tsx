@@ -1,6 +1,4 @@
-type Tone = 'info' | 'caution' | 'invalid' | 'success';
-
-const TONES: Record<Tone, string> = {
+const TONES = {
   info: 'border-cost/40 bg-cost-light text-cost-dark',
   caution: 'border-caution/50 bg-caution-light text-caution-dark',
   invalid: 'border-invalid/50 bg-invalid-light text-invalid',
@@ -12,7 +10,7 @@ export function Notice({
   title,
   children,
 }: {
-  tone?: Tone;
+  tone?: keyof typeof TONES;
   title?: string;
   children: React.ReactNode;
 }) {

@@ -1,6 +1,9 @@
 import type { PercentileKey, TotalSummary } from '@/lib/sim';
 import { PERCENTILE_KEYS } from '@/lib/domain/percentiles';
 import { contingencyAt } from '@/lib/domain/contingency';
+import { TableHead, type HeadCell } from '@/components/ui/table';
+
+const right = (title: string): HeadCell => ({ title, align: 'right', className: 'pr-2' });
 
 /**
  * The P-table: each confidence level with its value and, where the result holds it, the
@@ -28,15 +31,14 @@ export function PercentileTable({
       <caption className="pb-1 text-left text-xs font-semibold uppercase tracking-wide text-ink-soft">
         {caption}
       </caption>
-      <thead className="text-xs text-ink-soft">
-        <tr className="border-b border-rule">
-          <th className="py-1 pr-2 text-left font-medium">Level</th>
-          <th className="py-1 pr-2 text-right font-medium">Value</th>
-          {extra ? <th className="py-1 pr-2 text-right font-medium">{extra.title}</th> : null}
-          <th className="py-1 pr-2 text-right font-medium">95 % interval</th>
-          {withContingency ? <th className="py-1 text-right font-medium">Over base</th> : null}
-        </tr>
-      </thead>
+      <TableHead
+        look="captioned"
+        cells={[
+          { title: 'Level', className: 'pr-2' },
+          ...['Value', ...(extra ? [extra.title] : []), '95 % interval'].map(right),
+          ...(withContingency ? [{ title: 'Over base', align: 'right' as const }] : []),
+        ]}
+      />
       <tbody>
         {PERCENTILE_KEYS.map((k) => {
           const v = summary.percentiles[k];

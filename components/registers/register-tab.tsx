@@ -1,0 +1,117 @@
+'use client';
+// The frame every register tab shares: loading and failure states, the toolbar with import and
+// export, the save notice, and the grid (with an optional panel beside it).
+import type { ReactNode } from 'react';
+import { RegisterGrid } from '@/components/grid/register-grid';
+import type { RegisterColumn } from '@/components/grid/columns';
+import type { GridRow } from '@/components/grid/use-register-rows';
+import { Skeleton } from '@/components/ui/card';
+import { Notice } from '@/components/ui/notice';
+import type { RegisterKind } from '@/lib/validation/registers';
+import { ImportExport } from './import-export';
+import { RegisterNotice } from './register-notice';
+import { RegisterToolbar } from './register-toolbar';
+import { nextCode, type RegisterPage } from './use-register-page';
+
+/** The props a register tab takes from its page. */
+export type RegisterTabProps = { projectId: number; currency: string; readOnly: boolean };
+
+/**
+ * Each register's words: the grid's accessible name, what failed to load, the row noun, the
+ * code a first row gets when no earlier code can be continued, and what a reader sees when empty.
+ */
+type TabWords = {
+  label: string;
+  subject: string;
+  noun: string;
+  plural?: string;
+  firstCode: string;
+  empty?: string;
+};
+
+const TABS: Partial<Record<RegisterKind, TabWords>> = {
+  items: {
+    label: 'Line items',
+    subject: 'The line items',
+    noun: 'line',
+    firstCode: '1.1',
+    empty: 'No line items yet.',
+  },
+  risks: { label: 'Risk events', subject: 'The risk events', noun: 'risk', firstCode: 'R1' },
+  activities: {
+    label: 'Schedule',
+    subject: 'The schedule',
+    noun: 'activity',
+    plural: 'activities',
+    firstCode: 'A1',
+  },
+};
+
+type Props = {
+  page: RegisterPage;
+  readOnly: boolean;
+  columns: RegisterColumn[];
+  /** The rows to show when they differ from the register's own (e.g. with network issues). */
+  rows?: GridRow[];
+  totalRow?: Record<string, unknown>;
+  /** A panel to the right of the grid. */
+  aside?: ReactNode;
+};
+
+export function RegisterTab({ page, readOnly, columns, rows, totalRow, aside }: Props) {
+  const { register, blank, projectId, kind } = page;
+  const words = TABS[kind];
+  if (!words) throw new Error(`The ${kind} register has no grid tab.`);
+  const { label, subject, noun, plural, firstCode, empty } = words;
+  if (register.query.isPending) return <Skeleton rows={8} />;
+  if (register.query.isError)
+    return (
+      <Notice tone="invalid">
+        {subject} could not be loaded: {register.query.error.message}
+      </Notice>
+    );
+  const codes = register.rows.map((r) => String(r.code ?? ''));
+  const grid = (
+    <RegisterGrid
+      label={label}
+      rows={rows ?? register.rows}
+      columns={columns}
+      readOnly={readOnly}
+      onChange={register.applyValues}
+      onAddRows={page.addRows}
+      onSelectionChange={page.setSelected}
+      onFocusRow={page.onFocusRow}
+      totalRow={totalRow}
+    />
+  );
+  return (
+    <div className="space-y-2">
+      <RegisterToolbar
+        readOnly={readOnly}
+        selected={page.selected.length}
+        saving={register.saving}
+        count={register.rows.length}
+        noun={noun}
+        plural={plural}
+        onAdd={() =>
+          register.insertRow(register.rows.length, { ...blank(0), code: nextCode(codes, firstCode) })
+        }
+        onInsert={page.insert}
+        onDelete={page.remove}
+        onMove={page.move}
+      >
+        <ImportExport projectId={projectId} register={kind} readOnly={readOnly} />
+      </RegisterToolbar>
+      <RegisterNotice register={register} />
+      {empty && register.rows.length === 0 && readOnly ? <p className="text-ink-soft">{empty}</p> : null}
+      {aside ? (
+        <div className="grid grid-cols-[1fr_auto] gap-3">
+          <div className="min-w-0">{grid}</div>
+          {aside}
+        </div>
+      ) : (
+        grid
+      )}
+    </div>
+  );
+}
