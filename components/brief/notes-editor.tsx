@@ -8,7 +8,7 @@ import { Notice } from '@/components/ui/notice';
 import { ApiError, callApi } from '@/components/forms/api';
 
 const MAX = 8000;
-type Notes = { assumptions: string | null; exclusions: string | null };
+type Notes = { assumptions: string | null; exclusions: string | null; version: number };
 
 /** Edits the project's assumptions and exclusions that every brief prints. */
 export function NotesEditor({ projectId, initial }: { projectId: number; initial: Notes }) {
@@ -33,7 +33,10 @@ export function NotesEditor({ projectId, initial }: { projectId: number; initial
     setError(null);
     setSaved(false);
     try {
-      await callApi(`/api/projects/${projectId}/notes`, { method: 'PUT', body: { assumptions, exclusions } });
+      await callApi(`/api/projects/${projectId}/notes`, {
+        method: 'PUT',
+        body: { assumptions, exclusions, version: initial.version },
+      });
       setSaved(true);
       setOpen(false);
       router.refresh();

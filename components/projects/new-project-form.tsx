@@ -52,7 +52,10 @@ export function NewProjectForm({
     setFailure(null);
     try {
       if (project) {
-        await callApi(`/api/projects/${project.id}`, { method: 'PUT', body: values });
+        await callApi(`/api/projects/${project.id}`, {
+          method: 'PUT',
+          body: { ...values, version: project.version },
+        });
         onDone?.();
         router.refresh();
         return;

@@ -45,6 +45,8 @@ export type BriefProject = {
   estimateClass: number;
   assumptions: string | null;
   exclusions: string | null;
+  /** The project's version when the brief was read: editing its notes sends it back. */
+  version: number;
 };
 
 export type BriefRun = {

@@ -65,8 +65,8 @@ export async function getBrief(actor: Actor, projectId: number, runId: number): 
 
 /** The project as the brief names it. */
 function briefProject(project: Project): BriefProject {
-  const { id, name, code, currency, stage, estimateClass } = project;
-  return { id, name, code, currency, stage, estimateClass, ...notesOf(project) };
+  const { id, name, code, currency, stage, estimateClass, version } = project;
+  return { id, name, code, currency, stage, estimateClass, version, ...notesOf(project) };
 }
 
 /**

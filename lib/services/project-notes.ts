@@ -1,6 +1,7 @@
 import 'server-only';
 // The assumptions and exclusions of a project: free text that estimators keep and every brief prints.
 import { z } from 'zod';
+import { readVersionField } from '@/lib/validation/project';
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
 import { forbidden } from '@/lib/errors';
@@ -11,6 +12,8 @@ import { assertWritable } from './write-access';
 export const NOTES_MAX_LENGTH = 8000;
 
 export type ProjectNotes = { assumptions: string | null; exclusions: string | null };
+/** The notes with the project version they were read at, which a change must send back. */
+export type VersionedNotes = ProjectNotes & { version: number };
 
 const noteField = (label: string) =>
   z
@@ -26,11 +29,12 @@ const noteField = (label: string) =>
 export const projectNotesSchema = z.object({
   assumptions: noteField('Assumptions'),
   exclusions: noteField('Exclusions'),
+  version: readVersionField,
 });
 
-export async function getProjectNotes(actor: Actor, projectId: number): Promise<ProjectNotes> {
+export async function getProjectNotes(actor: Actor, projectId: number): Promise<VersionedNotes> {
   const project = await findProject(actor, projectId);
-  return notesOf(project);
+  return { ...notesOf(project), version: project.version };
 }
 
 /** A project's notes, with none stated as null. */
@@ -43,11 +47,11 @@ export async function updateProjectNotes(
   actor: Actor,
   projectId: number,
   input: unknown,
-): Promise<ProjectNotes> {
+): Promise<VersionedNotes> {
   if (!can(actor.role, 'project:write')) throw forbidden();
-  const notes = parseOrThrow(projectNotesSchema, input);
+  const { version, ...notes } = parseOrThrow(projectNotesSchema, input);
   const project = await findProject(actor, projectId);
   await assertWritable(actor.organizationId);
-  await updateAudited(actor, project, 'project-notes', notesOf(project), notes);
-  return notes;
+  await updateAudited(actor, project, 'project-notes', notesOf(project), notes, version);
+  return { ...notes, version: project.version };
 }

@@ -1,11 +1,11 @@
 import 'server-only';
-import type { InferAttributes } from 'sequelize';
+import { OptimisticLockError, type InferAttributes } from 'sequelize';
 import { Project, sequelize } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
-import { badRequest, forbidden, notFound } from '@/lib/errors';
+import { badRequest, conflict, forbidden, notFound } from '@/lib/errors';
 import { parseOrThrow } from '@/lib/validation/parse';
-import { projectSchema } from '@/lib/validation/project';
+import { projectSchema, projectUpdateSchema } from '@/lib/validation/project';
 import { recordAudit } from './audit';
 import { assertWritable } from './write-access';
 import { baseEstimate } from '@/lib/registers/base-estimate';
@@ -115,24 +115,35 @@ export async function createProject(actor: Actor, input: unknown): Promise<Proje
 
 export async function updateProject(actor: Actor, projectId: number, input: unknown): Promise<ProjectView> {
   assertMay(actor, 'project:write');
-  const data = parseOrThrow(projectSchema, input);
+  const { version, ...data } = parseOrThrow(projectUpdateSchema, input);
   const project = await findProject(actor, projectId);
   await assertWritable(actor.organizationId);
   await assertCodeFree(actor, data.code, project.id);
-  await updateAudited(actor, project, 'project', toProjectView(project), data);
+  await updateAudited(actor, project, 'project', toProjectView(project), data, version);
   return toProjectView(project);
 }
 
-/** Updates a project and records the change (`before` → the changes) in one transaction. */
-export function updateAudited(
+/**
+ * Updates a project and records the change (`before` → the changes) in one transaction. The
+ * client says which version it read: a project changed since (by anyone) is refused with 409,
+ * never overwritten; the model's optimistic lock catches a change between the read and the write.
+ */
+export async function updateAudited(
   actor: Actor,
   project: Project,
   entity: string,
   before: unknown,
   changes: Partial<InferAttributes<Project>>,
+  readVersion: number,
 ): Promise<void> {
-  return sequelize.transaction(async (transaction) => {
-    await project.update(changes, { transaction });
+  if (project.version !== readVersion) throw staleProject(project);
+  await sequelize.transaction(async (transaction) => {
+    try {
+      await project.update(changes, { transaction });
+    } catch (e) {
+      if (e instanceof OptimisticLockError) throw staleProject(await project.reload());
+      throw e;
+    }
     const change = {
       entity,
       entityId: project.id,
@@ -143,6 +154,13 @@ export function updateAudited(
     };
     await recordAudit(actor, change, transaction);
   });
+}
+
+function staleProject(project: Project) {
+  return conflict(
+    'Someone else changed this project since you opened it. Reload to see their change, then edit again.',
+    { current: toProjectView(project) },
+  );
 }
 
 export async function setArchived(actor: Actor, projectId: number, archived: boolean): Promise<ProjectView> {

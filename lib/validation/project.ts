@@ -34,3 +34,11 @@ export const projectSchema = z.object({
   description: z.string().trim().max(4000).optional().nullable(),
 });
 export type ProjectInput = z.infer<typeof projectSchema>;
+
+/** The version of the record that the client last read: a change to an older one is refused (409). */
+export const readVersionField = z
+  .number({ message: 'Send the version of the project you last read (a whole number).' })
+  .int({ message: 'Send the version of the project you last read (a whole number).' })
+  .positive({ message: 'Send the version of the project you last read (a whole number).' });
+
+export const projectUpdateSchema = projectSchema.extend({ version: readVersionField });

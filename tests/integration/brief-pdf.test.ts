@@ -33,7 +33,9 @@ beforeAll(async () => {
   owner = org.client;
   sponsor = (await addMember(owner, 'sponsor')).client;
   ({ projectId } = await projectWithRegisters(owner));
+  const { version } = (await owner.get(`/api/projects/${projectId}/notes`)).json.notes;
   const notes = await owner.put(`/api/projects/${projectId}/notes`, {
+    version,
     assumptions: 'Steel prices as of the base date.',
     exclusions: 'Land purchase and legal fees.',
   });
@@ -107,7 +109,11 @@ describe('the brief data', () => {
 describe('assumptions and exclusions', () => {
   it('are edited by estimators and owners only, and checked', async () => {
     expect((await sponsor.put(`/api/projects/${projectId}/notes`, { assumptions: 'x' })).status).toBe(403);
-    const tooLong = await owner.put(`/api/projects/${projectId}/notes`, { assumptions: 'a'.repeat(8001) });
+    const { version } = (await owner.get(`/api/projects/${projectId}/notes`)).json.notes;
+    const tooLong = await owner.put(`/api/projects/${projectId}/notes`, {
+      version,
+      assumptions: 'a'.repeat(8001),
+    });
     expect(tooLong.status).toBe(400);
     expect(tooLong.json.error.issues[0].path).toBe('assumptions');
     const read = await sponsor.get(`/api/projects/${projectId}/notes`);

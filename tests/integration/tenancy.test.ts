@@ -21,7 +21,7 @@ describe('organisations never see each other', () => {
     const read = await b.client.get(`/api/projects/${id}`);
     expect(read.status).toBe(404);
     expect(read.text).not.toContain('Test bridge');
-    expect((await b.client.put(`/api/projects/${id}`, project('BR-1'))).status).toBe(404);
+    expect((await b.client.put(`/api/projects/${id}`, { ...project('BR-1'), version: 1 })).status).toBe(404);
     expect((await b.client.patch(`/api/projects/${id}`, { archived: true })).status).toBe(404);
     expect((await b.client.get('/api/projects')).json.projects).toEqual([]);
 

@@ -216,7 +216,11 @@ export default async function BriefPage({ params }: { params: RunParams }) {
         <div className="no-print">
           <NotesEditor
             projectId={project.id}
-            initial={{ assumptions: project.assumptions, exclusions: project.exclusions }}
+            initial={{
+              assumptions: project.assumptions,
+              exclusions: project.exclusions,
+              version: project.version,
+            }}
           />
         </div>
       ) : null}
