@@ -7,7 +7,16 @@ import type { ResolvedSettings, SimulationOptions } from './options';
 import { resolveSettings } from './options';
 import { runKeyFromSeed } from './random/run-key';
 import { type RankedTotals, rankTotals, rollUp } from './rollup';
-import { allocateRound, blockCrossSums, blockSink, concatRounds, type RoundStore } from './run-data';
+import {
+  allocateRound,
+  type BlockSecondPass,
+  blockSecondPass,
+  blockSink,
+  concatRounds,
+  type RoundStore,
+  type SecondPassInput,
+} from './run-data';
+import { allocationWindow } from './stats/allocation';
 import { nextRound } from './round-plan';
 import type { Model, SimulationResult } from './formats';
 import { parseModel } from './validate';
@@ -60,31 +69,43 @@ export function rankRun(run: PreparedRun, rounds: RoundStore[], shared = false):
   return totals;
 }
 
-/** The result, from the blocks' sums (any order), the ranked totals and the cross sums in block order. */
+/** The result, from the blocks' sums (any order), the ranked totals and the second pass in block order. */
 export function resultOf(
   run: PreparedRun,
   blocks: BlockSummary[],
   totals: RankedTotals,
-  cross: Float64Array[],
+  second: BlockSecondPass[],
   info: { elapsedMs: number; warnings: string[] },
 ): SimulationResult {
   const ordered = [...blocks].sort((a, b) => a.block - b.block);
-  return rollUp(run.plan, ordered, totals, cross, {
+  return rollUp(run.plan, ordered, totals, second, {
     seed: run.settings.seed,
     sampling: run.settings.sampling,
     ...info,
   });
 }
 
-/** The cross sums of all blocks, in this thread. */
-export function crossSumsInThread(
+/** What the second pass over the blocks needs, once the totals are ranked. */
+export function secondPassInput(run: PreparedRun, totals: RankedTotals): SecondPassInput {
+  return {
+    key: run.key,
+    sampling: run.settings.sampling,
+    costRanks: totals.costRanks,
+    durationRanks: totals.durationRanks,
+    window: allocationWindow(run.plan, totals.costSorted),
+  };
+}
+
+/** The second pass (rank cross sums, allocation sums) over all blocks, in this thread. */
+export function secondPassInThread(
   run: PreparedRun,
   rounds: RoundStore[],
   totals: RankedTotals,
-): Float64Array[] {
+): BlockSecondPass[] {
+  const input = secondPassInput(run, totals);
   return rounds.flatMap((store) =>
     blocksBetween(store.start, store.total).map((b) =>
-      blockCrossSums(run.plan, store, b, blockLength(b, store.total), totals.costRanks, totals.durationRanks),
+      blockSecondPass(run.plan, store, b, blockLength(b, store.total), input),
     ),
   );
 }
@@ -104,7 +125,7 @@ export function simulateSync(modelJson: unknown, options: SimulationOptions = {}
     round = nextRound(run.settings, run.plan, done, rounds, warnings);
   }
   const totals = rankRun(run, rounds);
-  return resultOf(run, blocks, totals, crossSumsInThread(run, rounds, totals), {
+  return resultOf(run, blocks, totals, secondPassInThread(run, rounds, totals), {
     elapsedMs: performance.now() - started,
     warnings,
   });

@@ -5,6 +5,8 @@
 
 import { BLOCK_SIZE, type BlockSink } from './block';
 import type { Plan } from './compile';
+import type { Sampling } from './formats';
+import { type AllocationWindow, blockAllocationSums } from './stats/allocation';
 
 export interface RoundStore {
   /** First iteration of the round (a multiple of BLOCK_SIZE) and the end of the round. */
@@ -98,4 +100,33 @@ export function blockCrossSums(
     }
   }
   return out;
+}
+
+/** What the second pass over a block gives: its rank cross sums and its allocation sums. */
+export interface BlockSecondPass {
+  cross: Float64Array;
+  allocation: Float64Array;
+}
+
+/** Everything the second pass needs besides the plan and the round: the run and the ranked totals. */
+export interface SecondPassInput {
+  key: Uint32Array;
+  sampling: Sampling;
+  costRanks: Float64Array;
+  durationRanks: Float64Array | null;
+  window: AllocationWindow;
+}
+
+/** The second pass over one block, once the run's totals are ranked. */
+export function blockSecondPass(
+  plan: Plan,
+  store: RoundStore,
+  block: number,
+  n: number,
+  input: SecondPassInput,
+): BlockSecondPass {
+  return {
+    cross: blockCrossSums(plan, store, block, n, input.costRanks, input.durationRanks),
+    allocation: blockAllocationSums(plan, input.key, input.sampling, store, block, n, input.window),
+  };
 }
