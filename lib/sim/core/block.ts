@@ -512,17 +512,11 @@ export function simulateBlock(
   // 6. Schedule: criticality counts in the headline scenario.
   const critical = new Int32Array(acts);
   if (plan.network && ws.schedule) {
-    const ignored = new Int32Array(acts);
-    forwardPass(plan.network, ws.durations, n, ws.schedule, ws.preTotal, postHeadline ? ignored : critical);
+    // The other scenario needs its project duration only; the allocation pass neither count.
+    const counts = tap ? null : critical;
+    forwardPass(plan.network, ws.durations, n, ws.schedule, ws.preTotal, postHeadline ? null : counts);
     if (hasPost)
-      forwardPass(
-        plan.network,
-        ws.postDurations,
-        n,
-        ws.schedule,
-        ws.postTotal,
-        postHeadline ? critical : ignored,
-      );
+      forwardPass(plan.network, ws.postDurations, n, ws.schedule, ws.postTotal, postHeadline ? counts : null);
   }
 
   // 7. Time-dependent items: an activity's duration, or the project's.

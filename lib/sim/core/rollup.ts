@@ -239,9 +239,14 @@ function scheduleSensitivity(
   return out;
 }
 
-function scenarioOf(cost: Float64Array, duration: Float64Array | null | undefined): ScenarioSummary {
-  const part = (x: Float64Array) => {
-    const sorted = x.slice().sort();
+/** Mean and percentiles of each total; `sorted` the sorted copies when already at hand. */
+function scenarioOf(
+  cost: Float64Array,
+  duration: Float64Array | null | undefined,
+  sorted?: { cost: Float64Array; duration: Float64Array | null },
+): ScenarioSummary {
+  const part = (x: Float64Array, given?: Float64Array | null) => {
+    const sorted = given ?? x.slice().sort();
     let sum = 0;
     for (let i = 0; i < x.length; i++) sum += x[i];
     const percentiles = Object.fromEntries(
@@ -249,12 +254,18 @@ function scenarioOf(cost: Float64Array, duration: Float64Array | null | undefine
     ) as Record<PercentileKey, number>;
     return { mean: sum / x.length, percentiles };
   };
-  return { cost: part(cost), ...(duration && duration.length ? { duration: part(duration) } : {}) };
+  return {
+    cost: part(cost, sorted?.cost),
+    ...(duration && duration.length ? { duration: part(duration, sorted?.duration) } : {}),
+  };
 }
 
 /** Both scenarios, before and after mitigation, from the same iterations. */
 function mitigationOf(plan: Plan, totals: RankedTotals): NonNullable<SimulationResult['mitigation']> {
-  const headline = scenarioOf(totals.cost, totals.duration);
+  const headline = scenarioOf(totals.cost, totals.duration, {
+    cost: totals.costSorted,
+    duration: totals.durationSorted,
+  });
   const other = scenarioOf(totals.altCost!, totals.altDuration);
   return plan.headline === 'post'
     ? { used: 'post', pre: other, post: headline }
