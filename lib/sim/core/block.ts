@@ -31,6 +31,7 @@ import { Sfc32, streamFor } from './random/sfc32';
 import type { RiskImpact } from './compile';
 import { allocateForwardPass, type ForwardPassBuffers, forwardPass } from './schedule/forward-pass';
 import type { Sampling } from './formats';
+import { type AllocationBand, bandOf } from './stats/allocation-band';
 
 /** Iterations per block; fixed, so that the split does not depend on the thread count. */
 export const BLOCK_SIZE = 2000;
@@ -52,6 +53,8 @@ export interface BlockSink {
   altDuration?: Float64Array;
   /** Tornado grades: input s, iteration i at s·n + i, as ⌊grade·2¹⁶⌋. */
   grades: Uint16Array;
+  /** When set, the P-level (0–1) around which the block keeps its allocation band. */
+  band?: number;
 }
 
 /**
@@ -86,6 +89,8 @@ export interface BlockSummary {
    * where its grade ≥ 0.9 (the swing).
    */
   swingSums: Float64Array;
+  /** Each input's cost near the block's P-value, when the sink asked for it. */
+  band?: AllocationBand;
 }
 
 /** Stored grades k with (k + ½)/2¹⁶ ≤ 0.1, and ≥ 0.9. */
@@ -121,6 +126,8 @@ interface Workspace {
   schedule: ForwardPassBuffers | null;
   /** Row of each variable in the grades, −1 when not a tornado input. */
   gradeRowOfVariable: Int32Array;
+  /** Each allocation slot's cost per iteration (slot s at s·stride), made when first needed. */
+  inputCost: Float64Array | null;
 }
 
 const workspaces = new WeakMap<Plan, Workspace>();
@@ -174,6 +181,7 @@ function workspaceFor(plan: Plan, n: number): Workspace {
     induction: allocateInduction(plan.maxGroupSize, stride),
     schedule: acts ? allocateForwardPass(acts, stride) : null,
     gradeRowOfVariable,
+    inputCost: null,
   };
   workspaces.set(plan, ws);
   return ws;
@@ -238,6 +246,14 @@ function sumOfProducts(x: Float64Array, y: Float64Array, n: number): number {
 function gatherInto(x: Float64Array, index: Int32Array, into: Float64Array): Float64Array {
   for (let j = 0; j < index.length; j++) into[j] = x[index[j]];
   return into;
+}
+
+function productInto(out: Float64Array, x: Float64Array, y: Float64Array, n: number): void {
+  for (let i = 0; i < n; i++) out[i] = x[i] * y[i];
+}
+
+function scaledInto(out: Float64Array, x: number, y: Float64Array, n: number): void {
+  for (let i = 0; i < n; i++) out[i] = x * y[i];
 }
 
 function multiplyInto(acc: Float64Array, x: Float64Array, n: number): void {
@@ -376,6 +392,13 @@ export function simulateBlock(
   const ws = workspaceFor(plan, size);
   // Iterations drawn (size) and iterations computed (n): all of them, or the tap's.
   const n = tap ? tap.index.length : size;
+  // The allocation band: each input's cost per iteration, kept while the block runs.
+  const nItems = plan.costItems.length;
+  const nRates = plan.rateItems.length;
+  const slots = nItems + nRates + plan.risks.length;
+  if (!tap && sink.band !== undefined && !ws.inputCost) ws.inputCost = new Float64Array(slots * ws.stride);
+  const keep = !tap && sink.band !== undefined ? ws.inputCost : null;
+  const kept = (slot: number) => keep!.subarray(slot * ws.stride, slot * ws.stride + n);
   const { tmp, occurred, sizes, preCost, postCost } = ws;
   const { hasPost } = plan;
   const rows = plan.sensitivity.length;
@@ -438,12 +461,14 @@ export function simulateBlock(
     if (v < 0 && drivers.length === 0) {
       addConstant(preCost, dist.mean, n);
       if (tap) tap.sums[tap.itemSlot[k]] += dist.mean * n;
+      if (keep) kept(k).fill(dist.mean);
     } else {
       if (v < 0) tmp.fill(dist.mean, 0, n);
       else dist.quantileInto(column(v, ws.free), tmp, n);
       applyDrivers(drivers, tmp);
       addInto(preCost, tmp, n);
       if (tap) tap.sums[tap.itemSlot[k]] += sumOf(tmp, n);
+      if (keep) kept(k).set(tmp.subarray(0, n));
     }
   }
   if (hasPost) postCost.set(preCost.subarray(0, n));
@@ -458,6 +483,8 @@ export function simulateBlock(
     durations: Float64Array[],
     /** Tap slot of the risk's cost in this scenario, −1 when not tapped. */
     slot: number,
+    /** Where its cost per iteration is kept for the band (headline scenario), else null. */
+    keepInto: Float64Array | null,
   ) => {
     const p = x.probability;
     if (p <= 0) return;
@@ -470,6 +497,7 @@ export function simulateBlock(
       x.cost.quantileInto(sizes, tmp, n);
       addWhere(cost, tmp, occurred, n);
       if (tap && slot >= 0) tap.sums[slot] += sumWhere(tmp, occurred, n);
+      if (keepInto) addWhere(keepInto, tmp, occurred, n);
     }
     if (x.delay && activities.length) {
       x.delay.quantileInto(uDelay ?? sizes, tmp, n);
@@ -485,19 +513,34 @@ export function simulateBlock(
     const slot = tap ? tap.riskSlot[r] : -1;
     const u = risk.v >= 0 ? column(risk.v, ws.free2) : null;
     const uDelay = risk.vDelay >= 0 ? uniforms(risk.vDelay, ws.free) : null;
-    applyRisk(risk.pre, u, uDelay, risk.activities, preCost, ws.durationColumn, postHeadline ? -1 : slot);
+    const own = keep ? kept(nItems + nRates + r).fill(0) : null;
+    const preOwn = postHeadline ? null : own;
+    applyRisk(
+      risk.pre,
+      u,
+      uDelay,
+      risk.activities,
+      preCost,
+      ws.durationColumn,
+      postHeadline ? -1 : slot,
+      preOwn,
+    );
     if (!hasPost) continue;
     const postSlot = postHeadline ? slot : -1;
-    applyRisk(risk.post ?? risk.pre, u, uDelay, risk.activities, postCost, ws.postDurationColumn, postSlot);
+    const postOwn = postHeadline ? own : null;
+    const postRisk = risk.post ?? risk.pre;
+    applyRisk(postRisk, u, uDelay, risk.activities, postCost, ws.postDurationColumn, postSlot, postOwn);
     const m = risk.mitigationCost;
     if (m) {
       if (risk.vMitigation < 0) {
         addConstant(postCost, m.mean, n);
         if (tap && postSlot >= 0) tap.sums[postSlot] += m.mean * n;
+        if (postOwn) addConstant(postOwn, m.mean, n);
       } else {
         m.quantileInto(uniforms(risk.vMitigation, ws.free), tmp, n);
         addInto(postCost, tmp, n);
         if (tap && postSlot >= 0) tap.sums[postSlot] += sumOf(tmp, n);
+        if (postOwn) addInto(postOwn, tmp, n);
       }
     }
   }
@@ -529,6 +572,7 @@ export function simulateBlock(
       addScaled(preCost, rate.mean, dPre, n);
       if (hasPost) addScaled(postCost, rate.mean, dPost, n);
       if (tap) tap.sums[tap.rateSlot[k]] += rate.mean * sumOf(dHead, n);
+      if (keep) scaledInto(kept(nItems + k), rate.mean, dHead, n);
     } else {
       if (v < 0) tmp.fill(rate.mean, 0, n);
       else rate.quantileInto(column(v, ws.free), tmp, n);
@@ -536,6 +580,7 @@ export function simulateBlock(
       addProduct(preCost, tmp, dPre, n);
       if (hasPost) addProduct(postCost, tmp, dPost, n);
       if (tap) tap.sums[tap.rateSlot[k]] += sumOfProducts(tmp, dHead, n);
+      if (keep) productInto(kept(nItems + k), tmp, dHead, n);
     }
   }
   if (tap)
@@ -568,5 +613,6 @@ export function simulateBlock(
     if (c.va >= 0) pairSumsInto(ws.groupedColumn[c.va]!, ws.groupedColumn[c.vb]!, n, pairSums, 5 * k);
   });
 
-  return { block, n, critical, gradeSums, pairSums, durationSums, swingSums };
+  const band = keep ? bandOf(sink.cost, n, sink.band!, keep, ws.stride, slots) : undefined;
+  return { block, n, critical, gradeSums, pairSums, durationSums, swingSums, ...(band ? { band } : {}) };
 }

@@ -16,7 +16,8 @@ import {
   type RoundStore,
   type SecondPassInput,
 } from './run-data';
-import { allocationWindow } from './stats/allocation';
+import { allocationFromBand, allocationWindow, bandCovers } from './stats/allocation';
+import type { AllocationBand } from './stats/allocation-band';
 import { nextRound } from './round-plan';
 import type { Model, SimulationResult } from './formats';
 import { parseModel } from './validate';
@@ -96,18 +97,56 @@ export function secondPassInput(run: PreparedRun, totals: RankedTotals): SecondP
   };
 }
 
-/** The second pass (rank cross sums, allocation sums) over all blocks, in this thread. */
+/** The blocks' allocation bands by block number (none for blocks that kept none). */
+export function bandsOf(blocks: BlockSummary[] = []): Map<number, AllocationBand> {
+  return new Map(blocks.flatMap((b) => (b.band ? [[b.block, b.band] as const] : [])));
+}
+
+/** Whether block b's allocation must be recomputed: its band does not cover the window. */
+export function recomputes(bands: Map<number, AllocationBand>, input: SecondPassInput, b: number): boolean {
+  return !bandCovers(bands.get(b), input.window);
+}
+
+/**
+ * Fills in, from the bands, the allocation sums of the blocks the second pass did not recompute.
+ * `second` in the order of the rounds' blocks.
+ */
+export function allocationFromBands(
+  run: PreparedRun,
+  rounds: RoundStore[],
+  second: BlockSecondPass[],
+  bands: Map<number, AllocationBand>,
+  input: SecondPassInput,
+): BlockSecondPass[] {
+  let k = 0;
+  for (const store of rounds) {
+    for (const b of blocksBetween(store.start, store.total)) {
+      const s = second[k++];
+      if (s.allocation.length === 0)
+        s.allocation = allocationFromBand(run.plan, store, b, bands.get(b)!, input.window);
+    }
+  }
+  return second;
+}
+
+/**
+ * The second pass (rank cross sums, allocation sums) over all blocks, in this thread; `blocks`
+ * (any order) bring their allocation bands, without them every block is recomputed.
+ */
 export function secondPassInThread(
   run: PreparedRun,
   rounds: RoundStore[],
   totals: RankedTotals,
+  blocks?: BlockSummary[],
 ): BlockSecondPass[] {
   const input = secondPassInput(run, totals);
-  return rounds.flatMap((store) =>
+  const bands = bandsOf(blocks);
+  const second = rounds.flatMap((store) =>
     blocksBetween(store.start, store.total).map((b) =>
-      blockSecondPass(run.plan, store, b, blockLength(b, store.total), input),
+      blockSecondPass(run.plan, store, b, blockLength(b, store.total), input, recomputes(bands, input, b)),
     ),
   );
+  return allocationFromBands(run, rounds, second, bands, input);
 }
 
 export function simulateSync(modelJson: unknown, options: SimulationOptions = {}): SimulationResult {
@@ -125,7 +164,7 @@ export function simulateSync(modelJson: unknown, options: SimulationOptions = {}
     round = nextRound(run.settings, run.plan, done, rounds, warnings);
   }
   const totals = rankRun(run, rounds);
-  return resultOf(run, blocks, totals, secondPassInThread(run, rounds, totals), {
+  return resultOf(run, blocks, totals, secondPassInThread(run, rounds, totals, blocks), {
     elapsedMs: performance.now() - started,
     warnings,
   });

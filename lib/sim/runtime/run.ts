@@ -12,6 +12,9 @@ import {
   type PreparedRun,
   rankRun,
   resolveRun,
+  allocationFromBands,
+  bandsOf,
+  recomputes,
   resultOf,
   secondPassInput,
   secondPassInThread,
@@ -99,22 +102,30 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
     throwIfAborted();
     const totals = rankRun(run, rounds, pooled);
     let second: BlockSecondPass[];
-    if (!pool) second = secondPassInThread(run, rounds, totals);
+    if (!pool) second = secondPassInThread(run, rounds, totals, blocks);
     else {
       const p = pool;
-      const { costRanks, durationRanks, window } = secondPassInput(run, totals);
+      const input = secondPassInput(run, totals);
+      const { costRanks, durationRanks, window } = input;
+      const bands = bandsOf(blocks);
       const tasks = rounds.flatMap((store) => {
         const all = blocksBetween(store.start, store.total);
         const chunks: number[][] = [];
         for (let i = 0; i < all.length; i += SECOND_CHUNK) chunks.push(all.slice(i, i + SECOND_CHUNK));
         return chunks.map((chunk) =>
           p.run<BlockSecondPass[]>(
-            { kind: 'second', blocks: chunk, store, input: { costRanks, durationRanks, window } },
+            {
+              kind: 'second',
+              blocks: chunk,
+              store,
+              input: { costRanks, durationRanks, window },
+              recompute: chunk.map((b) => recomputes(bands, input, b)),
+            },
             signal,
           ),
         );
       });
-      second = (await guard(Promise.all(tasks))).flat();
+      second = allocationFromBands(run, rounds, (await guard(Promise.all(tasks))).flat(), bands, input);
     }
     return resultOf(run, blocks, totals, second, { elapsedMs: performance.now() - started, warnings });
   } finally {

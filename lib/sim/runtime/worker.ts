@@ -39,6 +39,8 @@ export type WorkerTask =
       blocks: number[];
       store: RoundStore;
       input: Omit<SecondPassInput, 'key' | 'sampling'>;
+      /** Per block of `blocks`: recompute its allocation (its band does not cover the window). */
+      recompute: boolean[];
     };
 
 export type WorkerReply = BlockSummary[] | BlockSecondPass[];
@@ -62,5 +64,7 @@ export default function runTask(task: WorkerTask): WorkerReply {
     });
   }
   const input: SecondPassInput = { ...task.input, key, sampling: data.sampling };
-  return task.blocks.map((b) => blockSecondPass(plan, store, b, blockLength(b, store.total), input));
+  return task.blocks.map((b, k) =>
+    blockSecondPass(plan, store, b, blockLength(b, store.total), input, task.recompute[k]),
+  );
 }

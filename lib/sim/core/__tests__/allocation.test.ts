@@ -136,4 +136,41 @@ describe('Euler allocation', () => {
     expect(count).toBeGreaterThan(0);
     expect(Math.abs(recomputed - sum)).toBeLessThan(1e-9 * sum);
   });
+
+  it("reads from the blocks' bands the sums the recomputation gives", () => {
+    const m = v2({
+      items: [
+        { id: 'C1', dist: normal(1000, 100) },
+        { id: 'C2', ratePerDay: uniform(8, 12), activity: 'A1' },
+        { id: 'C3', base: 50 },
+        { id: 'C4', ratePerDay: 2, span: 'project' },
+      ],
+      activities: [{ id: 'A1', duration: uniform(20, 40) }],
+      risks: [
+        { id: 'R1', probability: 0.3, cost: uniform(100, 300), delay: uniform(1, 5), activities: ['A1'] },
+        {
+          id: 'R2',
+          probability: 0.5,
+          cost: uniform(50, 150),
+          post: { probability: 0.2 },
+          mitigationCost: 10,
+        },
+      ],
+    });
+    const n = 4 * BLOCK_SIZE;
+    const run = prepareRun(m, { iterations: n, seed: 8 });
+    const store = allocateRound(run.plan, 0, n, false);
+    const blocks = simulateRound(run, store);
+    expect(blocks.every((b) => b.band !== undefined)).toBe(true);
+    const totals = rankRun(run, [store]);
+    const fromBands = secondPassInThread(run, [store], totals, blocks);
+    const recomputed = secondPassInThread(run, [store], totals);
+    fromBands.forEach((s, k) => {
+      const r = recomputed[k].allocation;
+      expect(s.allocation[r.length - 1]).toBe(r[r.length - 1]);
+      s.allocation.forEach((x, slot) =>
+        expect(Math.abs(x - r[slot])).toBeLessThanOrEqual(1e-9 * Math.abs(r[slot])),
+      );
+    });
+  });
 });

@@ -11,19 +11,31 @@
  *
  * A risk that names line items (`items` in the model) is allocated to them, in equal parts.
  *
- * Memory stays bounded: nothing per input and iteration is kept. Once the totals are ranked and
- * the window is known, a second pass recomputes each block from the run key for the window's
- * iterations only (../block, AllocationTap) and sums each input's cost over them; the sums are
- * added in block order, so the allocation is the same to the bit for any thread count.
+ * Memory stays bounded: nothing per input and iteration of the whole run is kept. Each block keeps
+ * its inputs' costs for the iterations near its own P-value (./allocation-band); once the totals
+ * are ranked and the window is known, the second pass sums each input's cost over the window's
+ * iterations from the bands, and recomputes from the run key, for the window's iterations only
+ * (../block, AllocationTap), any block whose band does not cover the window (or every block, for
+ * runs too large to keep bands). Which way a block goes depends on the block and the window only,
+ * and the sums are added in block order, so the allocation is the same to the bit for any thread
+ * count.
  */
 
 import { type AllocationTap, BLOCK_SIZE, simulateBlock } from '../block';
 import type { Plan } from '../compile';
 import type { AllocationResult, ContingencyLevel, Sampling } from '../formats';
 import type { RoundStore } from '../run-data';
+import type { AllocationBand } from './allocation-band';
 import { percentileRank } from './order-statistics';
 
 const LEVELS: Record<ContingencyLevel, number> = { P50: 0.5, P70: 0.7, P80: 0.8, P90: 0.9 };
+
+/** The P-level of the allocation, in (0, 1). */
+export const allocationLevel = (plan: Plan) => LEVELS[plan.settings.contingencyLevel];
+
+/** Number of allocation slots (cost items, rate items, risks). */
+export const allocationSlots = (plan: Plan) =>
+  plan.costItems.length + plan.rateItems.length + plan.risks.length;
 
 /** The totals [lo, hi] of the allocation window (headline cost). */
 export interface AllocationWindow {
@@ -77,6 +89,37 @@ export function blockAllocationSums(
   if (index.length === 0) return sums;
   const tap: AllocationTap = { index: Int32Array.from(index), sums, ...slots };
   simulateBlock(plan, key, sampling, block, n, emptySink, tap);
+  return sums;
+}
+
+/** Whether a block's band holds every iteration of the block whose total is in the window. */
+export function bandCovers(band: AllocationBand | undefined, window: AllocationWindow): boolean {
+  return band !== undefined && band.lo <= window.lo && window.hi <= band.hi;
+}
+
+/** A block's allocation sums (as blockAllocationSums) from its band, which covers the window. */
+export function allocationFromBand(
+  plan: Plan,
+  store: RoundStore,
+  block: number,
+  band: AllocationBand,
+  window: AllocationWindow,
+): Float64Array {
+  const slots = allocationSlots(plan);
+  const sums = new Float64Array(slots + 1);
+  const local = block * BLOCK_SIZE - store.start;
+  const m = band.index.length;
+  const inWindow: number[] = [];
+  for (let j = 0; j < m; j++) {
+    const c = store.cost[local + band.index[j]];
+    if (c >= window.lo && c <= window.hi) inWindow.push(j);
+  }
+  for (let s = 0; s < slots; s++) {
+    let acc = 0;
+    for (const j of inWindow) acc += band.costs[s * m + j];
+    sums[s] = acc;
+  }
+  sums[slots] = inWindow.length;
   return sums;
 }
 
