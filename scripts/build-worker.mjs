@@ -1,28 +1,41 @@
 // Bundles the simulation engine's worker thread (lib/sim/runtime/worker.ts) into
-// .build/sim-worker.mjs, the file the engine's thread pool loads. The engine never builds it
+// .build/sim-worker.mjs, the file the engine's thread pool loads, and, run as a script, the
+// command line (scripts/simulate.ts) into .build/simulate.mjs, so that `npm run simulate` starts
+// plain JavaScript instead of compiling TypeScript on every start. The engine never builds them
 // itself; this script does, run by scripts/build.sh before `next build`, by the simulate and
-// bench scripts, and (as the unit tests' global set-up, through the default export) by Vitest.
-// It writes beside the target and renames, so a process loading the file never sees half of it.
+// bench scripts, and (the worker alone, as the unit tests' global set-up, through the default
+// export) by Vitest. It writes beside each target and renames, so a process loading a file
+// never sees half of it.
 
 import { build } from 'esbuild';
 import { renameSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
-export async function buildWorker(root = process.cwd()) {
-  const outfile = path.join(root, '.build', 'sim-worker.mjs');
+async function bundle(root, entry, name, extra = {}) {
+  const outfile = path.join(root, '.build', name);
   const tmp = `${outfile}.${process.pid}.tmp.mjs`;
   await build({
-    entryPoints: [path.join(root, 'lib', 'sim', 'runtime', 'worker.ts')],
+    entryPoints: [path.join(root, ...entry)],
     bundle: true,
     platform: 'node',
     format: 'esm',
     target: 'node20',
     outfile: tmp,
     logLevel: 'warning',
+    ...extra,
   });
   renameSync(tmp, outfile);
   return outfile;
+}
+
+export function buildWorker(root = process.cwd()) {
+  return bundle(root, ['lib', 'sim', 'runtime', 'worker.ts'], 'sim-worker.mjs');
+}
+
+/** The command line; packages stay in node_modules (the thread pool finds its own files there). */
+export function buildCli(root = process.cwd()) {
+  return bundle(root, ['scripts', 'simulate.ts'], 'simulate.mjs', { packages: 'external' });
 }
 
 /** Vitest's global set-up: the unit tests run the engine's threads on a fresh worker. */
@@ -31,6 +44,7 @@ export default async function setup() {
 }
 
 if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
-  const outfile = await buildWorker();
-  console.log(`built ${path.relative(process.cwd(), outfile)}`);
+  // On stderr: the command line's stdout is its summary alone.
+  for (const outfile of [await buildWorker(), await buildCli()])
+    console.error(`built ${path.relative(process.cwd(), outfile)}`);
 }

@@ -1,4 +1,5 @@
-// Command line: npm run simulate -- MODEL.json [--iterations N] [--seed S] [--sampling mc|lhs]
+// Command line (run from its bundle, .build/simulate.mjs, built by scripts/build-worker.mjs):
+// npm run simulate -- MODEL.json [--iterations N] [--seed S] [--sampling mc|lhs]
 //                                   [--threads T] [--out RESULT.json]
 //                                   [--precision PCT [--level Pk] [--max-iterations N]]
 // With --precision the run doubles its iterations until the chosen P-value (P80 unless --level

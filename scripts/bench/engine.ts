@@ -6,11 +6,16 @@
 // processes only ever slow a run down. CPU time (all threads) is shown beside the wall time.
 //
 // Targets: 100,000 iterations of the version 2 model in ≤ 1.5 s on 2 threads for the whole
-// process, ≥ 40× the baseline's iterations per second, peak memory ≤ 512 MiB. (The child
-// process here starts through tsx, so "process s" includes compiling TypeScript on the fly.)
+// process, ≥ 40× the baseline's iterations per second, peak memory ≤ 512 MiB. The whole-process
+// figure is the command line itself (.build/simulate.mjs, the prebuilt bundle) run on the model
+// written to a file, start, validation, run, summary and exit included; its CPU time and peak
+// memory come from /usr/bin/time where it exists. (The engine rows' children start through tsx,
+// so their "process s" includes compiling TypeScript on the fly; their "run s" does not.)
 
 import { spawnSync } from 'node:child_process';
-import { loadavg } from 'node:os';
+import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { loadavg, tmpdir } from 'node:os';
+import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { runSimulation } from '../../lib/sim/runtime';
 import { runBaseline } from './baseline';
@@ -78,6 +83,33 @@ function measureOnce(mode: string): Measurement {
   return { ...m, processMs };
 }
 
+const TIME = '/usr/bin/time';
+
+/** The command line from its bundle on the model file, 2 threads: wall, and CPU and peak memory. */
+function measureCliOnce(modelFile: string): Measurement {
+  const args = ['.build/simulate.mjs', modelFile, '--iterations', String(ENGINE_ITERATIONS)];
+  args.push('--seed', '42', '--sampling', 'lhs', '--threads', '2');
+  const timed = existsSync(TIME);
+  const started = performance.now();
+  const out = timed
+    ? spawnSync(TIME, ['-f', 'TIME %U %S %M', process.execPath, ...args], { encoding: 'utf8' })
+    : spawnSync(process.execPath, args, { encoding: 'utf8' });
+  const processMs = performance.now() - started;
+  if (out.status !== 0) throw new Error(`the command line failed:\n${out.stderr}`);
+  const t = /TIME ([\d.]+) ([\d.]+) (\d+)/.exec(out.stderr);
+  // The summary's first "value" row is the cost's: base, P50, P80, P90.
+  const p80 = /^\s+value\s+\S+\s+\S+\s+(\S+)/m.exec(out.stdout)?.[1] ?? '?';
+  return {
+    label: 'command line (bundle), 2 threads',
+    iterations: ENGINE_ITERATIONS,
+    runMs: processMs,
+    cpuMs: t ? (Number(t[1]) + Number(t[2])) * 1000 : NaN,
+    maxRssMiB: t ? Number(t[3]) / 1024 : NaN,
+    processMs,
+    check: `P80 cost ${p80}`,
+  };
+}
+
 /** Fastest and median of REPEAT runs (by run time). */
 function measure(mode: string): { best: Measurement; median: Measurement } {
   const runs = Array.from({ length: REPEAT }, () => measureOnce(mode)).sort((a, b) => a.runMs - b.runMs);
@@ -93,10 +125,15 @@ async function main() {
     process.stdout.write(`${JSON.stringify(await child(process.argv[i + 1]))}\n`);
     return;
   }
-  // The worker is built from the current sources before timing, so the bench measures them.
+  // The worker and the command line are built from the current sources before timing, so the
+  // bench measures them.
   const built = spawnSync(process.execPath, ['scripts/build-worker.mjs'], { stdio: 'inherit' });
-  if (built.status !== 0) throw new Error('The engine worker did not build (node scripts/build-worker.mjs).');
+  if (built.status !== 0)
+    throw new Error('The engine bundles did not build (node scripts/build-worker.mjs).');
   const m = inventModel();
+  const dir = mkdtempSync(path.join(tmpdir(), 'outturn-bench-'));
+  const modelFile = path.join(dir, 'model.json');
+  writeFileSync(modelFile, JSON.stringify(m));
   console.log(
     `Model: ${m.items.length} line items (${BENCH_SIZE.timeDependent} time-dependent), ${m.risks!.length} risks, ` +
       `${m.activities!.length} activities, ${m.correlations!.length} correlations, ` +
@@ -107,7 +144,12 @@ async function main() {
       .map((x) => x.toFixed(2))
       .join(', ')}; ${REPEAT} runs of each, fastest and median`,
   );
-  const runs = [measure('1'), measure('2'), measure('baseline')];
+  const cliRuns = Array.from({ length: REPEAT }, () => measureCliOnce(modelFile)).sort(
+    (a, b) => a.runMs - b.runMs,
+  );
+  rmSync(dir, { recursive: true, force: true });
+  const cli = { best: cliRuns[0], median: cliRuns[Math.floor((cliRuns.length - 1) / 2)] };
+  const runs = [measure('1'), measure('2'), measure('baseline'), cli];
   const perSecond = (r: Measurement) => r.iterations / (r.runMs / 1000);
   console.log('');
   console.log(
@@ -126,7 +168,7 @@ async function main() {
       );
     }
   }
-  const [one, two, base] = runs.map((r) => r.best);
+  const [one, two, base, line] = runs.map((r) => r.best);
   const [, twoMedian, baseMedian] = runs.map((r) => r.median);
   const ratio1 = perSecond(one) / perSecond(base);
   const ratio2 = perSecond(two) / perSecond(base);
@@ -136,12 +178,14 @@ async function main() {
       `medians: ${fmt(perSecond(twoMedian) / perSecond(baseMedian), 1)}× (2 threads)`,
   );
   // The engine's runs (the baseline is not held to the target).
-  const peak = Math.max(...runs.slice(0, 2).flatMap((r) => [r.best.maxRssMiB, r.median.maxRssMiB]));
+  const peak = Math.max(
+    ...[runs[0], runs[1], cli].flatMap((r) => [r.best.maxRssMiB, r.median.maxRssMiB]).filter((x) => x >= 0),
+  );
   const targets = [
     [
-      `100,000 iterations on 2 threads ≤ 1.5 s (whole process)`,
-      two.processMs! <= 1500,
-      `${fmt(two.processMs! / 1000, 2)} s (the run itself ${fmt(two.runMs / 1000, 2)} s)`,
+      `100,000 iterations on 2 threads ≤ 1.5 s (the command line's whole process)`,
+      line.processMs! <= 1500,
+      `${fmt(line.processMs! / 1000, 2)} s, ${fmt(line.cpuMs / 1000, 2)} CPU s (the engine's run alone ${fmt(two.runMs / 1000, 2)} s)`,
     ],
     [`≥ 40× the baseline's iterations/s`, ratio2 >= 40, `${fmt(ratio2, 1)}×`],
     [`peak memory of the engine ≤ 512 MiB`, peak <= 512, `${fmt(peak)} MiB`],

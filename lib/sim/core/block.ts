@@ -18,6 +18,10 @@
  *      achieved correlations.
  * Columns outside the groups are drawn when they are needed, each from its own stream, keyed by
  * its input's id (./random/stream-ids).
+ *
+ * With a tap (the allocation pass, ./stats/allocation) the block draws all its uniforms as
+ * before, keeps the iterations the tap names, and computes steps 2–7 for those alone, adding
+ * each item's and risk's cost in the headline scenario to the tap's sums; it writes nothing else.
  */
 
 import type { Plan } from './compile';
@@ -27,6 +31,7 @@ import { Sfc32, streamFor } from './random/sfc32';
 import type { RiskImpact } from './compile';
 import { allocateForwardPass, type ForwardPassBuffers, forwardPass } from './schedule/forward-pass';
 import type { Sampling } from './formats';
+import { type AllocationBand, bandOf } from './stats/allocation-band';
 
 /** Iterations per block; fixed, so that the split does not depend on the thread count. */
 export const BLOCK_SIZE = 2000;
@@ -48,6 +53,23 @@ export interface BlockSink {
   altDuration?: Float64Array;
   /** Tornado grades: input s, iteration i at s·n + i, as ⌊grade·2¹⁶⌋. */
   grades: Uint16Array;
+  /** When set, the P-level (0–1) around which the block keeps its allocation band. */
+  band?: number;
+}
+
+/**
+ * The allocation pass's view of a block: which of its iterations to recompute, and where each
+ * input's cost over them is summed (slots: see ./stats/allocation).
+ */
+export interface AllocationTap {
+  /** Iterations of the block (0-based, ascending). */
+  index: Int32Array;
+  /** Per slot, Σ of the input's cost over those iterations; added to. */
+  sums: Float64Array;
+  /** Slot of each cost item, rate item and risk. */
+  itemSlot: Int32Array;
+  rateSlot: Int32Array;
+  riskSlot: Int32Array;
 }
 
 /** What a block returns besides its sink: small per-block sums. */
@@ -67,6 +89,8 @@ export interface BlockSummary {
    * where its grade ≥ 0.9 (the swing).
    */
   swingSums: Float64Array;
+  /** Each input's cost near the block's P-value, when the sink asked for it. */
+  band?: AllocationBand;
 }
 
 /** Stored grades k with (k + ½)/2¹⁶ ≤ 0.1, and ≥ 0.9. */
@@ -102,6 +126,8 @@ interface Workspace {
   schedule: ForwardPassBuffers | null;
   /** Row of each variable in the grades, −1 when not a tornado input. */
   gradeRowOfVariable: Int32Array;
+  /** Each allocation slot's cost per iteration (slot s at s·stride), made when first needed. */
+  inputCost: Float64Array | null;
 }
 
 const workspaces = new WeakMap<Plan, Workspace>();
@@ -155,6 +181,7 @@ function workspaceFor(plan: Plan, n: number): Workspace {
     induction: allocateInduction(plan.maxGroupSize, stride),
     schedule: acts ? allocateForwardPass(acts, stride) : null,
     gradeRowOfVariable,
+    inputCost: null,
   };
   workspaces.set(plan, ws);
   return ws;
@@ -195,6 +222,38 @@ function addWhere(acc: Float64Array, x: Float64Array, mask: Uint8Array, n: numbe
 /** Version 1 delays: negative samples count as 0 days. */
 function addPositiveWhere(acc: Float64Array, x: Float64Array, mask: Uint8Array, n: number): void {
   for (let i = 0; i < n; i++) if (mask[i] && x[i] > 0) acc[i] += x[i];
+}
+
+function sumOf(x: Float64Array, n: number): number {
+  let s = 0;
+  for (let i = 0; i < n; i++) s += x[i];
+  return s;
+}
+
+function sumWhere(x: Float64Array, mask: Uint8Array, n: number): number {
+  let s = 0;
+  for (let i = 0; i < n; i++) if (mask[i]) s += x[i];
+  return s;
+}
+
+function sumOfProducts(x: Float64Array, y: Float64Array, n: number): number {
+  let s = 0;
+  for (let i = 0; i < n; i++) s += x[i] * y[i];
+  return s;
+}
+
+/** into[j] = x[index[j]]; in place when x is into (index ascending, so index[j] ≥ j). */
+function gatherInto(x: Float64Array, index: Int32Array, into: Float64Array): Float64Array {
+  for (let j = 0; j < index.length; j++) into[j] = x[index[j]];
+  return into;
+}
+
+function productInto(out: Float64Array, x: Float64Array, y: Float64Array, n: number): void {
+  for (let i = 0; i < n; i++) out[i] = x[i] * y[i];
+}
+
+function scaledInto(out: Float64Array, x: number, y: Float64Array, n: number): void {
+  for (let i = 0; i < n; i++) out[i] = x * y[i];
 }
 
 function multiplyInto(acc: Float64Array, x: Float64Array, n: number): void {
@@ -326,10 +385,20 @@ export function simulateBlock(
   key: Uint32Array,
   sampling: Sampling,
   block: number,
-  n: number,
+  size: number,
   sink: BlockSink,
+  tap?: AllocationTap,
 ): BlockSummary {
-  const ws = workspaceFor(plan, n);
+  const ws = workspaceFor(plan, size);
+  // Iterations drawn (size) and iterations computed (n): all of them, or the tap's.
+  const n = tap ? tap.index.length : size;
+  // The allocation band: each input's cost per iteration, kept while the block runs.
+  const nItems = plan.costItems.length;
+  const nRates = plan.rateItems.length;
+  const slots = nItems + nRates + plan.risks.length;
+  if (!tap && sink.band !== undefined && !ws.inputCost) ws.inputCost = new Float64Array(slots * ws.stride);
+  const keep = !tap && sink.band !== undefined ? ws.inputCost : null;
+  const kept = (slot: number) => keep!.subarray(slot * ws.stride, slot * ws.stride + n);
   const { tmp, occurred, sizes, preCost, postCost } = ws;
   const { hasPost } = plan;
   const rows = plan.sensitivity.length;
@@ -340,17 +409,17 @@ export function simulateBlock(
   /** The uniforms of variable v: its group's column, or drawn now into `into`. */
   const uniforms = (v: number, into: Float64Array): Float64Array => {
     const grouped = ws.groupedColumn[v];
-    if (grouped) return grouped;
+    if (grouped) return tap ? gatherInto(grouped, tap.index, into) : grouped;
     const rng = streamFor(key, block, plan.streamIds[v], ws.rng);
-    if (sampling === 'lhs') fillLatinHypercube(rng, into, n, ws.perm);
-    else fillMonteCarlo(rng, into, n);
-    return into;
+    if (sampling === 'lhs') fillLatinHypercube(rng, into, size, ws.perm);
+    else fillMonteCarlo(rng, into, size);
+    return tap ? gatherInto(into, tap.index, into) : into;
   };
   /** Uniforms of variable v, their grades stored when v is a tornado input. */
   const column = (v: number, into: Float64Array): Float64Array => {
     const u = uniforms(v, into);
     const row = ws.gradeRowOfVariable[v];
-    if (row >= 0) storeGrades(u, grades, row * n, gradeSums, row, n);
+    if (row >= 0 && !tap) storeGrades(u, grades, row * n, gradeSums, row, n);
     return u;
   };
   const applyDrivers = (list: Int32Array, x: Float64Array) => {
@@ -359,7 +428,7 @@ export function simulateBlock(
 
   // 1. Correlation groups.
   for (let k = 0; k < plan.groups.length; k++) {
-    induceGroup(plan.groups[k], ws.groupColumns[k], n, key, block, sampling, ws.induction, plan.streamIds);
+    induceGroup(plan.groups[k], ws.groupColumns[k], size, key, block, sampling, ws.induction, plan.streamIds);
   }
 
   // 2. Driver factors.
@@ -387,13 +456,19 @@ export function simulateBlock(
   if (hasPost) ws.postDurations.set(ws.durations);
 
   // 4. Line items (the same in both scenarios).
-  for (const { dist, v, drivers } of plan.costItems) {
-    if (v < 0 && drivers.length === 0) addConstant(preCost, dist.mean, n);
-    else {
+  for (let k = 0; k < plan.costItems.length; k++) {
+    const { dist, v, drivers } = plan.costItems[k];
+    if (v < 0 && drivers.length === 0) {
+      addConstant(preCost, dist.mean, n);
+      if (tap) tap.sums[tap.itemSlot[k]] += dist.mean * n;
+      if (keep) kept(k).fill(dist.mean);
+    } else {
       if (v < 0) tmp.fill(dist.mean, 0, n);
       else dist.quantileInto(column(v, ws.free), tmp, n);
       applyDrivers(drivers, tmp);
       addInto(preCost, tmp, n);
+      if (tap) tap.sums[tap.itemSlot[k]] += sumOf(tmp, n);
+      if (keep) kept(k).set(tmp.subarray(0, n));
     }
   }
   if (hasPost) postCost.set(preCost.subarray(0, n));
@@ -406,6 +481,10 @@ export function simulateBlock(
     activities: Int32Array,
     cost: Float64Array,
     durations: Float64Array[],
+    /** Tap slot of the risk's cost in this scenario, −1 when not tapped. */
+    slot: number,
+    /** Where its cost per iteration is kept for the band (headline scenario), else null. */
+    keepInto: Float64Array | null,
   ) => {
     const p = x.probability;
     if (p <= 0) return;
@@ -417,6 +496,8 @@ export function simulateBlock(
     if (x.cost) {
       x.cost.quantileInto(sizes, tmp, n);
       addWhere(cost, tmp, occurred, n);
+      if (tap && slot >= 0) tap.sums[slot] += sumWhere(tmp, occurred, n);
+      if (keepInto) addWhere(keepInto, tmp, occurred, n);
     }
     if (x.delay && activities.length) {
       x.delay.quantileInto(uDelay ?? sizes, tmp, n);
@@ -426,18 +507,40 @@ export function simulateBlock(
       }
     }
   };
-  for (const risk of plan.risks) {
+  const postHeadline = hasPost && plan.headline === 'post';
+  for (let r = 0; r < plan.risks.length; r++) {
+    const risk = plan.risks[r];
+    const slot = tap ? tap.riskSlot[r] : -1;
     const u = risk.v >= 0 ? column(risk.v, ws.free2) : null;
     const uDelay = risk.vDelay >= 0 ? uniforms(risk.vDelay, ws.free) : null;
-    applyRisk(risk.pre, u, uDelay, risk.activities, preCost, ws.durationColumn);
+    const own = keep ? kept(nItems + nRates + r).fill(0) : null;
+    const preOwn = postHeadline ? null : own;
+    applyRisk(
+      risk.pre,
+      u,
+      uDelay,
+      risk.activities,
+      preCost,
+      ws.durationColumn,
+      postHeadline ? -1 : slot,
+      preOwn,
+    );
     if (!hasPost) continue;
-    applyRisk(risk.post ?? risk.pre, u, uDelay, risk.activities, postCost, ws.postDurationColumn);
+    const postSlot = postHeadline ? slot : -1;
+    const postOwn = postHeadline ? own : null;
+    const postRisk = risk.post ?? risk.pre;
+    applyRisk(postRisk, u, uDelay, risk.activities, postCost, ws.postDurationColumn, postSlot, postOwn);
     const m = risk.mitigationCost;
     if (m) {
-      if (risk.vMitigation < 0) addConstant(postCost, m.mean, n);
-      else {
+      if (risk.vMitigation < 0) {
+        addConstant(postCost, m.mean, n);
+        if (tap && postSlot >= 0) tap.sums[postSlot] += m.mean * n;
+        if (postOwn) addConstant(postOwn, m.mean, n);
+      } else {
         m.quantileInto(uniforms(risk.vMitigation, ws.free), tmp, n);
         addInto(postCost, tmp, n);
+        if (tap && postSlot >= 0) tap.sums[postSlot] += sumOf(tmp, n);
+        if (postOwn) addInto(postOwn, tmp, n);
       }
     }
   }
@@ -451,36 +554,45 @@ export function simulateBlock(
 
   // 6. Schedule: criticality counts in the headline scenario.
   const critical = new Int32Array(acts);
-  const postHeadline = hasPost && plan.headline === 'post';
   if (plan.network && ws.schedule) {
-    const ignored = new Int32Array(acts);
-    forwardPass(plan.network, ws.durations, n, ws.schedule, ws.preTotal, postHeadline ? ignored : critical);
+    // The other scenario needs its project duration only; the allocation pass neither count.
+    const counts = tap ? null : critical;
+    forwardPass(plan.network, ws.durations, n, ws.schedule, ws.preTotal, postHeadline ? null : counts);
     if (hasPost)
-      forwardPass(
-        plan.network,
-        ws.postDurations,
-        n,
-        ws.schedule,
-        ws.postTotal,
-        postHeadline ? critical : ignored,
-      );
+      forwardPass(plan.network, ws.postDurations, n, ws.schedule, ws.postTotal, postHeadline ? counts : null);
   }
 
   // 7. Time-dependent items: an activity's duration, or the project's.
-  for (const { rate, v, activity, drivers } of plan.rateItems) {
+  for (let k = 0; k < plan.rateItems.length; k++) {
+    const { rate, v, activity, drivers } = plan.rateItems[k];
     const dPre = activity >= 0 ? ws.durationColumn[activity] : ws.preTotal;
     const dPost = activity >= 0 ? ws.postDurationColumn[activity] : ws.postTotal;
+    const dHead = postHeadline ? dPost : dPre;
     if (v < 0 && drivers.length === 0) {
       addScaled(preCost, rate.mean, dPre, n);
       if (hasPost) addScaled(postCost, rate.mean, dPost, n);
+      if (tap) tap.sums[tap.rateSlot[k]] += rate.mean * sumOf(dHead, n);
+      if (keep) scaledInto(kept(nItems + k), rate.mean, dHead, n);
     } else {
       if (v < 0) tmp.fill(rate.mean, 0, n);
       else rate.quantileInto(column(v, ws.free), tmp, n);
       applyDrivers(drivers, tmp);
       addProduct(preCost, tmp, dPre, n);
       if (hasPost) addProduct(postCost, tmp, dPost, n);
+      if (tap) tap.sums[tap.rateSlot[k]] += sumOfProducts(tmp, dHead, n);
+      if (keep) productInto(kept(nItems + k), tmp, dHead, n);
     }
   }
+  if (tap)
+    return {
+      block,
+      n: 0,
+      critical,
+      gradeSums,
+      pairSums: new Float64Array(0),
+      durationSums: new Float64Array(0),
+      swingSums: new Float64Array(0),
+    };
 
   // The totals out: headline, then the other scenario.
   sink.cost.set((postHeadline ? postCost : preCost).subarray(0, n));
@@ -501,5 +613,6 @@ export function simulateBlock(
     if (c.va >= 0) pairSumsInto(ws.groupedColumn[c.va]!, ws.groupedColumn[c.vb]!, n, pairSums, 5 * k);
   });
 
-  return { block, n, critical, gradeSums, pairSums, durationSums, swingSums };
+  const band = keep ? bandOf(sink.cost, n, sink.band!, keep, ws.stride, slots) : undefined;
+  return { block, n, critical, gradeSums, pairSums, durationSums, swingSums, ...(band ? { band } : {}) };
 }

@@ -21,6 +21,8 @@ export interface CostItemPlan {
   v: number;
   /** Drivers whose factor multiplies its sampled cost. */
   drivers: Int32Array;
+  /** Its part of the base estimate. */
+  base: number;
 }
 
 export interface RateItemPlan {
@@ -30,6 +32,8 @@ export interface RateItemPlan {
   /** The activity whose duration it runs with, −1 for the project's duration (span "project"). */
   activity: number;
   drivers: Int32Array;
+  /** Its part of the base estimate. */
+  base: number;
 }
 
 export interface ActivityPlan {
@@ -62,6 +66,8 @@ export interface RiskPlan {
   activities: Int32Array;
   mitigationCost: Distribution | null;
   vMitigation: number;
+  /** Line items its cost belongs to in the allocation of contingency (empty: the risk itself). */
+  allocateTo: string[];
 }
 
 export interface DriverPlan {
@@ -198,9 +204,10 @@ export function compileModel(model: Model): Plan {
       const v = newColumn(item.id, rate.degenerate);
       const projectSpan = item.span === 'project';
       const activity = projectSpan ? -1 : activityIndex.get(item.activity!)!;
-      rateItems.push({ id: item.id, rate, v, activity, drivers: driverList(item.id) });
       const days = projectSpan ? (durationBase ?? 0) : baseDurations[activity];
-      costBase += item.base ?? baseOf(rate) * days;
+      const base = item.base ?? baseOf(rate) * days;
+      rateItems.push({ id: item.id, rate, v, activity, drivers: driverList(item.id), base });
+      costBase += base;
       inputColumn.set(item.id, v);
     } else {
       const dist = item.dist
@@ -208,8 +215,9 @@ export function compileModel(model: Model): Plan {
         : createFixed({ value: item.base ?? 0 }, { where: item.id, field: 'base' });
       warnFittedBelowZero(item.id, 'dist', item.dist, dist, warnings);
       const v = newColumn(item.id, dist.degenerate);
-      costItems.push({ id: item.id, dist, v, drivers: driverList(item.id) });
-      costBase += item.base ?? baseOf(dist);
+      const base = item.base ?? baseOf(dist);
+      costItems.push({ id: item.id, dist, v, drivers: driverList(item.id), base });
+      costBase += base;
       inputColumn.set(item.id, v);
     }
   }
@@ -262,6 +270,7 @@ export function compileModel(model: Model): Plan {
       activities: Int32Array.from(delay ? acts.map((a) => activityIndex.get(a)!) : []),
       mitigationCost,
       vMitigation,
+      allocateTo: r.items ?? [],
     };
   });
 

@@ -7,7 +7,17 @@ import type { ResolvedSettings, SimulationOptions } from './options';
 import { resolveSettings } from './options';
 import { runKeyFromSeed } from './random/run-key';
 import { type RankedTotals, rankTotals, rollUp } from './rollup';
-import { allocateRound, blockCrossSums, blockSink, concatRounds, type RoundStore } from './run-data';
+import {
+  allocateRound,
+  type BlockSecondPass,
+  blockSecondPass,
+  blockSink,
+  concatRounds,
+  type RoundStore,
+  type SecondPassInput,
+} from './run-data';
+import { allocationFromBand, allocationWindow, bandCovers } from './stats/allocation';
+import type { AllocationBand } from './stats/allocation-band';
 import { nextRound } from './round-plan';
 import type { Model, SimulationResult } from './formats';
 import { parseModel } from './validate';
@@ -60,33 +70,83 @@ export function rankRun(run: PreparedRun, rounds: RoundStore[], shared = false):
   return totals;
 }
 
-/** The result, from the blocks' sums (any order), the ranked totals and the cross sums in block order. */
+/** The result, from the blocks' sums (any order), the ranked totals and the second pass in block order. */
 export function resultOf(
   run: PreparedRun,
   blocks: BlockSummary[],
   totals: RankedTotals,
-  cross: Float64Array[],
+  second: BlockSecondPass[],
   info: { elapsedMs: number; warnings: string[] },
 ): SimulationResult {
   const ordered = [...blocks].sort((a, b) => a.block - b.block);
-  return rollUp(run.plan, ordered, totals, cross, {
+  return rollUp(run.plan, ordered, totals, second, {
     seed: run.settings.seed,
     sampling: run.settings.sampling,
     ...info,
   });
 }
 
-/** The cross sums of all blocks, in this thread. */
-export function crossSumsInThread(
+/** What the second pass over the blocks needs, once the totals are ranked. */
+export function secondPassInput(run: PreparedRun, totals: RankedTotals): SecondPassInput {
+  return {
+    key: run.key,
+    sampling: run.settings.sampling,
+    costRanks: totals.costRanks,
+    durationRanks: totals.durationRanks,
+    window: allocationWindow(run.plan, totals.costSorted),
+  };
+}
+
+/** The blocks' allocation bands by block number (none for blocks that kept none). */
+export function bandsOf(blocks: BlockSummary[] = []): Map<number, AllocationBand> {
+  return new Map(blocks.flatMap((b) => (b.band ? [[b.block, b.band] as const] : [])));
+}
+
+/** Whether block b's allocation must be recomputed: its band does not cover the window. */
+export function recomputes(bands: Map<number, AllocationBand>, input: SecondPassInput, b: number): boolean {
+  return !bandCovers(bands.get(b), input.window);
+}
+
+/**
+ * Fills in, from the bands, the allocation sums of the blocks the second pass did not recompute.
+ * `second` in the order of the rounds' blocks.
+ */
+export function allocationFromBands(
+  run: PreparedRun,
+  rounds: RoundStore[],
+  second: BlockSecondPass[],
+  bands: Map<number, AllocationBand>,
+  input: SecondPassInput,
+): BlockSecondPass[] {
+  let k = 0;
+  for (const store of rounds) {
+    for (const b of blocksBetween(store.start, store.total)) {
+      const s = second[k++];
+      if (s.allocation.length === 0)
+        s.allocation = allocationFromBand(run.plan, store, b, bands.get(b)!, input.window);
+    }
+  }
+  return second;
+}
+
+/**
+ * The second pass (rank cross sums, allocation sums) over all blocks, in this thread; `blocks`
+ * (any order) bring their allocation bands, without them every block is recomputed.
+ */
+export function secondPassInThread(
   run: PreparedRun,
   rounds: RoundStore[],
   totals: RankedTotals,
-): Float64Array[] {
-  return rounds.flatMap((store) =>
+  blocks?: BlockSummary[],
+): BlockSecondPass[] {
+  const input = secondPassInput(run, totals);
+  const bands = bandsOf(blocks);
+  const second = rounds.flatMap((store) =>
     blocksBetween(store.start, store.total).map((b) =>
-      blockCrossSums(run.plan, store, b, blockLength(b, store.total), totals.costRanks, totals.durationRanks),
+      blockSecondPass(run.plan, store, b, blockLength(b, store.total), input, recomputes(bands, input, b)),
     ),
   );
+  return allocationFromBands(run, rounds, second, bands, input);
 }
 
 export function simulateSync(modelJson: unknown, options: SimulationOptions = {}): SimulationResult {
@@ -104,7 +164,7 @@ export function simulateSync(modelJson: unknown, options: SimulationOptions = {}
     round = nextRound(run.settings, run.plan, done, rounds, warnings);
   }
   const totals = rankRun(run, rounds);
-  return resultOf(run, blocks, totals, crossSumsInThread(run, rounds, totals), {
+  return resultOf(run, blocks, totals, secondPassInThread(run, rounds, totals, blocks), {
     elapsedMs: performance.now() - started,
     warnings,
   });

@@ -165,6 +165,21 @@ export interface JointResult {
   frontier?: { level: number; points: { duration: number; cost: number }[] };
 }
 
+/**
+ * Euler allocation of the contingency at `level` (docs/result-format.md): each input's mean cost
+ * over the `iterations` whose total lies nearest that P-value, minus its base.
+ */
+export interface AllocationResult {
+  level: ContingencyLevel;
+  /** The cost's contingency at `level` (its P-value minus the base). */
+  contingency: number;
+  /** Iterations in the window the means are taken over (about 1% of the run). */
+  iterations: number;
+  /** Per line item (with the risks that name it); and per risk that names no line item. */
+  items: Record<string, number>;
+  risks: Record<string, number>;
+}
+
 export interface AchievedCorrelation {
   a: string;
   b: string;
@@ -197,6 +212,7 @@ export interface SimulationResult {
   duration?: TotalSummary;
   joint?: JointResult;
   mitigation?: MitigationResult;
+  allocation?: AllocationResult;
   sensitivity: { cost: SensitivityEntry[]; duration: SensitivityEntry[] };
   criticality: Record<string, number>;
   achievedCorrelations: AchievedCorrelation[];

@@ -9,6 +9,8 @@ import { midRanks, sortedPositions } from './math/ranks';
 import { checkpointsFor, convergenceSeries } from './stats/convergence';
 import { rankCorrelations, tornado } from './stats/sensitivity';
 import { jointAtPLevels, jointFrontier } from './stats/joint';
+import { allocationOf } from './stats/allocation';
+import type { BlockSecondPass } from './run-data';
 import { PERCENTILES } from './stats/percentiles';
 import { percentileOfSorted, summarizeTotal } from './stats/summary';
 import { wilsonInterval } from './stats/wilson';
@@ -90,13 +92,14 @@ function achievedCorrelations(plan: Plan, blocks: BlockSummary[], n: number): Ac
 }
 
 /**
- * `blocks` in block order; `cross[k]` the rank cross sums of blocks[k] (blockCrossSums).
+ * `blocks` in block order; `second[k]` the second pass over blocks[k] (blockSecondPass): rank
+ * cross sums and allocation sums.
  */
 export function rollUp(
   plan: Plan,
   blocks: BlockSummary[],
   totals: RankedTotals,
-  cross: Float64Array[],
+  second: BlockSecondPass[],
   info: RunInfo,
 ): SimulationResult {
   const { cost, costSorted, duration, durationSorted } = totals;
@@ -128,6 +131,7 @@ export function rollUp(
   plan.activities.forEach((a, i) => (criticality[a.id] = critical[i] / n));
 
   // Tornado: rank correlation, share, swing, and the schedule sensitivity index.
+  const cross = second.map((s) => s.cross);
   const rho = rankCorrelations(plan.sensitivity, blocks, cross, totals.costRanks, totals.durationRanks);
   const swing = swingOf(plan, blocks);
   const ssi = scheduleSensitivity(plan, blocks, critical, n, durationSummary?.sd ?? 0);
@@ -172,6 +176,11 @@ export function rollUp(
     ...(durationSummary ? { duration: durationSummary } : {}),
     ...(joint ? { joint } : {}),
     ...(plan.hasPost ? { mitigation: mitigationOf(plan, totals) } : {}),
+    allocation: allocationOf(
+      plan,
+      second.map((s) => s.allocation),
+      costSummary,
+    ),
     sensitivity: { cost: pick('cost'), duration: totals.durationRanks ? pick('duration') : [] },
     criticality,
     achievedCorrelations: achievedCorrelations(plan, blocks, n),
@@ -230,9 +239,14 @@ function scheduleSensitivity(
   return out;
 }
 
-function scenarioOf(cost: Float64Array, duration: Float64Array | null | undefined): ScenarioSummary {
-  const part = (x: Float64Array) => {
-    const sorted = x.slice().sort();
+/** Mean and percentiles of each total; `sorted` the sorted copies when already at hand. */
+function scenarioOf(
+  cost: Float64Array,
+  duration: Float64Array | null | undefined,
+  sorted?: { cost: Float64Array; duration: Float64Array | null },
+): ScenarioSummary {
+  const part = (x: Float64Array, given?: Float64Array | null) => {
+    const sorted = given ?? x.slice().sort();
     let sum = 0;
     for (let i = 0; i < x.length; i++) sum += x[i];
     const percentiles = Object.fromEntries(
@@ -240,12 +254,18 @@ function scenarioOf(cost: Float64Array, duration: Float64Array | null | undefine
     ) as Record<PercentileKey, number>;
     return { mean: sum / x.length, percentiles };
   };
-  return { cost: part(cost), ...(duration && duration.length ? { duration: part(duration) } : {}) };
+  return {
+    cost: part(cost, sorted?.cost),
+    ...(duration && duration.length ? { duration: part(duration, sorted?.duration) } : {}),
+  };
 }
 
 /** Both scenarios, before and after mitigation, from the same iterations. */
 function mitigationOf(plan: Plan, totals: RankedTotals): NonNullable<SimulationResult['mitigation']> {
-  const headline = scenarioOf(totals.cost, totals.duration);
+  const headline = scenarioOf(totals.cost, totals.duration, {
+    cost: totals.costSorted,
+    duration: totals.durationSorted,
+  });
   const other = scenarioOf(totals.altCost!, totals.altDuration);
   return plan.headline === 'post'
     ? { used: 'post', pre: other, post: headline }

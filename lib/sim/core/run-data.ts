@@ -5,6 +5,14 @@
 
 import { BLOCK_SIZE, type BlockSink } from './block';
 import type { Plan } from './compile';
+import type { Sampling } from './formats';
+import {
+  type AllocationWindow,
+  allocationLevel,
+  allocationSlots,
+  blockAllocationSums,
+} from './stats/allocation';
+import { keepsBands } from './stats/allocation-band';
 
 export interface RoundStore {
   /** First iteration of the round (a multiple of BLOCK_SIZE) and the end of the round. */
@@ -19,6 +27,8 @@ export interface RoundStore {
   altDuration: Float64Array;
   /** Block b's grades start at (b − start/BLOCK_SIZE)·rows·BLOCK_SIZE, row r at r·n within. */
   grades: Uint16Array;
+  /** The P-level around which blocks keep their allocation band, when the run keeps bands. */
+  band?: number;
 }
 
 export function allocateRound(plan: Plan, start: number, total: number, shared: boolean): RoundStore {
@@ -36,6 +46,7 @@ export function allocateRound(plan: Plan, start: number, total: number, shared: 
     altCost: new Float64Array(buffer(plan.hasPost ? 8 * n : 0)),
     altDuration: new Float64Array(buffer(plan.hasPost ? 8 * durationLength : 0)),
     grades: new Uint16Array(buffer(2 * rows * blocks * BLOCK_SIZE)),
+    ...(keepsBands(total, allocationSlots(plan)) ? { band: allocationLevel(plan) } : {}),
   };
 }
 
@@ -48,6 +59,7 @@ export function blockSink(store: RoundStore, block: number, n: number): BlockSin
     altCost: store.altCost.length ? store.altCost.subarray(local, local + n) : store.altCost,
     altDuration: store.altDuration.length ? store.altDuration.subarray(local, local + n) : store.altDuration,
     grades: store.grades.subarray(g, g + store.rows * n),
+    ...(store.band !== undefined ? { band: store.band } : {}),
   };
 }
 
@@ -98,4 +110,39 @@ export function blockCrossSums(
     }
   }
   return out;
+}
+
+/**
+ * What the second pass over a block gives: its rank cross sums and its allocation sums (empty
+ * when the block's band covers the window: the caller reads them from the band).
+ */
+export interface BlockSecondPass {
+  cross: Float64Array;
+  allocation: Float64Array;
+}
+
+/** Everything the second pass needs besides the plan and the round: the run and the ranked totals. */
+export interface SecondPassInput {
+  key: Uint32Array;
+  sampling: Sampling;
+  costRanks: Float64Array;
+  durationRanks: Float64Array | null;
+  window: AllocationWindow;
+}
+
+/** The second pass over one block, once the run's totals are ranked; `recompute` its allocation. */
+export function blockSecondPass(
+  plan: Plan,
+  store: RoundStore,
+  block: number,
+  n: number,
+  input: SecondPassInput,
+  recompute: boolean,
+): BlockSecondPass {
+  return {
+    cross: blockCrossSums(plan, store, block, n, input.costRanks, input.durationRanks),
+    allocation: recompute
+      ? blockAllocationSums(plan, input.key, input.sampling, store, block, n, input.window)
+      : new Float64Array(0),
+  };
 }

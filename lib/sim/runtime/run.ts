@@ -9,12 +9,17 @@ import { compileModel } from '../core/compile';
 import { packBetaTables } from '../core/math/beta-quantile-table';
 import {
   blocksBetween,
-  crossSumsInThread,
   type PreparedRun,
   rankRun,
   resolveRun,
+  allocationFromBands,
+  bandsOf,
+  recomputes,
   resultOf,
+  secondPassInput,
+  secondPassInThread,
 } from '../core/engine';
+import type { BlockSecondPass } from '../core/run-data';
 import { SimulationCancelledError } from '../core/errors';
 import { createTaskPool, type TaskPool } from './pool';
 import type { RunOptions } from './options';
@@ -26,8 +31,8 @@ import { warmUp } from './warm-up';
 
 const yieldToEventLoop = () => new Promise<void>((resolve) => setImmediate(resolve));
 
-/** Blocks per cross-sum task: enough work per message, enough tasks to share. */
-const CROSS_CHUNK = 4;
+/** Blocks per second-pass task: enough work per message, enough tasks to share. */
+const SECOND_CHUNK = 4;
 /** In this thread, warm the engine up (./warm-up) only for runs of at least this many blocks. */
 const WARM_UP_FROM = 8;
 
@@ -96,30 +101,33 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
     }
     throwIfAborted();
     const totals = rankRun(run, rounds, pooled);
-    let cross: Float64Array[];
-    if (!pool) cross = crossSumsInThread(run, rounds, totals);
+    let second: BlockSecondPass[];
+    if (!pool) second = secondPassInThread(run, rounds, totals, blocks);
     else {
       const p = pool;
+      const input = secondPassInput(run, totals);
+      const { costRanks, durationRanks, window } = input;
+      const bands = bandsOf(blocks);
       const tasks = rounds.flatMap((store) => {
         const all = blocksBetween(store.start, store.total);
         const chunks: number[][] = [];
-        for (let i = 0; i < all.length; i += CROSS_CHUNK) chunks.push(all.slice(i, i + CROSS_CHUNK));
+        for (let i = 0; i < all.length; i += SECOND_CHUNK) chunks.push(all.slice(i, i + SECOND_CHUNK));
         return chunks.map((chunk) =>
-          p.run<Float64Array[]>(
+          p.run<BlockSecondPass[]>(
             {
-              kind: 'cross',
+              kind: 'second',
               blocks: chunk,
               store,
-              costRanks: totals.costRanks,
-              durationRanks: totals.durationRanks,
+              input: { costRanks, durationRanks, window },
+              recompute: chunk.map((b) => recomputes(bands, input, b)),
             },
             signal,
           ),
         );
       });
-      cross = (await guard(Promise.all(tasks))).flat();
+      second = allocationFromBands(run, rounds, (await guard(Promise.all(tasks))).flat(), bands, input);
     }
-    return resultOf(run, blocks, totals, cross, { elapsedMs: performance.now() - started, warnings });
+    return resultOf(run, blocks, totals, second, { elapsedMs: performance.now() - started, warnings });
   } finally {
     if (pool) await pool.close();
   }

@@ -1,14 +1,21 @@
 // Worker-thread entry, bundled to .build/sim-worker.mjs by scripts/build-worker.mjs (see
 // ./worker-file). Each worker compiles the model once from its workerData (while the
 // parent builds the beta-PERT tables that the first task brings), then runs tasks: compute
-// blocks into the round's shared store, or the tornado's cross sums of blocks. Only small
+// blocks into the round's shared store, or the second pass over blocks (the tornado's cross sums
+// and the allocation's sums). Only small
 // per-block sums travel back.
 
 import { workerData } from 'node:worker_threads';
 import { type BlockSummary, blockLength, simulateBlock } from '../core/block';
 import { compileModel } from '../core/compile';
 import { type PackedBetaTables, unpackBetaTables } from '../core/math/beta-quantile-table';
-import { blockCrossSums, blockSink, type RoundStore } from '../core/run-data';
+import {
+  type BlockSecondPass,
+  blockSecondPass,
+  blockSink,
+  type RoundStore,
+  type SecondPassInput,
+} from '../core/run-data';
 import type { Model, Sampling } from '../core/formats';
 import { warmUp } from './warm-up';
 
@@ -27,14 +34,16 @@ export type WorkerTask =
       tables: PackedBetaTables;
     }
   | {
-      kind: 'cross';
+      /** The second pass, once the totals are ranked: cross sums and allocation sums. */
+      kind: 'second';
       blocks: number[];
       store: RoundStore;
-      costRanks: Float64Array;
-      durationRanks: Float64Array | null;
+      input: Omit<SecondPassInput, 'key' | 'sampling'>;
+      /** Per block of `blocks`: recompute its allocation (its band does not cover the window). */
+      recompute: boolean[];
     };
 
-export type WorkerReply = BlockSummary[] | Float64Array[];
+export type WorkerReply = BlockSummary[] | BlockSecondPass[];
 
 const data = workerData as WorkerData;
 const plan = compileModel(data.model);
@@ -54,7 +63,8 @@ export default function runTask(task: WorkerTask): WorkerReply {
       return simulateBlock(plan, key, data.sampling, b, n, blockSink(store, b, n));
     });
   }
-  return task.blocks.map((b) =>
-    blockCrossSums(plan, store, b, blockLength(b, store.total), task.costRanks, task.durationRanks),
+  const input: SecondPassInput = { ...task.input, key, sampling: data.sampling };
+  return task.blocks.map((b, k) =>
+    blockSecondPass(plan, store, b, blockLength(b, store.total), input, task.recompute[k]),
   );
 }

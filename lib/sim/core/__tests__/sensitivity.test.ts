@@ -4,10 +4,10 @@ import { describe, expect, it } from 'vitest';
 import { BLOCK_SIZE, blockLength, GRADE_UNIT } from '../block';
 import {
   blocksBetween,
-  crossSumsInThread,
   prepareRun,
   rankRun,
   resultOf,
+  secondPassInThread,
   simulateRound,
   simulateSync,
 } from '../engine';
@@ -44,7 +44,7 @@ describe('rank correlation with the total', () => {
     const store = allocateRound(plan, 0, 8000, false);
     const blocks = simulateRound(run, store);
     const totals = rankRun(run, [store]);
-    const result = resultOf(run, blocks, totals, crossSumsInThread(run, [store], totals), {
+    const result = resultOf(run, blocks, totals, secondPassInThread(run, [store], totals), {
       elapsedMs: 0,
       warnings: [],
     });

@@ -36,7 +36,7 @@ export function allocateForwardPass(size: number, stride: number): ForwardPassBu
 
 /**
  * duration[a·stride + i], i < n → total[i] (project duration) and critical[a] += iterations in
- * which a is critical.
+ * which a is critical; with critical null, the project duration alone (no backward pass).
  */
 export function forwardPass(
   net: Network,
@@ -44,7 +44,7 @@ export function forwardPass(
   n: number,
   buf: ForwardPassBuffers,
   total: Float64Array,
-  critical: Int32Array,
+  critical: Int32Array | null,
 ): void {
   const { finish, late, stride } = buf;
   const { order, predStart, predIndex, predLag } = net;
@@ -69,6 +69,7 @@ export function forwardPass(
       if (f > total[i]) total[i] = f;
     }
   }
+  if (!critical) return;
   // Backward pass.
   for (let a = 0; a < net.size; a++) late.set(total.subarray(0, n), a * stride);
   for (let k = net.size - 1; k >= 0; k--) {

@@ -28,6 +28,7 @@ describe('determinism across threads', () => {
       expect(withoutTime(two)).toStrictEqual(withoutTime(one));
       expect(withoutTime(simulateSync(projectV2, options))).toStrictEqual(withoutTime(one));
       expect(one.mitigation?.used).toBe('post');
+      expect(one.allocation?.iterations).toBeGreaterThan(0);
     },
   );
 

@@ -1,0 +1,60 @@
+/**
+ * The allocation band of a block: while a block is computed its inputs' costs per iteration are at
+ * hand, so it keeps them for the iterations whose total lies near the block's own P-value
+ * (BAND_HALF_WIDTH of the block's iterations on either side). The run's window (./allocation) is
+ * about 1% of the iterations around the run's P-value; a block's own P-value is within about
+ * 1 percentage point of the run's (binomial: √(0.8·0.2/2000) ≈ 0.9%), so its band nearly always
+ * holds every iteration of the block that falls in the window, and the second pass reads them here
+ * instead of recomputing the block. When a band does not cover the window, that block is
+ * recomputed; either way what is summed depends only on the block and the window.
+ */
+
+import { percentileRank } from './order-statistics';
+
+export const BAND_HALF_WIDTH = 0.04;
+
+/** Above this many bytes of bands over a run, no band is kept (every block is recomputed). */
+export const MAX_BAND_BYTES = 64 * 2 ** 20;
+
+export interface AllocationBand {
+  /** Totals [lo, hi] of the band: every iteration of the block with its total in it is kept. */
+  lo: number;
+  hi: number;
+  /** Kept iterations of the block (0-based, ascending). */
+  index: Int32Array;
+  /** Slot-major: costs[s·m + j], slot s, kept iteration j (m = index.length). */
+  costs: Float64Array;
+}
+
+/** Whether bands are kept for a run of `total` iterations and `slots` inputs. */
+export function keepsBands(total: number, slots: number): boolean {
+  return 2 * BAND_HALF_WIDTH * total * slots * 8 <= MAX_BAND_BYTES;
+}
+
+/**
+ * The band of a block from its totals and its inputs' costs (slot s at inputCost[s·stride + i]).
+ */
+export function bandOf(
+  cost: Float64Array,
+  n: number,
+  level: number,
+  inputCost: Float64Array,
+  stride: number,
+  slots: number,
+): AllocationBand {
+  const sorted = cost.slice(0, n).sort();
+  const r = percentileRank(n, level) - 1;
+  const d = Math.ceil(BAND_HALF_WIDTH * n);
+  const lo = sorted[Math.max(0, r - d)];
+  const hi = sorted[Math.min(n - 1, r + d)];
+  const kept: number[] = [];
+  for (let i = 0; i < n; i++) if (cost[i] >= lo && cost[i] <= hi) kept.push(i);
+  const index = Int32Array.from(kept);
+  const m = index.length;
+  const costs = new Float64Array(slots * m);
+  for (let s = 0; s < slots; s++) {
+    const off = s * stride;
+    for (let j = 0; j < m; j++) costs[s * m + j] = inputCost[off + index[j]];
+  }
+  return { lo, hi, index, costs };
+}
