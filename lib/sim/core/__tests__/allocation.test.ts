@@ -6,7 +6,7 @@ import { prepareRun, rankRun, secondPassInThread, simulateRound, simulateSync } 
 import type { Model } from '../formats';
 import { allocateRound } from '../run-data';
 import { allocationWindow } from '../stats/allocation';
-import { normal, uniform } from './helpers';
+import { item, normal, uniform } from './helpers';
 
 const v2 = (parts: Partial<Model>): Model => ({ format: 'outturn-model', version: 2, items: [], ...parts });
 
@@ -19,11 +19,7 @@ describe('Euler allocation', () => {
     const sds = { C1: 10, C2: 20, C3: 30 };
     const res = simulateSync(
       v2({
-        items: [
-          { id: 'C1', dist: normal(100, 10) },
-          { id: 'C2', dist: normal(200, 20) },
-          { id: 'C3', dist: normal(50, 30) },
-        ],
+        items: [item('C1', normal(100, 10)), item('C2', normal(200, 20)), item('C3', normal(50, 30))],
       }),
       { iterations: 100_000, seed: 12 },
     );
@@ -44,10 +40,7 @@ describe('Euler allocation', () => {
     // whose base is the mean, whatever the correlation (Tasche 1999, as above, with z_0.5 = 0).
     const res = simulateSync(
       v2({
-        items: [
-          { id: 'C1', dist: normal(100, 10) },
-          { id: 'C2', dist: normal(200, 40) },
-        ],
+        items: [item('C1', normal(100, 10)), item('C2', normal(200, 40))],
         correlations: [{ a: 'C1', b: 'C2', rho: 0.6 }],
         settings: { contingencyLevel: 'P50' },
       }),
@@ -63,7 +56,7 @@ describe('Euler allocation', () => {
     const res = simulateSync(
       v2({
         items: [
-          { id: 'C1', dist: uniform(900, 1300) },
+          item('C1', uniform(900, 1300)),
           { id: 'C2', ratePerDay: uniform(8, 12), activity: 'A1' },
           { id: 'C3', ratePerDay: 5, span: 'project' },
         ],
@@ -99,10 +92,7 @@ describe('Euler allocation', () => {
 
   it('recomputes in the second pass exactly the totals of the window', () => {
     const m = v2({
-      items: [
-        { id: 'C1', dist: normal(1000, 100) },
-        { id: 'C2', ratePerDay: uniform(8, 12), activity: 'A1' },
-      ],
+      items: [item('C1', normal(1000, 100)), { id: 'C2', ratePerDay: uniform(8, 12), activity: 'A1' }],
       activities: [{ id: 'A1', duration: uniform(20, 40) }],
       drivers: [{ id: 'D1', factor: uniform(0.9, 1.3), applies: ['C1', 'A1'] }],
       risks: [
@@ -140,7 +130,7 @@ describe('Euler allocation', () => {
   it("reads from the blocks' bands the sums the recomputation gives", () => {
     const m = v2({
       items: [
-        { id: 'C1', dist: normal(1000, 100) },
+        item('C1', normal(1000, 100)),
         { id: 'C2', ratePerDay: uniform(8, 12), activity: 'A1' },
         { id: 'C3', base: 50 },
         { id: 'C4', ratePerDay: 2, span: 'project' },

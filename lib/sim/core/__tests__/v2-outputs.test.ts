@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import { simulateSync } from '../engine';
 import type { Model } from '../formats';
-import { normal, uniform } from './helpers';
+import { item, normal, uniform } from './helpers';
 
 const v2 = (parts: Partial<Model>): Model => ({ format: 'outturn-model', version: 2, items: [], ...parts });
 
@@ -14,10 +14,7 @@ describe('swing', () => {
     // with z = Φ⁻¹(0.1) = −1.28155, φ(z) = 0.175498, so the low end is μ − 1.75498σ.
     const res = simulateSync(
       v2({
-        items: [
-          { id: 'C1', dist: normal(100, 10) },
-          { id: 'C2', dist: uniform(0, 0.001) },
-        ],
+        items: [item('C1', normal(100, 10)), item('C2', uniform(0, 0.001))],
       }),
       { iterations: 40_000, seed: 5 },
     );
@@ -30,7 +27,7 @@ describe('swing', () => {
 
 describe('joint confidence', () => {
   const m = v2({
-    items: [{ id: 'C1', dist: uniform(0, 100) }],
+    items: [item('C1', uniform(0, 100))],
     activities: [{ id: 'A1', duration: uniform(0, 100) }],
     targets: { cost: 80, duration: 80 },
   });
@@ -58,7 +55,7 @@ describe('joint confidence', () => {
 
 describe('intervals', () => {
   it('cover every P-value, and contingency by the same interval shifted by the base', () => {
-    const res = simulateSync(v2({ items: [{ id: 'C1', dist: normal(100, 10) }] }), {
+    const res = simulateSync(v2({ items: [item('C1', normal(100, 10))] }), {
       iterations: 5000,
       seed: 1,
     });
