@@ -3,7 +3,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { BLOCK_SIZE, ENGINE_VERSION } from '@/lib/sim';
 import { newOrganisation } from './helpers/http';
-import { closeDb, rows } from './helpers/db';
+import { closeDb, execute, rows } from './helpers/db';
 import { projectWithRegisters, waitForRun } from './runs-fixtures';
 
 afterAll(closeDb);
@@ -25,5 +25,16 @@ describe('the engine a run was computed with', () => {
 
     const view = (await client.get(`/api/projects/${projectId}/runs/${runId}`)).json.run;
     expect(view.engine).toEqual({ version: ENGINE_VERSION, blockSize: BLOCK_SIZE, notice: null });
+    expect((await client.get(`/projects/${projectId}/runs/${runId}`)).text).not.toContain(
+      'Made by another engine',
+    );
+
+    // The same run as if an older engine had made it: the API and the page both say so.
+    await execute('UPDATE SimulationRuns SET engineVersion = ? WHERE id = ?', ['0.9.0', runId]);
+    const older = (await client.get(`/api/projects/${projectId}/runs/${runId}`)).json.run;
+    expect(older.engine.notice).toContain(ENGINE_VERSION);
+    const page = await client.get(`/projects/${projectId}/runs/${runId}`);
+    expect(page.status).toBe(200);
+    expect(page.text).toContain('Made by another engine');
   });
 });

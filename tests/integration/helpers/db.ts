@@ -31,6 +31,11 @@ export async function rows<T extends object>(sql: string, replacements: unknown[
   return connection().query<T>(sql, { replacements, type: QueryTypes.SELECT });
 }
 
+/** A direct change of the test database, to set up a state the API cannot reach. */
+export async function execute(sql: string, replacements: unknown[] = []): Promise<void> {
+  await connection().query(sql, { replacements, type: QueryTypes.UPDATE });
+}
+
 export async function closeDb() {
   await db?.close();
   db = undefined;

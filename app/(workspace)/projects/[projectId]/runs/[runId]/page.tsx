@@ -3,6 +3,7 @@ import { can } from '@/lib/auth/roles';
 import { getRunOutcome } from '@/lib/services/runs';
 import { sampleCharts } from '@/lib/runs/outcome-data';
 import { buttonClass } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
 import { OutcomeView } from '@/components/runs/outcome-view';
 import { RunProgress } from '@/components/runs/run-progress';
 import { RunStatusBadge } from '@/components/runs/run-status';
@@ -56,6 +57,11 @@ export default async function RunPage({ params }: { params: RunParams }) {
           </Link>
         </div>
       </div>
+      {run.engine.notice ? (
+        <Notice tone="caution" title="Made by another engine">
+          {run.engine.notice} The figures below are the ones stored when the run finished.
+        </Notice>
+      ) : null}
       {outcome ? (
         <OutcomeView
           project={project}
