@@ -101,3 +101,16 @@ export async function waitForRun(
     await new Promise((r) => setTimeout(r, 100));
   }
 }
+
+/** A run's stored settings, for tests that write run rows straight into the database. */
+export const storedRunSettings = (iterations: number, seed: number) => ({
+  iterations,
+  seed,
+  sampling: 'lhs' as const,
+  riskValues: 'pre' as const,
+  confidence: 'P80' as const,
+  costTarget: null,
+  finishTarget: null,
+  durationTarget: null,
+  precision: null,
+});

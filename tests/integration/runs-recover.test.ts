@@ -5,7 +5,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { newOrganisation } from './helpers/http';
 import { closeDb, rows } from './helpers/db';
-import { projectWithRegisters } from './runs-fixtures';
+import { projectWithRegisters, storedRunSettings } from './runs-fixtures';
 import { INTERRUPTED_REASON, recoverInterruptedRuns } from '@/lib/services/runs/recover';
 import { SimulationRun, sequelize } from '@/models';
 
@@ -18,17 +18,7 @@ describe('a run interrupted by a restart', () => {
   it('is marked failed with the reason at the next start, and the API says so', async () => {
     const { client, organizationId } = await newOrganisation('runs-recover');
     const projectId = await projectWithRegisters(client);
-    const settings = {
-      iterations: 10_000,
-      seed: 1,
-      sampling: 'lhs' as const,
-      riskValues: 'pre' as const,
-      confidence: 'P80' as const,
-      costTarget: null,
-      finishTarget: null,
-      durationTarget: null,
-      precision: null,
-    };
+    const settings = storedRunSettings(10_000, 1);
     const interrupted = await SimulationRun.create({
       organizationId,
       projectId,

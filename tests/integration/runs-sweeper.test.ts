@@ -4,7 +4,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { newOrganisation } from './helpers/http';
 import { closeDb, rows } from './helpers/db';
-import { projectWithRegisters } from './runs-fixtures';
+import { projectWithRegisters, storedRunSettings } from './runs-fixtures';
 import { STALE_REASON, sweepStaleRuns } from '@/lib/services/runs/recover';
 import { schedule } from '@/lib/services/runs/runner';
 import { isActive } from '@/lib/services/runs/queue';
@@ -15,17 +15,7 @@ afterAll(async () => {
   await sequelize.close();
 });
 
-const settings = {
-  iterations: 1_000,
-  seed: 7,
-  sampling: 'lhs' as const,
-  riskValues: 'pre' as const,
-  confidence: 'P80' as const,
-  costTarget: null,
-  finishTarget: null,
-  durationTarget: null,
-  precision: null,
-};
+const settings = storedRunSettings(1_000, 7);
 
 async function runRow(
   organizationId: number,

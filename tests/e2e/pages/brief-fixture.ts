@@ -5,18 +5,11 @@
  */
 import { QueryTypes, Sequelize } from 'sequelize';
 import type { Client } from '../../integration/helpers/http';
+import { testDatabase } from '../../integration/helpers/db';
 
 let db: Sequelize | undefined;
 function connection() {
-  db ??= new Sequelize({
-    dialect: 'mariadb',
-    host: process.env.DB_HOST ?? '127.0.0.1',
-    port: Number(process.env.DB_PORT ?? 3307),
-    database: process.env.DB_NAME ?? 'outturn_test',
-    username: process.env.DB_USER ?? 'outturn',
-    password: process.env.DB_PASSWORD,
-    logging: false,
-  });
+  db ??= testDatabase();
   return db;
 }
 

@@ -3,8 +3,9 @@ import { QueryTypes, Sequelize } from 'sequelize';
 
 let db: Sequelize | undefined;
 
-function connection() {
-  db ??= new Sequelize({
+/** A new connection to the test database that `npm test` made (its name and user from the env). */
+export function testDatabase(): Sequelize {
+  return new Sequelize({
     dialect: 'mariadb',
     host: process.env.DB_HOST ?? '127.0.0.1',
     port: Number(process.env.DB_PORT ?? 3307),
@@ -13,6 +14,10 @@ function connection() {
     password: process.env.DB_PASSWORD,
     logging: false,
   });
+}
+
+function connection() {
+  db ??= testDatabase();
   return db;
 }
 
@@ -43,15 +48,7 @@ export async function closeDb() {
 
 /** One query on its own short-lived connection, for helpers used by files that never call closeDb. */
 export async function rowsOnce<T extends object>(sql: string, replacements: unknown[] = []): Promise<T[]> {
-  const once = new Sequelize({
-    dialect: 'mariadb',
-    host: process.env.DB_HOST ?? '127.0.0.1',
-    port: Number(process.env.DB_PORT ?? 3307),
-    database: process.env.DB_NAME ?? 'outturn_test',
-    username: process.env.DB_USER ?? 'outturn',
-    password: process.env.DB_PASSWORD,
-    logging: false,
-  });
+  const once = testDatabase();
   try {
     return await once.query<T>(sql, { replacements, type: QueryTypes.SELECT });
   } finally {
