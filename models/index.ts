@@ -19,6 +19,7 @@ import { OutboundMessage } from './outbound-message';
 import { NotificationPreference } from './notification-preference';
 import { PasswordResetToken } from './password-reset-token';
 import { Approval } from './approval';
+import { WorkCalendar } from './work-calendar';
 
 Organization.hasMany(Membership, { foreignKey: 'organizationId', as: 'memberships' });
 Membership.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
@@ -70,6 +71,9 @@ Approval.belongsTo(SimulationRun, { foreignKey: 'runId', as: 'run' });
 Approval.belongsTo(User, { foreignKey: 'sponsorId', as: 'sponsor' });
 Project.hasMany(Approval, { foreignKey: 'projectId', as: 'approvals' });
 
+Organization.hasOne(WorkCalendar, { foreignKey: 'organizationId', as: 'workCalendar' });
+WorkCalendar.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
+
 export {
   Subscription,
   Invoice,
@@ -90,4 +94,5 @@ export {
   AuditEntry,
   SimulationRun,
   Approval,
+  WorkCalendar,
 };

@@ -8,6 +8,7 @@ export function WorkspaceNav({ actor, organizationName }: { actor: Actor; organi
   const links = [
     can(actor.role, 'project:read') && { href: '/projects', label: 'Projects' },
     can(actor.role, 'members:manage') && { href: '/settings/members', label: 'Members' },
+    can(actor.role, 'project:read') && { href: '/settings/calendar', label: 'Calendar' },
     can(actor.role, 'billing:read') && { href: '/settings/billing', label: 'Billing and seats' },
     { href: '/settings/notifications', label: 'Notices' },
   ].filter(Boolean) as { href: string; label: string }[];

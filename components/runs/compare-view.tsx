@@ -8,7 +8,7 @@ import type { PercentileKey, SimulationResult, TotalSummary } from '@/lib/sim';
 import type { RunView } from '@/lib/view-types/runs';
 import type { SnapshotDiff } from '@/lib/runs/snapshot-diff';
 import { percentileCurve } from '@/lib/runs/outcome-data';
-import { finishDate } from '@/lib/runs/working-days';
+import { calendarOfRun, finishDate } from '@/lib/runs/working-days';
 import { formatChange, formatDate, formatDays, formatMoney, formatMoneyShort } from '@/lib/runs/format';
 import { TableHead, type HeadCell } from '@/components/ui/table';
 import { settingsText } from './settings-text';
@@ -81,8 +81,10 @@ export function CompareView({
 }) {
   const money = (v: number) => formatMoney(v, project.currency);
   const moneyShort = (v: number) => formatMoneyShort(v, project.currency);
-  const dateOf = (d: number) => formatDate(finishDate(project.baseDate, d));
   const [older, newer] = a.run.id < b.run.id ? [a, b] : [b, a];
+  // Both runs' days become dates on the newer run's calendar, so that one axis serves both.
+  const dateOf = (d: number) =>
+    formatDate(finishDate(project.baseDate, d, calendarOfRun(newer.run.settings)));
   const labels: [string, string] = [`Run ${older.run.id}`, `Run ${newer.run.id}`];
   const dA = older.result.duration;
   const dB = newer.result.duration;

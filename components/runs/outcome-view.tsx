@@ -10,7 +10,7 @@ import type { SimulationResult } from '@/lib/sim';
 import type { RunView } from '@/lib/view-types/runs';
 import type { SampleCharts } from '@/lib/runs/outcome-data';
 import { contingencyAt } from '@/lib/domain/contingency';
-import { finishDate } from '@/lib/runs/working-days';
+import { calendarOfRun, calendarText, finishDate } from '@/lib/runs/working-days';
 import {
   formatCount,
   formatDate,
@@ -81,7 +81,8 @@ export function OutcomeView({ project, run, result, charts, names }: OutcomeView
   const currency = project.currency;
   const money = (v: number) => formatMoney(v, currency);
   const moneyShort = (v: number) => formatMoneyShort(v, currency);
-  const dateOf = (days: number) => formatDate(finishDate(project.baseDate, days));
+  const calendar = calendarOfRun(run.settings);
+  const dateOf = (days: number) => formatDate(finishDate(project.baseDate, days, calendar));
   const nameOf = (id: string) => names[id] ?? '';
   const s = run.settings;
   const level = s.confidence;
@@ -210,7 +211,7 @@ export function OutcomeView({ project, run, result, charts, names }: OutcomeView
             }}
             charts={charts}
             reading={`80 % of simulated outcomes finish by ${dateOf(duration.percentiles.P80)} (${formatDays(duration.percentiles.P80)} from the base date).`}
-            note={`Working days Monday to Friday from the base date ${formatDate(project.baseDate)}. ${sampleNote}`}
+            note={`Working days ${calendarText(calendar)}, from the base date ${formatDate(project.baseDate)}. ${sampleNote}`}
           />
           <div className="rounded border border-rule bg-paper-raised p-3">
             <PercentileTable

@@ -88,6 +88,8 @@ export type RunSettings = {
   /** The finish target in working days from the project's base date (what the engine reads). */
   durationTarget: number | null;
   precision: { relativePercent: number; maxIterations: number } | null;
+  /** The organisation's calendar when the run started; runs stored before calendars have none (Monday to Friday). */
+  calendar?: { weekdays: number[]; holidays: string[] };
 };
 
 /** The settings form: every field present, as the inputs hold them. */

@@ -10,9 +10,10 @@ import { badRequest, conflict, forbidden, notFound } from '@/lib/errors';
 import { parseOrThrow } from '@/lib/validation/parse';
 import { MAX_SEED, runSettingsInputSchema, type RunSettings } from '@/lib/validation/runs';
 import { validateModel, type Model, type SimulationResult } from '@/lib/sim';
-import { workingDaysThrough } from '@/lib/runs/working-days';
+import { workingDaysThrough, type WorkCalendar } from '@/lib/runs/working-days';
 import { snapshotHash } from '@/lib/runs/snapshot-hash';
 import { recordAudit } from '../audit';
+import { calendarForDates } from '../calendar';
 import { exportModelFile } from '../model-file';
 import { findProject } from '../projects';
 import { assertWritable } from '../write-access';
@@ -74,8 +75,12 @@ async function viewOf(run: SimulationRun): Promise<RunView> {
   return toRunView(run, positions.get(run.id) ?? null);
 }
 
-/** The settings as stored: the seed drawn when none was given, the finish target in working days. */
-function resolveSettings(input: unknown, baseDate: string): RunSettings {
+/**
+ * The settings as stored: the seed drawn when none was given, the finish target in working days
+ * of the organisation's calendar, and that calendar from the base date on (so that the run's dates
+ * stay what they were when the calendar changes later).
+ */
+function resolveSettings(input: unknown, baseDate: string, calendar: WorkCalendar): RunSettings {
   const data = parseOrThrow(runSettingsInputSchema, input ?? {});
   if (data.finishTarget && data.finishTarget < baseDate) {
     throw badRequest(`finishTarget: the finish target must be on or after the base date ${baseDate}.`, [
@@ -90,8 +95,9 @@ function resolveSettings(input: unknown, baseDate: string): RunSettings {
     confidence: data.confidence,
     costTarget: data.costTarget ?? null,
     finishTarget: data.finishTarget ?? null,
-    durationTarget: data.finishTarget ? workingDaysThrough(baseDate, data.finishTarget) : null,
+    durationTarget: data.finishTarget ? workingDaysThrough(baseDate, data.finishTarget, calendar) : null,
     precision: data.precision ?? null,
+    calendar: { weekdays: [...calendar.weekdays], holidays: calendar.holidays.filter((d) => d >= baseDate) },
   };
 }
 
@@ -115,7 +121,7 @@ export async function startRun(
 ): Promise<RunView & { notices: string[] }> {
   assertMay(actor, 'run:start');
   const project = await findProject(actor, projectId);
-  const settings = resolveSettings(input, project.baseDate);
+  const settings = resolveSettings(input, project.baseDate, await calendarForDates(actor.organizationId));
   await assertWritable(actor.organizationId);
   const { model, notices } = await exportModelFile(actor, project.id, { riskValues: settings.riskValues });
   if (model.items.length === 0 && (model.risks ?? []).length === 0 && (model.activities ?? []).length === 0) {
