@@ -102,6 +102,11 @@ export function DriverAppliesPanel({ row, targets, readOnly, onChange }: Props) 
         <p className="truncate text-ink-soft">
           {String(row.code ?? '')} {String(row.name ?? '')}
         </p>
+        {row.standsFor ? (
+          <p className="mt-1 line-clamp-3 text-xs text-ink-soft" title={String(row.standsFor)}>
+            {String(row.standsFor)}
+          </p>
+        ) : null}
       </div>
       <TextInput
         type="search"

@@ -17,11 +17,15 @@ import {
   type FactorEntry,
 } from '@/lib/registers/driver-factor';
 import { DRIVER_FACTOR_TYPES } from '@/lib/validation/registers';
+import { distColumns } from './dist-columns';
 import { DriverAppliesPanel, type Target } from './driver-applies-panel';
 import { RegisterTab, type RegisterTabProps } from './register-tab';
 import { duplicateCodeIssue, useRegisterPage, useSavedRows } from './use-register-page';
 
 const FACTOR_FIELDS = ['low', 'mode', 'high'] as const;
+
+/** Whether low and high are bounds or P10 and P90: the column every distribution uses. */
+const RANGE_COLUMN = distColumns().find((c) => c.field === 'range')!;
 
 const entryOf = (row: Record<string, unknown>): FactorEntry => (row.entry === 'factor' ? 'factor' : 'change');
 
@@ -44,7 +48,9 @@ const showFactor = (v: unknown, row: GridRow) =>
       ? String(v)
       : '';
 
-const rangeOf = (row: GridRow) => FACTOR_FIELDS.map((f) => row[f] as number | null);
+/** The range's ends (the value alone for a fixed factor), for the two range columns. */
+const rangeOf = (row: GridRow) =>
+  (row.distType === 'fixed' ? ['mode'] : ['low', 'high']).map((f) => row[f] as number | null);
 
 export function DriversGrid({ projectId, readOnly }: RegisterTabProps) {
   const items = useSavedRows(projectId, 'items');
@@ -118,25 +124,30 @@ export function DriversGrid({ projectId, readOnly }: RegisterTabProps) {
       { field: 'name', header: 'Driver', kind: 'text', width: 180, pinned: 'left' },
       { field: 'probability', header: 'Probability', kind: 'percent', width: 96 },
       {
+        field: 'applies',
+        header: 'Applies to',
+        kind: 'text',
+        width: 170,
+        format: (v) => splitApplies(v).join(', '),
+        headerTooltip:
+          'Codes of line items and activities, and WBS branches: 3.* (or "all of 3.x") is 3 and every line below it',
+      },
+      {
+        field: '_covers',
+        header: 'Covers now',
+        kind: 'computed',
+        width: 150,
+        value: (r) =>
+          loaded ? describeResolution(resolveApplies(splitApplies(r.applies), targets).codes, targets) : '',
+      },
+      {
         field: 'distType',
         header: 'Distribution',
         kind: 'choice',
         width: 106,
         options: DRIVER_FACTOR_TYPES.map((t) => ({ value: t, label: DIST_LABELS[t] })),
       },
-      {
-        field: 'range',
-        header: 'Low/high are',
-        kind: 'choice',
-        width: 100,
-        options: [
-          { value: 'min-max', label: 'Min–max' },
-          { value: 'p10-p90', label: 'P10–P90' },
-        ],
-        applies: (r) => r.distType === 'triangular' || r.distType === 'pert',
-        headerTooltip:
-          'Min–max: the range cannot be passed. P10–P90: one outcome in ten lies beyond each end.',
-      },
+      RANGE_COLUMN,
       {
         field: 'entry',
         header: 'Entered as',
@@ -161,7 +172,7 @@ export function DriversGrid({ projectId, readOnly }: RegisterTabProps) {
         field: '_change',
         header: 'Range as change',
         kind: 'computed',
-        width: 130,
+        width: 126,
         value: (r) => formatRange(rangeOf(r), 'change'),
       },
       {
@@ -170,23 +181,6 @@ export function DriversGrid({ projectId, readOnly }: RegisterTabProps) {
         kind: 'computed',
         width: 120,
         value: (r) => formatRange(rangeOf(r), 'factor'),
-      },
-      {
-        field: 'applies',
-        header: 'Applies to',
-        kind: 'text',
-        width: 170,
-        format: (v) => splitApplies(v).join(', '),
-        headerTooltip:
-          'Codes of line items and activities, and WBS branches: 3.* (or "all of 3.x") is 3 and every line below it',
-      },
-      {
-        field: '_covers',
-        header: 'Covers now',
-        kind: 'computed',
-        width: 150,
-        value: (r) =>
-          loaded ? describeResolution(resolveApplies(splitApplies(r.applies), targets).codes, targets) : '',
       },
       { field: 'standsFor', header: 'What it stands for', kind: 'text', width: 260 },
     ],

@@ -71,14 +71,14 @@ export function resolveApplies(
   return { codes: all.filter((c) => wanted.has(c)), problems };
 }
 
-/** "12 line items, 2 activities". */
+/** "12 lines, 2 activities" (short enough for a grid cell). */
 export function describeResolution(codes: readonly string[], targets: AppliesTargets): string {
   const items = new Set(targets.items);
   const nItems = codes.filter((c) => items.has(c)).length;
   const nActs = codes.length - nItems;
   const part = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
   const out = [];
-  if (nItems) out.push(part(nItems, 'line item', 'line items'));
+  if (nItems) out.push(part(nItems, 'line', 'lines'));
   if (nActs) out.push(part(nActs, 'activity', 'activities'));
   return out.length ? out.join(', ') : 'nothing';
 }

@@ -97,7 +97,7 @@ export async function exportModel(
 }
 
 /**
- * Creates or replaces the project's four registers from a model file, in one transaction:
+ * Creates or replaces the project's registers from a model file, in one transaction:
  * the file is checked with the engine's own schema first (messages name the entry), nothing is
  * written when it fails. The audit trail keeps the registers before and after.
  */

@@ -1,4 +1,4 @@
-// The rows of the four registers, one zod schema each, shared by the grids (checking a cell as
+// The rows of the registers, one zod schema each, shared by the grids (checking a cell as
 // it is typed) and the route handlers (checking what is saved). Distribution parameters are
 // checked by the engine's own factories (lib/registers/dist-fields.ts).
 

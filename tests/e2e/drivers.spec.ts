@@ -66,24 +66,30 @@ test('an estimator adds a driver over a WBS branch and starts a run that complet
   await drivers.typeInto(0, 'low', '-5');
   await drivers.typeInto(0, 'mode', '0');
   await drivers.typeInto(0, 'high', '25');
-  await expect(drivers.cell(0, '_change')).toHaveText('\u22125% \u2026 0% \u2026 +25%');
-  await expect(drivers.cell(0, '_factor')).toHaveText('0.95 \u2026 1.00 \u2026 1.25');
+  await drivers.reveal(0, '_factor');
+  await expect(drivers.cell(0, '_change')).toHaveText('\u22125% \u2026 +25%');
+  await expect(drivers.cell(0, '_factor')).toHaveText('0.95 \u2026 1.25');
   // Nothing to apply to yet: the row waits as a draft and says why.
+  await expect(page.getByTestId('register-notice')).toContainText('Not saved');
+  await drivers.reveal(0, 'applies');
   await expect(drivers.cell(0, 'applies')).toHaveClass(/cell-invalid/);
 
   await drivers.cell(0, 'name').click();
   await drivers.pick('3', 'All of 3\\.x');
   await drivers.pick('A1', 'A1');
   await drivers.waitSaved();
+  await drivers.reveal(0, 'applies');
   await expect(drivers.cell(0, 'applies')).toHaveText('3.*, A1');
-  await expect(drivers.cell(0, '_covers')).toHaveText('2 line items, 1 activity');
+  await expect(drivers.cell(0, '_covers')).toHaveText('2 lines, 1 activity');
   const covers = page.getByTestId('driver-covers');
   await expect(covers).toContainText('3.1');
   await expect(covers).toContainText('3.2');
   await expect(covers).not.toContainText('4.1');
 
   await page.reload();
+  await drivers.reveal(0, 'applies');
   await expect(drivers.cell(0, 'applies')).toHaveText('3.*, A1');
+  await drivers.reveal(0, 'high');
   await expect(drivers.cell(0, 'high')).toHaveText('+25%');
 
   const runs = new RunsPages(page);

@@ -66,6 +66,9 @@ const strip = (r: Record<string, unknown>) => {
   return rest;
 };
 
+/** A JSON column, as the driver hands it back (text or already parsed). */
+const parsed = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v);
+
 let client: Client;
 let projectId: number;
 const url = (path: string) => `/api/projects/${projectId}${path}`;
@@ -90,12 +93,12 @@ describe('the drivers register', () => {
       entry: 'change',
       applies: ['3.*', 'A1'],
     });
-    const [stored] = await rows<{ applies: string; factor: string }>(
+    const [stored] = await rows<{ applies: unknown; factor: unknown }>(
       'SELECT applies, factor FROM RiskDrivers WHERE projectId = ?',
       [projectId],
     );
-    expect(JSON.parse(String(stored.applies))).toEqual(['3.*', 'A1']);
-    expect(JSON.parse(String(stored.factor))).toEqual({ type: 'triangular', low: 0.95, mode: 1, high: 1.2 });
+    expect(parsed(stored.applies)).toEqual(['3.*', 'A1']);
+    expect(parsed(stored.factor)).toEqual({ type: 'triangular', low: 0.95, mode: 1, high: 1.2 });
   });
 
   it('refuses a factor that can go below zero, unknown codes and codes of other registers, naming each, and writes nothing', async () => {
@@ -251,7 +254,7 @@ describe('the drivers register', () => {
     const [stored] = await rows<{ result: string }>('SELECT result FROM SimulationRuns WHERE id = ?', [
       started.json.run.id,
     ]);
-    const result = typeof stored.result === 'string' ? JSON.parse(stored.result) : stored.result;
+    const result = parsed(stored.result);
     expect(result.sensitivity.cost.find((s: { id: string }) => s.id === 'D1')).toMatchObject({
       kind: 'driver',
     });

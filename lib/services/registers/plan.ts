@@ -1,5 +1,5 @@
 import 'server-only';
-// Deciding what one batch of one register writes, without a database. In: the four registers
+// Deciding what one batch of one register writes, without a database. In: the registers
 // as read under the project's lock, and a parsed batch (upserts, deletes, a new order). Out:
 // a write plan (inserts, updates with the versions they expect, moves, deletes, the codes they
 // carry into other registers, and the audit entries), or why the batch is refused. The plan is

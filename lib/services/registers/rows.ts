@@ -1,5 +1,5 @@
 import 'server-only';
-// Records of the four register tables ↔ the flat rows the grids, files and API speak.
+// Records of the register tables ↔ the flat rows the grids, files and API speak.
 // Distributions are stored as the engine's DistSpec JSON; rows carry them as cells.
 
 import type { Activity, Correlation, CostItem, RiskDriver, RiskEvent } from '@/models';

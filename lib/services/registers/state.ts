@@ -1,5 +1,5 @@
 import 'server-only';
-// Everything a register write needs to check itself against: the four registers of one project.
+// Everything a register write needs to check itself against: the registers of one project.
 
 import type { Transaction } from 'sequelize';
 import { Activity, Correlation, CostItem, RiskDriver, RiskEvent } from '@/models';

@@ -17,6 +17,14 @@ export class DriversPage {
     return this.grid().locator(`.ag-grid-scrolling-rows .ag-row[row-index="${row}"] [col-id="${field}"]`);
   }
 
+  /** Moves the keyboard focus along the row from its name until the cell is rendered. */
+  async reveal(row: number, field: string) {
+    await this.cell(row, 'name').click();
+    for (let i = 0; i < 16 && !(await this.cell(row, field).isVisible()); i++)
+      await this.page.keyboard.press('ArrowRight');
+    await expect(this.cell(row, field)).toBeVisible();
+  }
+
   async typeInto(row: number, field: string, text: string) {
     await this.cell(row, field).dblclick();
     const editor = this.grid().locator('.ag-cell-inline-editing input');
