@@ -5,6 +5,7 @@
 // F⁻¹(p) = a + √(p(b − a)(c − a)) for p ≤ (c − a)/(b − a)).
 import { describe, expect, it } from 'vitest';
 import { registersToModel, type RegisterRecords } from '@/lib/domain/model-export';
+import { diffSnapshots } from '@/lib/runs/snapshot-diff';
 import { parseToken, resolveApplies } from '@/lib/registers/driver-applies';
 import { formatChange, formatRange, readFactor } from '@/lib/registers/driver-factor';
 import { validateModel } from '@/lib/sim';
@@ -160,5 +161,28 @@ describe('drivers in the model file', () => {
 
   it('stays a version 1 model when the project has no drivers', () => {
     expect(registersToModel({ ...records, drivers: [], correlations: [] }).model.version).toBe(1);
+  });
+});
+
+describe('drivers between two runs', () => {
+  it('shows a driver whose branch took in a new line as a changed driver, naming the list', () => {
+    const before = registersToModel(records).model;
+    const after = registersToModel({
+      ...records,
+      items: [
+        ...records.items,
+        { code: '3.3', description: 'Walls', base: 10, dist: null, ratePerDay: null, activityCode: null },
+      ],
+    }).model;
+    const drivers = diffSnapshots(before, after).lines.filter((l) => l.kind === 'driver');
+    expect(drivers).toEqual([
+      {
+        kind: 'driver',
+        id: 'D1',
+        name: 'Ground',
+        change: 'changed',
+        fields: [{ field: 'applies', before: ['3.1', '3.2', 'A1'], after: ['3.1', '3.2', '3.3', 'A1'] }],
+      },
+    ]);
   });
 });
