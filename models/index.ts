@@ -11,6 +11,7 @@ import { Activity } from './activity';
 import { CostItem } from './cost-item';
 import { RiskEvent } from './risk-event';
 import { Correlation } from './correlation';
+import { RiskDriver } from './risk-driver';
 import { SimulationRun } from './simulation-run';
 import { Subscription } from './subscription';
 import { Invoice } from './invoice';
@@ -50,6 +51,9 @@ Project.hasMany(CostItem, { foreignKey: 'projectId', as: 'costItems' });
 Project.hasMany(RiskEvent, { foreignKey: 'projectId', as: 'riskEvents' });
 Project.hasMany(Correlation, { foreignKey: 'projectId', as: 'correlations' });
 CostItem.belongsTo(Activity, { foreignKey: 'activityId', as: 'activity' });
+RiskDriver.belongsTo(Project, { foreignKey: 'projectId', as: 'project' });
+RiskDriver.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
+Project.hasMany(RiskDriver, { foreignKey: 'projectId', as: 'riskDrivers' });
 RiskEvent.belongsTo(Activity, { foreignKey: 'activityId', as: 'activity' });
 
 OutboundMessage.belongsTo(User, { foreignKey: 'userId', as: 'user' });
@@ -85,6 +89,7 @@ export {
   CostItem,
   RiskEvent,
   Correlation,
+  RiskDriver,
   sequelize,
   Organization,
   User,

@@ -6,6 +6,7 @@ import { usePathname } from 'next/navigation';
 const TABS = [
   { href: 'items', label: 'Line items' },
   { href: 'risks', label: 'Risk events' },
+  { href: 'drivers', label: 'Drivers' },
   { href: 'schedule', label: 'Schedule' },
   { href: 'correlations', label: 'Correlations' },
   { href: 'runs', label: 'Runs' },

@@ -1,6 +1,6 @@
 'use client';
-// Correlations: pairs of inputs (searchable lists of the project's line items, risks and
-// activities) with a coefficient; the engine's validity check runs on every change and shows
+// Correlations: pairs of inputs (searchable lists of the project's line items, risks,
+// activities and drivers) with a coefficient; the engine's validity check runs on every change and shows
 // the coefficients it would use when the set is not a valid correlation matrix.
 import { useMemo, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
@@ -25,13 +25,14 @@ import { TableHead } from '@/components/ui/table';
 type Input = { code: string; label: string; group: string };
 
 function useInputs(projectId: number): Input[] {
-  const fetch = (kind: 'items' | 'risks' | 'activities') => ({
+  const fetch = (kind: 'items' | 'risks' | 'activities' | 'drivers') => ({
     queryKey: registerQueryKey(projectId, kind),
     queryFn: async () => (await callApi<{ rows: SavedRow[] }>(`/api/projects/${projectId}/${kind}`)).rows,
   });
   const items = useQuery(fetch('items'));
   const risks = useQuery(fetch('risks'));
   const activities = useQuery(fetch('activities'));
+  const drivers = useQuery(fetch('drivers'));
   return useMemo(
     () => [
       ...(items.data ?? []).map((r) => ({
@@ -45,8 +46,9 @@ function useInputs(projectId: number): Input[] {
         label: String(r.name),
         group: 'Activity',
       })),
+      ...(drivers.data ?? []).map((r) => ({ code: String(r.code), label: String(r.name), group: 'Driver' })),
     ],
-    [items.data, risks.data, activities.data],
+    [items.data, risks.data, activities.data, drivers.data],
   );
 }
 

@@ -120,7 +120,7 @@ export function ImportDialog({
       if (result.imported) {
         const i = result.imported;
         setDone(
-          `Model imported: ${i.items} line items, ${i.risks} risks, ${i.activities} activities, ${i.correlations} correlations.`,
+          `Model imported: ${i.items} line items, ${i.risks} risks, ${i.activities} activities, ${i.drivers ?? 0} drivers, ${i.correlations} correlations.`,
         );
       } else {
         setDone(
@@ -180,7 +180,8 @@ export function ImportDialog({
         {done ? <Notice tone="success">{done}</Notice> : null}
         {file && file.name.toLowerCase().endsWith('.json') && !done ? (
           <Notice tone="caution">
-            A model file replaces every register of the project (line items, risks, schedule, correlations).
+            A model file replaces every register of the project (line items, risks, schedule, drivers,
+            correlations).
           </Notice>
         ) : null}
         {preview?.map((s) => (

@@ -45,6 +45,13 @@ const TABS: Partial<Record<RegisterKind, TabWords>> = {
     plural: 'activities',
     firstCode: 'A1',
   },
+  drivers: {
+    label: 'Drivers',
+    subject: 'The drivers',
+    noun: 'driver',
+    firstCode: 'D1',
+    empty: 'No drivers yet.',
+  },
 };
 
 type Props = {

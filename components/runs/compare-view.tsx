@@ -22,6 +22,7 @@ const KIND_LABEL = {
   item: 'Line item',
   risk: 'Risk event',
   activity: 'Activity',
+  driver: 'Driver',
   correlation: 'Correlation',
 };
 

@@ -109,7 +109,7 @@ function totalBrief(summary: TotalSummary): TotalBrief {
 /** The names of the model's inputs by id, for the tornado's labels. */
 function inputNames(model: Model): Map<string, string> {
   const names = new Map<string, string>();
-  for (const list of [model.items, model.risks ?? [], model.activities ?? []])
+  for (const list of [model.items, model.risks ?? [], model.activities ?? [], model.drivers ?? []])
     for (const e of list) names.set(e.id, e.name ? `${e.id} ${e.name}` : e.id);
   return names;
 }

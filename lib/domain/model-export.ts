@@ -8,9 +8,21 @@
  * - with `riskValues: 'post'` a risk uses its post-mitigation probability and impacts where given;
  * - a correlation is kept only when both its inputs are in the model: one that names a closed
  *   risk (or any code the model does not hold) is left out with a notice, since the engine
- *   refuses a correlation of an unknown input and no run could start.
+ *   refuses a correlation of an unknown input and no run could start;
+ * - a risk driver's codes and WBS branches ("3.*") are resolved to the line items and activities
+ *   they cover now; codes that cover nothing are left out with a notice, and so is a driver that
+ *   covers nothing at all. A model with drivers is a version 2 model.
  */
-import type { DistSpec, Model, ModelActivity, ModelCorrelation, ModelItem, ModelRisk } from '@/lib/sim';
+import { resolveApplies } from '@/lib/registers/driver-applies';
+import type {
+  DistSpec,
+  Model,
+  ModelActivity,
+  ModelCorrelation,
+  ModelDriver,
+  ModelItem,
+  ModelRisk,
+} from '@/lib/sim';
 
 export type RiskValues = 'pre' | 'post';
 
@@ -46,12 +58,23 @@ export type ActivityRecord = {
 
 export type CorrelationRecord = { aCode: string; bCode: string; rho: number };
 
+export type DriverRecord = {
+  code: string;
+  name: string;
+  probability: number;
+  factor: DistSpec;
+  /** Codes and WBS branches as the estimator typed them. */
+  applies: readonly string[];
+};
+
 export type RegisterRecords = {
   project: { name: string; currency: string };
   items: readonly ItemRecord[];
   risks: readonly RiskRecord[];
   activities: readonly ActivityRecord[];
   correlations: readonly CorrelationRecord[];
+  /** Absent in records read before the drivers register existed. */
+  drivers?: readonly DriverRecord[];
 };
 
 export type ModelExport = {
@@ -93,7 +116,30 @@ function riskOf(r: RiskRecord, post: boolean): ModelRisk {
 
 /** Why a correlation's input is not in the model. */
 function missingReason(code: string, closed: ReadonlySet<string>): string {
-  return closed.has(code) ? `risk ${code} is closed` : `no line item, risk or activity has the code ${code}`;
+  return closed.has(code)
+    ? `risk ${code} is closed`
+    : `no line item, risk, activity or driver has the code ${code}`;
+}
+
+/** The drivers with what they cover now; notices for what covers nothing. */
+function driversOf(records: RegisterRecords, notices: string[]): ModelDriver[] {
+  const targets = {
+    items: records.items.map((i) => i.code),
+    activities: records.activities.map((a) => a.code),
+  };
+  const out: ModelDriver[] = [];
+  for (const d of records.drivers ?? []) {
+    const { codes, problems } = resolveApplies(d.applies, targets);
+    if (codes.length === 0) {
+      notices.push(`The driver ${d.code} is left out of the model: it applies to no line item or activity.`);
+      continue;
+    }
+    for (const p of problems) notices.push(`The driver ${d.code} skips ${p.token}: ${p.message}`);
+    const driver: ModelDriver = { id: d.code, name: d.name, factor: d.factor, applies: codes };
+    if (d.probability !== 1) driver.probability = d.probability;
+    out.push(driver);
+  }
+  return out;
 }
 
 export function registersToModel(
@@ -105,10 +151,11 @@ export function registersToModel(
   const openRisks = records.risks.filter((r) => r.status !== 'closed');
   const risks = openRisks.map((r) => riskOf(r, post));
   const activities = records.activities.map(activityOf);
-
-  const inModel = new Set([...items, ...risks, ...activities].map((e) => e.id));
-  const closed = new Set(records.risks.filter((r) => r.status === 'closed').map((r) => r.code));
   const notices: string[] = [];
+  const drivers = driversOf(records, notices);
+
+  const inModel = new Set([...items, ...risks, ...activities, ...drivers].map((e) => e.id));
+  const closed = new Set(records.risks.filter((r) => r.status === 'closed').map((r) => r.code));
   const correlations: ModelCorrelation[] = [];
   for (const c of records.correlations) {
     const missing = [c.aCode, c.bCode].filter((code) => !inModel.has(code));
@@ -132,5 +179,6 @@ export function registersToModel(
     activities,
     correlations,
   };
+  if (drivers.length) Object.assign(model, { version: 2, drivers });
   return { model, notices };
 }

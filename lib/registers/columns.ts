@@ -6,7 +6,7 @@ import type { RegisterKind } from '@/lib/validation/registers';
 import { formatPredecessors, parsePredecessors, type PredecessorLink } from './predecessors';
 import { readNumber, readProbability } from './numbers';
 
-export type ColumnKind = 'text' | 'number' | 'percent' | 'choice' | 'predecessors';
+export type ColumnKind = 'text' | 'number' | 'percent' | 'choice' | 'predecessors' | 'list';
 
 export type FileColumn = { field: string; header: string; kind: ColumnKind; aliases?: string[] };
 
@@ -77,6 +77,20 @@ export const FILE_COLUMNS: Record<RegisterKind, FileColumn[]> = {
     c('bCode', 'Input B', 'text', ['b', 'second']),
     c('rho', 'Coefficient', 'number', ['rho', 'correlation', 'r']),
   ],
+  // Factor cells hold factors (0.95); text such as "-5%" is read as a percentage change.
+  drivers: [
+    c('code', 'Code', 'text', ['id', 'driver', 'driver id']),
+    c('name', 'Name', 'text', ['driver name', 'title']),
+    c('standsFor', 'Stands for', 'text', ['description', 'what it stands for', 'meaning']),
+    c('probability', 'Probability', 'percent', ['likelihood', 'p']),
+    c('distType', 'Distribution', 'choice', ['dist', 'type']),
+    c('range', 'Range', 'choice', ['low/high are']),
+    c('entry', 'Entered as', 'choice', ['entry']),
+    c('low', 'Factor low', 'text', ['low', 'min', 'p10']),
+    c('mode', 'Factor most likely', 'text', ['most likely', 'mode', 'ml', 'value']),
+    c('high', 'Factor high', 'text', ['high', 'max', 'p90']),
+    c('applies', 'Applies to', 'list', ['applies', 'scope', 'items and activities']),
+  ],
 };
 
 export const SHEET_NAMES: Record<RegisterKind, string> = {
@@ -84,6 +98,7 @@ export const SHEET_NAMES: Record<RegisterKind, string> = {
   risks: 'Risk events',
   activities: 'Schedule',
   correlations: 'Correlations',
+  drivers: 'Drivers',
 };
 
 const norm = (s: string) => s.toLowerCase().replace(/[^a-z0-9]/g, '');
@@ -114,6 +129,7 @@ const CHOICES: Record<string, Record<string, string>> = {
     rate: 'per-day',
   },
   range: { minmax: 'min-max', absolute: 'min-max', p10p90: 'p10-p90' },
+  entry: { change: 'change', percent: 'change', percentagechange: 'change', factor: 'factor' },
 };
 
 /** A cell as the row schema wants it (numbers as numbers, choices normalised, empty as null). */
@@ -143,6 +159,7 @@ export function readCell(col: FileColumn, raw: unknown): unknown {
 export function writeCell(col: FileColumn, value: unknown): string | number | null {
   if (value === null || value === undefined) return null;
   if (col.kind === 'predecessors') return formatPredecessors(value as PredecessorLink[]);
+  if (col.kind === 'list' && Array.isArray(value)) return value.join(', ');
   if (typeof value === 'number') return value;
   return String(value);
 }

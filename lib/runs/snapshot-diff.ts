@@ -7,7 +7,7 @@
 import type { Model } from '@/lib/sim';
 import { canonicalJson } from './canonical-json';
 
-export type LineKind = 'item' | 'risk' | 'activity' | 'correlation';
+export type LineKind = 'item' | 'risk' | 'activity' | 'driver' | 'correlation';
 
 export type LineChange = {
   kind: LineKind;
@@ -34,6 +34,8 @@ function linesOf(model: Model, kind: LineKind): Line[] {
       return (model.risks ?? []) as unknown as Line[];
     case 'activity':
       return (model.activities ?? []) as unknown as Line[];
+    case 'driver':
+      return (model.drivers ?? []) as unknown as Line[];
     case 'correlation':
       // A pair is the same pair whichever way round it is written.
       return (model.correlations ?? []).map((c) => ({ id: [c.a, c.b].sort().join(' ↔ '), rho: c.rho }));
@@ -53,7 +55,7 @@ function fieldChanges(before: Record<string, unknown>, after: Record<string, unk
 
 export function diffSnapshots(before: Model, after: Model): SnapshotDiff {
   const lines: LineChange[] = [];
-  for (const kind of ['item', 'risk', 'activity', 'correlation'] as const) {
+  for (const kind of ['item', 'risk', 'activity', 'driver', 'correlation'] as const) {
     const old = new Map(linesOf(before, kind).map((l) => [l.id, l]));
     const now = new Map(linesOf(after, kind).map((l) => [l.id, l]));
     for (const [id, line] of now) {

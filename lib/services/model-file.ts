@@ -1,5 +1,5 @@
 import 'server-only';
-import { Activity, CostItem, Correlation, Project, RiskEvent, sequelize } from '@/models';
+import { Activity, CostItem, Correlation, Project, RiskDriver, RiskEvent, sequelize } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
 import { badRequest, forbidden } from '@/lib/errors';
@@ -26,11 +26,12 @@ async function loadRecords(actor: Actor, projectId: number): Promise<RegisterRec
     ['sortOrder', 'ASC'],
     ['id', 'ASC'],
   ];
-  const [activities, items, risks, correlations] = await Promise.all([
+  const [activities, items, risks, correlations, drivers] = await Promise.all([
     Activity.findAll({ where, order }),
     CostItem.findAll({ where, order }),
     RiskEvent.findAll({ where, order }),
     Correlation.findAll({ where, order: [['id', 'ASC']] }),
+    RiskDriver.findAll({ where, order }),
   ]);
   const codeOf = new Map(activities.map((a) => [a.id, a.code]));
   const activityCode = (id: number | null | undefined) => (id ? (codeOf.get(id) ?? null) : null);
@@ -63,6 +64,13 @@ async function loadRecords(actor: Actor, projectId: number): Promise<RegisterRec
       activityCode: activityCode(r.activityId),
     })),
     correlations: correlations.map((c) => ({ aCode: c.aCode, bCode: c.bCode, rho: c.rho })),
+    drivers: drivers.map((d) => ({
+      code: d.code,
+      name: d.name,
+      probability: d.probability,
+      factor: json(d.factor),
+      applies: json(d.applies),
+    })),
   };
 }
 
@@ -89,7 +97,7 @@ export async function exportModel(
 }
 
 /**
- * Creates or replaces the project's four registers from a model file, in one transaction:
+ * Creates or replaces the project's registers from a model file, in one transaction:
  * the file is checked with the engine's own schema first (messages name the entry), nothing is
  * written when it fails. The audit trail keeps the registers before and after.
  */
@@ -97,7 +105,7 @@ export async function importModel(
   actor: Actor,
   projectId: number,
   input: unknown,
-): Promise<{ items: number; risks: number; activities: number; correlations: number }> {
+): Promise<{ items: number; risks: number; activities: number; correlations: number; drivers: number }> {
   if (!can(actor.role, 'project:write')) throw forbidden();
   const refuse = (issues: { path: string; message: string }[]) =>
     badRequest(
@@ -122,7 +130,7 @@ export async function importModel(
   const scope = { projectId: project.id, organizationId: actor.organizationId };
   return sequelize.transaction(async (transaction) => {
     await Project.findOne({ where: { id: project.id }, lock: transaction.LOCK.UPDATE, transaction });
-    for (const model of [Correlation, RiskEvent, CostItem, Activity] as const) {
+    for (const model of [Correlation, RiskDriver, RiskEvent, CostItem, Activity] as const) {
       await (model as typeof Correlation).destroy({ where: scope, transaction });
     }
     // What every imported row shares: its scope, its code (the input's id), its place, version 1.
@@ -172,6 +180,18 @@ export async function importModel(
       })),
       { transaction },
     );
+    // A driver's list comes back as the codes it covered when the file was written.
+    await RiskDriver.bulkCreate(
+      placed(model.drivers ?? [], (d) => ({
+        name: d.name || d.id,
+        standsFor: null,
+        probability: d.probability ?? 1,
+        factor: d.factor,
+        entry: 'factor' as const,
+        applies: d.applies,
+      })),
+      { transaction },
+    );
     const correlations = model.correlations ?? [];
     await Correlation.bulkCreate(
       correlations.map((c) => ({ ...scope, aCode: c.a, bCode: c.b, rho: c.rho, version: 1 })),
@@ -194,6 +214,7 @@ export async function importModel(
       risks: model.risks?.length ?? 0,
       activities: model.activities?.length ?? 0,
       correlations: correlations.length,
+      drivers: model.drivers?.length ?? 0,
     };
   });
 }

@@ -6,7 +6,7 @@ import 'server-only';
 
 import type { FieldIssue } from '@/lib/errors';
 import { partsFromSpec } from '@/lib/registers/dist-fields';
-import type { DistSpec, Model, ModelActivity, ModelItem, ModelRisk } from '@/lib/sim';
+import type { DistSpec, Model, ModelActivity, ModelDriver, ModelItem, ModelRisk } from '@/lib/sim';
 import { parseRows, type RegisterKind } from '@/lib/validation/registers';
 import { MAX_FILE_ROWS } from './registers/files';
 
@@ -16,6 +16,7 @@ const REGISTERS = {
   risks: 'risks',
   activities: 'activities',
   correlations: 'correlations',
+  drivers: 'drivers',
 } as const;
 
 /** Entries beyond the row limit, checked on the raw input before the (costly) full validation. */
@@ -96,6 +97,18 @@ function activityRow(activity: ModelActivity) {
   };
 }
 
+function driverRow(driver: ModelDriver) {
+  const { mean: _mean, sd: _sd, ...factor } = cells(driver.factor);
+  return {
+    code: driver.id,
+    name: driver.name || driver.id,
+    probability: driver.probability ?? 1,
+    entry: 'factor',
+    ...factor,
+    applies: driver.applies,
+  };
+}
+
 /** Issues of every entry that breaks a register rule, e.g. "items[3] (C4), code: Use letters…". */
 export function registerRuleIssues(model: Model): FieldIssue[] {
   const registers: [keyof typeof REGISTERS, unknown[]][] = [
@@ -103,6 +116,7 @@ export function registerRuleIssues(model: Model): FieldIssue[] {
     ['risks', (model.risks ?? []).map(riskRow)],
     ['activities', (model.activities ?? []).map(activityRow)],
     ['correlations', (model.correlations ?? []).map((c) => ({ aCode: c.a, bCode: c.b, rho: c.rho }))],
+    ['drivers', (model.drivers ?? []).map(driverRow)],
   ];
   return registers.flatMap(([key, rows]) => {
     const entries = (model[key] ?? []) as { id?: string; a?: string; b?: string }[];

@@ -1,4 +1,4 @@
-// The rows of the four registers, one zod schema each, shared by the grids (checking a cell as
+// The rows of the registers, one zod schema each, shared by the grids (checking a cell as
 // it is typed) and the route handlers (checking what is saved). Distribution parameters are
 // checked by the engine's own factories (lib/registers/dist-fields.ts).
 
@@ -11,8 +11,10 @@ import {
   type DistType,
 } from '@/lib/registers/dist-fields';
 import type { FieldIssue } from '@/lib/errors';
+import { splitApplies } from '@/lib/registers/driver-applies';
+import { FACTOR_ENTRIES, factorBelowZero, readFactor } from '@/lib/registers/driver-factor';
 
-export const REGISTER_KINDS = ['items', 'risks', 'activities', 'correlations'] as const;
+export const REGISTER_KINDS = ['items', 'risks', 'activities', 'correlations', 'drivers'] as const;
 export type RegisterKind = (typeof REGISTER_KINDS)[number];
 
 export const RISK_STATUSES = ['open', 'mitigating', 'closed', 'occurred'] as const;
@@ -339,11 +341,92 @@ export const correlationSchema = z.object(correlationShape).superRefine((row, ct
 export type CorrelationInput = z.input<typeof correlationSchema>;
 export type CorrelationData = z.output<typeof correlationSchema>;
 
+// ---- Risk drivers ----
+
+export const DRIVER_FACTOR_TYPES = ['fixed', 'uniform', 'triangular', 'pert', 'lognormal'] as const;
+/** The most a factor may say: ten times the sampled value is far past any market or ground. */
+export const MAX_FACTOR = 10;
+
+/** A factor cell: a number, or text such as "0.95" or "−5%" (files and pasted cells). */
+const factorCell = (label: string) =>
+  z.preprocess(
+    (v) => readFactor(v, 'factor'),
+    z
+      .number({
+        error: (iss) =>
+          `${label} must be a factor such as 0.95 or a change such as −5% (got ${describe(iss.input)}).`,
+      })
+      .refine(Number.isFinite, { message: `${label} must be a finite number.` })
+      .refine((v) => v <= MAX_FACTOR, { message: `${label} cannot be above a factor of ${MAX_FACTOR}.` })
+      .nullable()
+      .optional()
+      .transform((v) => v ?? null),
+  );
+
+const appliesSchema = z.preprocess(
+  splitApplies,
+  z
+    .array(z.string().max(60, { message: 'Keep each code or branch under 60 characters.' }))
+    .min(1, {
+      message: 'Say what the driver applies to: line item or activity codes, or a WBS branch such as 3.*.',
+    })
+    .max(500, { message: 'List at most 500 codes or branches; use a branch such as 3.* for many lines.' }),
+);
+
+const driverShape = {
+  code: codeSchema,
+  name: requiredText('name', 255),
+  standsFor: optText(4000, 'What it stands for'),
+  probability: probability('Probability')
+    .nullable()
+    .optional()
+    .transform((v) => v ?? 1),
+  distType: z
+    .enum(DRIVER_FACTOR_TYPES, { message: `Choose a distribution: ${DRIVER_FACTOR_TYPES.join(', ')}.` })
+    .default('triangular'),
+  range: lineItemShape.range,
+  entry: z
+    .enum(FACTOR_ENTRIES, { message: 'Entered as is "change" (percent) or "factor".' })
+    .default('change'),
+  low: factorCell('Low'),
+  mode: factorCell('Most likely'),
+  high: factorCell('High'),
+  applies: appliesSchema,
+};
+
+type DriverShape = z.infer<z.ZodObject<typeof driverShape>>;
+
+function refineDriver(row: DriverShape, ctx: Ctx) {
+  const result = specFromParts({ ...row, type: row.distType });
+  if (!result.ok) {
+    for (const issue of result.issues)
+      ctx.addIssue({
+        code: 'custom',
+        path: [issue.part === 'type' ? 'distType' : issue.part],
+        message: issue.message,
+      });
+    return;
+  }
+  const below = factorBelowZero(result.spec);
+  if (below) ctx.addIssue({ code: 'custom', path: ['low'], message: below });
+  const seen = new Set<string>();
+  for (const token of row.applies) {
+    if (seen.has(token))
+      ctx.addIssue({ code: 'custom', path: ['applies'], message: `${token} is listed twice.` });
+    seen.add(token);
+  }
+}
+
+export const driverSchema = z.object(driverShape).superRefine(refineDriver);
+export type DriverInput = z.input<typeof driverSchema>;
+export type DriverData = z.output<typeof driverSchema>;
+
 export const ROW_SCHEMAS = {
   items: lineItemSchema,
   risks: riskSchema,
   activities: activitySchema,
   correlations: correlationSchema,
+  drivers: driverSchema,
 } as const;
 
 export type RegisterData = {
@@ -351,6 +434,7 @@ export type RegisterData = {
   risks: RiskData;
   activities: ActivityData;
   correlations: CorrelationData;
+  drivers: DriverData;
 };
 
 // ---- Saving ----

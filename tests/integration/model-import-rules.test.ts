@@ -100,6 +100,6 @@ describe('a model file import applies the register rules', () => {
       ],
     });
     expect(res.status).toBe(200);
-    expect(res.json.imported).toEqual({ items: 2, risks: 1, activities: 1, correlations: 0 });
+    expect(res.json.imported).toEqual({ items: 2, risks: 1, activities: 1, correlations: 0, drivers: 0 });
   });
 });

@@ -1,6 +1,7 @@
 import { describe, expect, it, beforeAll } from 'vitest';
 import ExcelJS from 'exceljs';
-import { APP_URL, newOrganisation, type Client } from './helpers/http';
+import { newOrganisation, type Client } from './helpers/http';
+import { download, upload } from './helpers/files';
 import { count } from './helpers/db';
 
 const projectInput = (code: string) => ({
@@ -11,40 +12,6 @@ const projectInput = (code: string) => ({
   stage: 'Feasibility',
   baseDate: '2027-01-04',
 });
-
-/** Multipart upload with the client's session (the JSON client cannot send files). */
-async function upload(
-  client: Client,
-  path: string,
-  file: { name: string; data: Uint8Array | string },
-  fields: Record<string, string>,
-) {
-  const form = new FormData();
-  form.set('file', new Blob([file.data as BlobPart]), file.name);
-  for (const [k, v] of Object.entries(fields)) form.set(k, v);
-  const cookies = (client as any).cookies as Map<string, string>;
-  const res = await fetch(APP_URL + path, {
-    method: 'POST',
-    body: form,
-    headers: { cookie: [...cookies].map(([k, v]) => `${k}=${v}`).join('; ') },
-  });
-  const text = await res.text();
-  let json: any = null;
-  try {
-    json = JSON.parse(text);
-  } catch {
-    json = null;
-  }
-  return { status: res.status, json, text };
-}
-
-async function download(client: Client, path: string) {
-  const cookies = (client as any).cookies as Map<string, string>;
-  const res = await fetch(APP_URL + path, {
-    headers: { cookie: [...cookies].map(([k, v]) => `${k}=${v}`).join('; ') },
-  });
-  return { status: res.status, bytes: new Uint8Array(await res.arrayBuffer()), headers: res.headers };
-}
 
 const model = {
   format: 'outturn-model',
@@ -115,7 +82,13 @@ describe('import and export', () => {
       body: model,
     });
     expect(imported.status).toBe(200);
-    expect(imported.json.imported).toEqual({ items: 6, risks: 1, activities: 2, correlations: 1 });
+    expect(imported.json.imported).toEqual({
+      items: 6,
+      risks: 1,
+      activities: 2,
+      correlations: 1,
+      drivers: 0,
+    });
     const exported = await client.get(`/api/projects/${projectId}/export?format=model`);
     expect(exported.status).toBe(200);
     expect(exported.headers.get('content-disposition')).toContain('FIL-1-model.json');
@@ -158,6 +131,7 @@ describe('import and export', () => {
       'Risk events',
       'Schedule',
       'Correlations',
+      'Drivers',
     ]);
     expect(wb.getWorksheet('Schedule')!.getRow(3).getCell(10).value).toBe('A1+5');
 
@@ -174,6 +148,7 @@ describe('import and export', () => {
       ['risks', 1, 0],
       ['activities', 2, 0],
       ['correlations', 1, 0],
+      ['drivers', 0, 0],
     ]);
     expect(await count('CostItems', 'projectId = ?', [other])).toBe(0);
     const commit = await upload(

@@ -104,7 +104,7 @@ async function organisation(label: string, everyRole: boolean): Promise<OrgRecor
   const projectId = project.json.project.id;
   const imported = await owner.post(`/api/projects/${projectId}/import`, {
     format: 'outturn-model',
-    version: 1,
+    version: 2,
     items: [
       { id: `I-${tag}`, name: `Item ${tag}`, dist: { type: 'triangular', low: 90, mode: 100, high: 130 } },
       { id: `J-${tag}`, name: 'Second', base: 50 },
@@ -112,6 +112,14 @@ async function organisation(label: string, everyRole: boolean): Promise<OrgRecor
     risks: [{ id: `R-${tag}`, name: `Risk ${tag}`, probability: 0.3, cost: { type: 'fixed', value: 10 } }],
     activities: [{ id: `A-${tag}`, name: `Activity ${tag}`, duration: { type: 'uniform', low: 5, high: 9 } }],
     correlations: [{ a: `I-${tag}`, b: `J-${tag}`, rho: 0.4 }],
+    drivers: [
+      {
+        id: `D-${tag}`,
+        name: `Driver ${tag}`,
+        factor: { type: 'triangular', low: 0.9, mode: 1, high: 1.2 },
+        applies: [`I-${tag}`, `A-${tag}`],
+      },
+    ],
   });
   expect(imported.status).toBe(200);
   const started = await owner.post(`/api/projects/${projectId}/runs`, { iterations: 1000, seed: 5 });
@@ -140,6 +148,7 @@ async function organisation(label: string, everyRole: boolean): Promise<OrgRecor
       risks: await first('risks'),
       activities: await first('activities'),
       correlations: await first('correlations'),
+      drivers: await first('drivers'),
       member: String(members.find((m) => m.email === spare.email)!.id),
       invitation: String(invitations[0].id),
       invoice: String(invoices[0].id),
@@ -151,6 +160,7 @@ async function organisation(label: string, everyRole: boolean): Promise<OrgRecor
       `Item ${tag}`,
       `R-${tag}`,
       `A-${tag}`,
+      `D-${tag}`,
       spare.email,
       invited,
       org.email,

@@ -103,6 +103,7 @@ function snapshot(parts: Partial<RegisterSnapshot> = {}): RegisterSnapshot {
     risks: [],
     activities,
     correlations: [],
+    drivers: [],
     activityIdByCode: new Map(activities.map((a) => [a.code, a.id])),
     ...parts,
   };

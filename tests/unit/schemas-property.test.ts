@@ -3,7 +3,7 @@
 // either accepted within the stated bounds or refused with an issue that names the row and field.
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { MAX_DAYS, MAX_MONEY, parseRows, type RegisterKind } from '@/lib/validation/registers';
+import { MAX_DAYS, MAX_FACTOR, MAX_MONEY, parseRows, type RegisterKind } from '@/lib/validation/registers';
 import { validateModel } from '@/lib/sim';
 
 /** Cases of each property below: 4 register schemas and the model schema, 1,500 in all. */
@@ -43,6 +43,8 @@ const numberFields: Record<RegisterKind, { field: string; max: number }[]> = {
   ],
   activities: ['low', 'mode', 'high', 'mean', 'sd'].map((field) => ({ field, max: MAX_DAYS })),
   correlations: [{ field: 'rho', max: 1 }],
+  // A factor is at least 0 (engine rule) and at most MAX_FACTOR (the register's own bound).
+  drivers: ['low', 'mode', 'high'].map((field) => ({ field, max: MAX_FACTOR })),
 };
 
 const rowOf: Record<RegisterKind, fc.Arbitrary<Record<string, unknown>>> = {
@@ -83,6 +85,17 @@ const rowOf: Record<RegisterKind, fc.Arbitrary<Record<string, unknown>>> = {
     sd: anyValue,
   }),
   correlations: fc.record({ aCode: code, bCode: code, rho: anyValue }),
+  drivers: fc.record({
+    code,
+    name: anyValue,
+    probability: anyValue,
+    distType: fc.constantFrom('fixed', 'uniform', 'triangular', 'pert', 'lognormal', 'normal', null),
+    range: fc.constantFrom('min-max', 'p10-p90', null),
+    low: fc.oneof(anyValue, fc.constantFrom('-5%', '0.9', '+20%')),
+    mode: fc.oneof(anyValue, fc.constantFrom('0%', '1', '1.05')),
+    high: fc.oneof(anyValue, fc.constantFrom('+30%', '1.3', '12')),
+    applies: fc.oneof(anyValue, fc.constantFrom('3.*', ['A1', '2.1'], [])),
+  }),
 };
 
 describe('register row schemas under random and extreme values', () => {

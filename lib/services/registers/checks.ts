@@ -1,12 +1,13 @@
 import 'server-only';
-// Rules across rows that a single row's schema cannot see: unique codes (across all four
-// registers, since codes are the model file's ids), links to activities, the activity network
-// (no unknown predecessor, no cycle) and correlations between known inputs.
+// Rules across rows that a single row's schema cannot see: unique codes (across the registers,
+// since codes are the model file's ids), links to activities, the activity network (no unknown
+// predecessor, no cycle), what drivers apply to, and correlations between known inputs.
 
 import { checkNetwork } from '@/lib/sim';
 import type { FieldIssue } from '@/lib/errors';
 import type { RegisterKind } from '@/lib/validation/registers';
-import type { ActivityRow, CorrelationRow, LineItemRow, RiskRow } from './rows';
+import { resolveApplies } from '@/lib/registers/driver-applies';
+import type { ActivityRow, CorrelationRow, DriverRow, LineItemRow, RiskRow } from './rows';
 import { REGISTER_LABEL } from './kinds';
 
 export type NextState = {
@@ -14,6 +15,7 @@ export type NextState = {
   risks: RiskRow[];
   activities: ActivityRow[];
   correlations: CorrelationRow[];
+  drivers: DriverRow[];
 };
 
 /** `where(kind, row)` names a row in messages and paths ("rows[3]" for a row of the batch). */
@@ -35,7 +37,7 @@ export function crossCheck(
   };
 
   const owner = new Map<string, RegisterKind>();
-  for (const kind of ['activities', 'items', 'risks'] as const) {
+  for (const kind of ['activities', 'items', 'risks', 'drivers'] as const) {
     for (const row of next[kind]) {
       const prev = owner.get(row.code);
       if (prev && (touched.has(kind) || touched.has(prev))) {
@@ -64,6 +66,9 @@ export function crossCheck(
       }
     }
   }
+  if (touched.has('drivers') || touched.has('items') || touched.has('activities')) {
+    driverTargetIssues(next, touched, add);
+  }
   if (touched.has('activities')) {
     const problems = checkNetwork(
       next.activities.map((a) => ({
@@ -90,4 +95,29 @@ export function crossCheck(
     }
   }
   return issues;
+}
+
+/**
+ * A driver's codes must name line items or activities, and each branch must cover at least one.
+ * When only lines or activities change, a driver is named only if it would be left covering
+ * nothing (a removed code is carried out of its list; see plan-cascade.ts).
+ */
+function driverTargetIssues(
+  next: NextState,
+  touched: ReadonlySet<RegisterKind>,
+  add: (kind: RegisterKind, row: object, field: string, message: string) => void,
+) {
+  const targets = { items: next.items.map((i) => i.code), activities: next.activities.map((a) => a.code) };
+  const others = new Set([...next.risks, ...next.drivers].map((r) => r.code));
+  for (const row of next.drivers) {
+    const { codes, problems } = resolveApplies(row.applies, targets, others);
+    if (touched.has('drivers')) for (const p of problems) add('drivers', row, 'applies', p.message);
+    else if (codes.length === 0)
+      add(
+        'drivers',
+        row,
+        'applies',
+        'would apply to no line item or activity after this change; change the driver first.',
+      );
+  }
 }

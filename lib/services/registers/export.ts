@@ -5,7 +5,7 @@ import 'server-only';
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
 import { forbidden } from '@/lib/errors';
-import type { RegisterKind } from '@/lib/validation/registers';
+import { REGISTER_KINDS, type RegisterKind } from '@/lib/validation/registers';
 import { findProject } from '../projects';
 import { writeCsv, writeXlsx } from './files';
 import { loadState } from './state';
@@ -29,7 +29,7 @@ export async function exportRegisters(
       body: '\uFEFF' + writeCsv(k, rowsOf(k)),
     };
   }
-  const kinds: RegisterKind[] = kind === 'all' ? ['items', 'risks', 'activities', 'correlations'] : [kind];
+  const kinds: RegisterKind[] = kind === 'all' ? [...REGISTER_KINDS] : [kind];
   const body = await writeXlsx(Object.fromEntries(kinds.map((k) => [k, rowsOf(k)])));
   return {
     fileName: `${project.code}-${kind === 'all' ? 'registers' : kind}-${stamp}.xlsx`,

@@ -169,4 +169,5 @@ export async function commitImport(
   });
 }
 
-const RANK: Record<RegisterKind, number> = { activities: 0, items: 1, risks: 2, correlations: 3 };
+// Drivers after the lines and activities they name; correlations last (they may name drivers).
+const RANK: Record<RegisterKind, number> = { activities: 0, items: 1, risks: 2, drivers: 3, correlations: 4 };

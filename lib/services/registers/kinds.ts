@@ -1,5 +1,5 @@
 import 'server-only';
-// What the four registers are called: in the audit trail, in messages, and by the key that
+// What the registers are called: in the audit trail, in messages, and by the key that
 // names a row (its code, or the pair of codes of a correlation). Pure: no model is loaded.
 
 import type { RegisterKind } from '@/lib/validation/registers';
@@ -9,6 +9,7 @@ export const ENTITY: Record<RegisterKind, string> = {
   risks: 'risk-event',
   activities: 'activity',
   correlations: 'correlation',
+  drivers: 'risk-driver',
 };
 
 export const REGISTER_LABEL: Record<RegisterKind, string> = {
@@ -16,6 +17,7 @@ export const REGISTER_LABEL: Record<RegisterKind, string> = {
   risks: 'risk event',
   activities: 'activity',
   correlations: 'correlation',
+  drivers: 'risk driver',
 };
 
 type Named = { code?: unknown; aCode?: unknown; bCode?: unknown };

@@ -39,7 +39,16 @@ export function carryCodes(kind: RegisterKind, next: NextState, changes: CodeCha
       const b = code(c.bCode);
       return a === c.aCode && b === c.bCode ? c : { ...c, aCode: a, bCode: b };
     });
-  return { items, risks, activities, correlations };
+  let drivers = next.drivers;
+  if (kind === 'items' || kind === 'activities') {
+    // Exact codes follow a rename and leave with a removal; branches ("3.*") stay as typed.
+    drivers = drivers.map((d) => {
+      const applies = d.applies.filter((t) => !removed.has(t)).map(code);
+      const same = applies.length === d.applies.length && applies.every((t, i) => t === d.applies[i]);
+      return same ? d : { ...d, applies };
+    });
+  }
+  return { items, risks, activities, correlations, drivers };
 }
 
 /** Removing an activity that line items or risks still use is refused, naming them. */

@@ -19,6 +19,7 @@ import type {
 import {
   activityAttributes,
   correlationAttributes,
+  driverAttributes,
   itemAttributes,
   riskAttributes,
   rowData,
@@ -36,6 +37,7 @@ const VALUES: ValuesOf = {
   risks: (r, s) => ({ ...riskAttributes(r, s.activityIdByCode), sortOrder: r.sortOrder, ...scopeOf(s) }),
   activities: (r, s) => ({ ...activityAttributes(r), sortOrder: r.sortOrder, ...scopeOf(s) }),
   correlations: (r, s) => ({ ...correlationAttributes(r), ...scopeOf(s) }),
+  drivers: (r, s) => ({ ...driverAttributes(r), sortOrder: r.sortOrder, ...scopeOf(s) }),
 };
 
 /** The same fields, whatever their order: a row saved unchanged is neither written nor audited. */
@@ -64,6 +66,7 @@ export function planWrites(
     risks: emptyWrites(),
     activities: emptyWrites(),
     correlations: emptyWrites(),
+    drivers: emptyWrites(),
   };
   const plan: WritePlan = {
     kind,
@@ -77,6 +80,8 @@ export function planWrites(
   };
   // Line items and risks link activities by id: a renamed activity changes none of their columns.
   const written: RegisterKind[] = kind === 'correlations' ? [kind] : [kind, 'correlations'];
+  // Drivers name line items and activities by code: renames and removals reach them too.
+  if (kind === 'items' || kind === 'activities') written.push('drivers');
   for (const k of written) {
     const diff = diffRegister(k, state, next, writes, options, k === kind ? batchIndex : new Map());
     plan.audit.push(...diff.audit);

@@ -1,12 +1,12 @@
 import 'server-only';
-// Deciding what one batch of one register writes, without a database. In: the four registers
+// Deciding what one batch of one register writes, without a database. In: the registers
 // as read under the project's lock, and a parsed batch (upserts, deletes, a new order). Out:
 // a write plan (inserts, updates with the versions they expect, moves, deletes, the codes they
 // carry into other registers, and the audit entries), or why the batch is refused. The plan is
 // all or nothing: write-plan.ts executes it in one transaction.
 
 import type { CreationAttributes } from 'sequelize';
-import type { Activity, Correlation, CostItem, RiskEvent } from '@/models';
+import type { Activity, Correlation, CostItem, RiskDriver, RiskEvent } from '@/models';
 import type { FieldIssue } from '@/lib/errors';
 import type { RegisterData, RegisterKind, RowMeta } from '@/lib/validation/registers';
 import { crossCheck, type NextState, type RowLocator } from './checks';
@@ -14,7 +14,14 @@ import { matchKey } from './kinds';
 import { activityInUse, carryCodes } from './plan-cascade';
 import { reorder } from './plan-order';
 import { planWrites } from './plan-diff';
-import { type ActivityRow, type AnyRow, type CorrelationRow, type LineItemRow, type RiskRow } from './rows';
+import {
+  type ActivityRow,
+  type AnyRow,
+  type CorrelationRow,
+  type DriverRow,
+  type LineItemRow,
+  type RiskRow,
+} from './rows';
 
 /**
  * The registers of one project of one organisation that a batch is planned against, with the
@@ -44,7 +51,13 @@ export type PlanOptions = {
   auditAction?: string;
 };
 
-type RegisterModels = { items: CostItem; risks: RiskEvent; activities: Activity; correlations: Correlation };
+type RegisterModels = {
+  items: CostItem;
+  risks: RiskEvent;
+  activities: Activity;
+  correlations: Correlation;
+  drivers: RiskDriver;
+};
 
 /** The record a row is written as: its columns, project and organisation (the version is the writer's). */
 export type RowValues = { [K in RegisterKind]: CreationAttributes<RegisterModels[K]> };
@@ -221,6 +234,7 @@ function withRegister(state: NextState, kind: RegisterKind, rows: AnyRow[]): Nex
     risks: state.risks,
     activities: state.activities,
     correlations: state.correlations,
+    drivers: state.drivers,
   };
   switch (kind) {
     case 'items':
@@ -231,5 +245,7 @@ function withRegister(state: NextState, kind: RegisterKind, rows: AnyRow[]): Nex
       return { ...registers, activities: rows as ActivityRow[] };
     case 'correlations':
       return { ...registers, correlations: rows as CorrelationRow[] };
+    case 'drivers':
+      return { ...registers, drivers: rows as DriverRow[] };
   }
 }

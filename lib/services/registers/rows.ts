@@ -1,14 +1,15 @@
 import 'server-only';
-// Records of the four register tables ↔ the flat rows the grids, files and API speak.
+// Records of the register tables ↔ the flat rows the grids, files and API speak.
 // Distributions are stored as the engine's DistSpec JSON; rows carry them as cells.
 
-import type { Activity, Correlation, CostItem, RiskEvent } from '@/models';
+import type { Activity, Correlation, CostItem, RiskDriver, RiskEvent } from '@/models';
 import { partsFromSpec, specFromParts, type DistParts } from '@/lib/registers/dist-fields';
 import type { DistSpec } from '@/lib/sim';
 import {
   impactParts,
   type ActivityData,
   type CorrelationData,
+  type DriverData,
   type LineItemData,
   type RegisterKind,
   type RiskData,
@@ -19,11 +20,13 @@ export type LineItemRow = Saved<LineItemData>;
 export type RiskRow = Saved<RiskData>;
 export type ActivityRow = Saved<ActivityData>;
 export type CorrelationRow = Saved<CorrelationData>;
+export type DriverRow = Saved<DriverData>;
 export type RegisterRow = {
   items: LineItemRow;
   risks: RiskRow;
   activities: ActivityRow;
   correlations: CorrelationRow;
+  drivers: DriverRow;
 };
 export type AnyRow = RegisterRow[RegisterKind];
 
@@ -186,6 +189,38 @@ export function correlationRow(r: Correlation): CorrelationRow {
 
 export function correlationAttributes(d: CorrelationData) {
   return { aCode: d.aCode, bCode: d.bCode, rho: d.rho };
+}
+
+export function driverRow(r: RiskDriver): DriverRow {
+  const { distType, range, low, mode, high } = cells(json<DistSpec>(r.factor));
+  return {
+    id: r.id,
+    version: r.version,
+    sortOrder: r.sortOrder,
+    code: r.code,
+    name: r.name,
+    standsFor: r.standsFor ?? null,
+    probability: r.probability,
+    distType,
+    range,
+    entry: r.entry,
+    low,
+    mode,
+    high,
+    applies: json<string[]>(r.applies),
+  } as DriverRow;
+}
+
+export function driverAttributes(d: DriverData) {
+  return {
+    code: d.code,
+    name: d.name,
+    standsFor: d.standsFor,
+    probability: d.probability,
+    factor: specOf({ ...d, type: d.distType }),
+    entry: d.entry,
+    applies: d.applies,
+  };
 }
 
 /** The row without its id, version and place: what the audit trail records. */

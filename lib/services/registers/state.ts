@@ -1,17 +1,19 @@
 import 'server-only';
-// Everything a register write needs to check itself against: the four registers of one project.
+// Everything a register write needs to check itself against: the registers of one project.
 
 import type { Transaction } from 'sequelize';
-import { Activity, Correlation, CostItem, RiskEvent } from '@/models';
+import { Activity, Correlation, CostItem, RiskDriver, RiskEvent } from '@/models';
 import type { RegisterKind } from '@/lib/validation/registers';
 import {
   activityRow,
   correlationRow,
+  driverRow,
   itemRow,
   riskRow,
   type ActivityRow,
   type AnyRow,
   type CorrelationRow,
+  type DriverRow,
   type LineItemRow,
   type RiskRow,
 } from './rows';
@@ -23,6 +25,7 @@ export type RegisterState = {
   risks: RiskRow[];
   activities: ActivityRow[];
   correlations: CorrelationRow[];
+  drivers: DriverRow[];
   activityIdByCode: Map<string, number>;
   activityCodeById: Map<number, string>;
 };
@@ -40,12 +43,14 @@ export async function loadState(
 ): Promise<RegisterState> {
   const where = { projectId, organizationId };
   // A read of one register loads only it (and the activities its rows name).
-  const want = (k: RegisterKind) => !only || only === k || (k === 'activities' && only !== 'correlations');
-  const [activities, items, risks, correlations] = await Promise.all([
+  const want = (k: RegisterKind) =>
+    !only || only === k || (k === 'activities' && only !== 'correlations' && only !== 'drivers');
+  const [activities, items, risks, correlations, drivers] = await Promise.all([
     want('activities') ? Activity.findAll({ where, order: ORDER, transaction }) : [],
     want('items') ? CostItem.findAll({ where, order: ORDER, transaction }) : [],
     want('risks') ? RiskEvent.findAll({ where, order: ORDER, transaction }) : [],
     want('correlations') ? Correlation.findAll({ where, order: [['id', 'ASC']], transaction }) : [],
+    want('drivers') ? RiskDriver.findAll({ where, order: ORDER, transaction }) : [],
   ]);
   const activityCodeById = new Map(activities.map((a) => [a.id, a.code]));
   return {
@@ -55,6 +60,7 @@ export async function loadState(
     items: items.map((i) => itemRow(i, activityCodeById)),
     risks: risks.map((r) => riskRow(r, activityCodeById)),
     correlations: correlations.map(correlationRow),
+    drivers: drivers.map(driverRow),
     activityIdByCode: new Map(activities.map((a) => [a.code, a.id])),
     activityCodeById,
   };
@@ -85,6 +91,8 @@ export async function currentRows(
       return (await Activity.findAll(options)).map(activityRow);
     case 'correlations':
       return (await Correlation.findAll(options)).map(correlationRow);
+    case 'drivers':
+      return (await RiskDriver.findAll(options)).map(driverRow);
   }
 }
 

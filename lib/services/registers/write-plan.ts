@@ -11,7 +11,7 @@ import {
   type Transaction,
   type WhereOptions,
 } from 'sequelize';
-import { Activity, Correlation, CostItem, RiskEvent } from '@/models';
+import { Activity, Correlation, CostItem, RiskDriver, RiskEvent } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
 import type { RegisterKind } from '@/lib/validation/registers';
 import { recordAuditMany } from './audit-batch';
@@ -43,7 +43,7 @@ export async function writePlan(
   transaction: Transaction,
 ): Promise<InsertedIds> {
   const scope = { projectId, organizationId: actor.organizationId };
-  const ids: InsertedIds = { items: [], risks: [], activities: [], correlations: [] };
+  const ids: InsertedIds = { items: [], risks: [], activities: [], correlations: [], drivers: [] };
   const order: RegisterKind[] = [plan.kind, ...REGISTERS.filter((k) => k !== plan.kind)];
   for (const kind of order) ids[kind] = await WRITERS[kind](plan.writes, scope, transaction);
   await recordAuditMany(
@@ -61,7 +61,7 @@ export async function writePlan(
   return ids;
 }
 
-const REGISTERS: RegisterKind[] = ['items', 'risks', 'activities', 'correlations'];
+const REGISTERS: RegisterKind[] = ['items', 'risks', 'activities', 'drivers', 'correlations'];
 
 type Writer = (writes: WritePlan['writes'], scope: Scope, transaction: Transaction) => Promise<number[]>;
 
@@ -71,6 +71,7 @@ const WRITERS: Record<RegisterKind, Writer> = {
   risks: placedWriter(RiskEvent, 'risks', (w) => w.risks),
   activities: placedWriter(Activity, 'activities', (w) => w.activities),
   correlations: (w, scope, t) => writeRegister(Correlation, 'correlations', w.correlations, scope, t),
+  drivers: placedWriter(RiskDriver, 'drivers', (w) => w.drivers),
 };
 
 type Scope = { projectId: number; organizationId: number };

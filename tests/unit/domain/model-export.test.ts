@@ -89,7 +89,7 @@ describe('registers → model file', () => {
       correlations: [{ aCode: 'C1', bCode: 'X9', rho: 0.2 }],
     });
     expect(model.correlations).toEqual([]);
-    expect(notices[0]).toContain('no line item, risk or activity has the code X9');
+    expect(notices[0]).toContain('no line item, risk, activity or driver has the code X9');
   });
 
   it('uses post-mitigation values where given when asked', () => {

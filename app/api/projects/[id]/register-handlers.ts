@@ -1,4 +1,4 @@
-// Route handlers shared by the four registers (items, risks, activities, correlations):
+// Route handlers shared by the registers (items, risks, activities, correlations, drivers):
 //   GET    /api/projects/:id/:register            → { rows }
 //   POST   /api/projects/:id/:register            → a batch { upserts, deletes, order } → { rows, deleted, cascaded }
 //   PUT    /api/projects/:id/:register/:rowId     → one row with its version → { row }

@@ -1,4 +1,4 @@
-// GET /api/projects/:id/export?format=model|xlsx|csv&register=items|risks|activities|correlations|all
+// GET /api/projects/:id/export?format=model|xlsx|csv&register=items|risks|activities|correlations|drivers|all
 //   [&riskValues=pre|post for the model file]. Exports are reads: sponsors may download.
 import { NextResponse } from 'next/server';
 import { z } from 'zod';
@@ -17,7 +17,7 @@ const querySchema = z.object({
   format: z.enum(['model', 'xlsx', 'csv'], { message: 'format is model, xlsx or csv.' }).default('xlsx'),
   register: z
     .enum([...REGISTER_KINDS, 'all'], {
-      message: 'register is items, risks, activities, correlations or all.',
+      message: 'register is items, risks, activities, correlations, drivers or all.',
     })
     .default('all'),
   riskValues: z.enum(['pre', 'post'], { message: 'riskValues is pre or post.' }).default('pre'),

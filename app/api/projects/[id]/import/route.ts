@@ -18,7 +18,7 @@ type Ctx = { params: Promise<{ id: string }> };
 
 const formSchema = z.object({
   register: z.enum([...REGISTER_KINDS, 'all'], {
-    message: 'register is items, risks, activities, correlations or all.',
+    message: 'register is items, risks, activities, correlations, drivers or all.',
   }),
   mode: z.enum(['preview', 'commit'], { message: 'mode is preview or commit.' }).default('preview'),
 });

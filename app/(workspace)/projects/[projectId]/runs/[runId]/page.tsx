@@ -20,7 +20,7 @@ export default async function RunPage({ params }: { params: RunParams }) {
   const names: Record<string, string> = {};
   if (outcome) {
     const m = outcome.snapshot;
-    for (const line of [...m.items, ...(m.risks ?? []), ...(m.activities ?? [])])
+    for (const line of [...m.items, ...(m.risks ?? []), ...(m.activities ?? []), ...(m.drivers ?? [])])
       names[line.id] = line.name ?? '';
   }
   return (

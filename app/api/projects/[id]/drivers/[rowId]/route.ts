@@ -1,0 +1,3 @@
+import { registerRowRoutes } from '../../register-handlers';
+
+export const { PUT, DELETE } = registerRowRoutes('drivers');

@@ -1,0 +1,3 @@
+import { registerRoutes } from '../register-handlers';
+
+export const { GET, POST } = registerRoutes('drivers');
