@@ -15,6 +15,18 @@ export function ticksOver(lo: number, hi: number, count = 5): Ticks {
   return { min: values[0], max: values[values.length - 1], step: values[1] - values[0], values };
 }
 
+/**
+ * An axis over the data itself, [lo, hi] padded by `pad` of its span on each side, with the nice
+ * ticks that fall inside it: no empty stretch out to the next round number.
+ */
+export function dataAxis(lo: number, hi: number, count = 5, pad = 0.02): Ticks {
+  const span = hi - lo || Math.abs(lo) || 1;
+  const min = lo - span * pad;
+  const max = hi + span * pad;
+  const t = ticksOver(min, max, count);
+  return { min, max, step: t.step, values: t.values.filter((v) => v >= min && v <= max) };
+}
+
 export type SignedAxis = Ticks & {
   /** "positive": every value ≥ 0, the axis starts at 0; "negative": every value ≤ 0, it ends at 0. */
   half: 'positive' | 'negative' | null;
