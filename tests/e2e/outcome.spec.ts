@@ -69,6 +69,12 @@ test('the contingency allocated to lines and risks adds up to the contingency on
   const body = lines.slice(0, -3).map((l) => Number(l.split(',').at(-2)));
   expect(Math.abs(body.reduce((s, v) => s + v, 0) - sum)).toBeLessThanOrEqual(1);
 
+  const xlsx = await page.request.get(`/api/projects/${projectId}/runs/${runId}/allocation?format=xlsx`);
+  expect(xlsx.status()).toBe(200);
+  expect(xlsx.headers()['content-disposition']).toMatch(/allocation-P80\.xlsx/);
+  // An XLSX file is a zip archive: it starts with "PK" (ECMA-376 Part 2, Open Packaging).
+  expect((await xlsx.body()).subarray(0, 2).toString()).toBe('PK');
+
   // The charts of the outcome are drawn: the S-curve with its strip, the density map, the swings.
   for (const id of ['chart-cost-histogram', 'chart-finish-curve', 'chart-scatter']) {
     const svg = page.getByTestId(id).locator('svg[role="img"]');

@@ -1,7 +1,7 @@
 // The pure shaping behind the outcome's own charts: axis ticks and the half-axis decision, hexagon
 // bins and the quadrant shares around the targets, and the smooth S-curve path.
 import { describe, expect, it } from 'vitest';
-import { placement, signedAxis, ticksOver } from '@/lib/runs/chart-scale';
+import { dataAxis, placement, signedAxis, ticksOver } from '@/lib/runs/chart-scale';
 import { hexBins, quadrantShares, quadrantsFromProbabilities } from '@/lib/runs/density';
 import { monotoneTangents } from '@/lib/runs/curve-path';
 
@@ -12,6 +12,14 @@ describe('axis ticks', () => {
     expect(t.step).toBe(500);
     expect(t.values).toEqual([2000, 2500, 3000, 3500, 4000]);
     expect(ticksOver(0, 1, 5).values).toEqual([0, 0.2, 0.4, 0.6, 0.8, 1]);
+  });
+
+  it('runs a data axis over the data alone, with the nice ticks inside it', () => {
+    const t = dataAxis(50.3, 60.4, 6, 0);
+    expect(t.min).toBe(50.3);
+    expect(t.max).toBe(60.4);
+    // Steps of 2 (Heckbert: 10.1 / 6 ≈ 1.7 → 2), only those within 50.3–60.4.
+    expect(t.values).toEqual([52, 54, 56, 58, 60]);
   });
 
   it('uses a half axis from 0 when every driver pushes the same way', () => {
