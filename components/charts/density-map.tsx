@@ -19,6 +19,7 @@ export function DensityMap({
   formatX,
   formatY,
   formatShare,
+  yTitle,
   height,
 }: {
   /** (duration, cost) per sampled iteration. */
@@ -29,6 +30,8 @@ export function DensityMap({
   formatX: (v: number) => string;
   formatY: (v: number) => string;
   formatShare: (v: number) => string;
+  /** The cost axis's title, with its currency. */
+  yTitle: string;
   height: number;
 }) {
   const [ref, width] = useWidth<HTMLDivElement>();
@@ -83,7 +86,7 @@ export function DensityMap({
             at={M.left}
             right={width - M.right}
             format={formatY}
-            title="Total cost"
+            title={yTitle}
           />
           <clipPath id="density-plot">
             <rect x={M.left} y={M.top} width={width - M.left - M.right} height={bottom - M.top} />

@@ -285,6 +285,7 @@ export function OutcomeView({ project, run, result, charts, names }: OutcomeView
             formatY={moneyShort}
             formatShare={(v) => formatShare(v)}
             formatCount={formatCount}
+            currency={currency}
           />
         ) : (
           <p className="text-sm text-ink-soft">

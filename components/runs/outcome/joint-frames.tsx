@@ -36,6 +36,7 @@ export function DensityFrame({
   formatY,
   formatShare,
   formatCount,
+  currency,
 }: {
   result: SimulationResult;
   points: Point[];
@@ -45,6 +46,7 @@ export function DensityFrame({
   formatY: (v: number) => string;
   formatShare: (v: number) => string;
   formatCount: (n: number) => string;
+  currency: string;
 }) {
   const q = quadrantsOf(result, points, targets);
   const frontier = result.joint?.frontier;
@@ -104,6 +106,7 @@ export function DensityFrame({
         formatX={formatX}
         formatY={formatY}
         formatShare={formatShare}
+        yTitle={`Total cost (${currency})`}
         height={DENSITY_HEIGHT}
       />
     </ChartFrame>
