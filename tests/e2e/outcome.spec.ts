@@ -201,6 +201,10 @@ test('a stored version 1 result still shows what it holds', async ({ page }) => 
   await expect(page.getByTestId('joint-levels')).toContainText('run it again');
   await expect(page.getByTestId('density-quadrants')).toContainText('within both');
   await expect(outcome.mitigation()).toHaveCount(0);
+  // Nothing to download: the reply says why rather than sending an empty file.
+  const download = await page.request.get(`/api/projects/${projectId}/runs/${runId}/allocation?format=csv`);
+  expect(download.status()).toBe(409);
+  expect((await download.json()).error.message).toContain('run it again');
   await shoot(page, 'outcome-v1');
   expect(errors).toEqual([]);
 });
