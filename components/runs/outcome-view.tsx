@@ -7,7 +7,7 @@ import { ResultCautions } from '@/components/ui/notice';
 import type { SimulationResult } from '@/lib/sim';
 import type { RunView } from '@/lib/view-types/runs';
 import { criticalityRows, type SampleCharts } from '@/lib/runs/outcome-data';
-import { allocationTable } from '@/lib/runs/allocation';
+import { allocationTable, byTopLevel } from '@/lib/runs/allocation';
 import { contingencyAt } from '@/lib/domain/contingency';
 import { finishDate } from '@/lib/runs/working-days';
 import {
@@ -379,6 +379,7 @@ export function OutcomeView({ project, run, result, charts, names }: OutcomeView
         {allocation ? (
           <AllocationTable
             table={allocation}
+            grouped={byTopLevel(allocation, nameOf)}
             chosen={level}
             money={money}
             share={(v) => formatShare(v)}

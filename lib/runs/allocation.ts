@@ -92,6 +92,45 @@ export function shownRows(
   };
 }
 
+/** The top level of a WBS code: "3" for "3.2.1"; the code itself when it has no level below. */
+export const topLevelOf = (code: string) => code.split('.')[0];
+
+/**
+ * The same table summed by top-level WBS: one row per top-level branch of the line items (named
+ * after the line whose code is the branch itself, when there is one), then one row for the risks
+ * that name no line item. The rows add up to the same sum.
+ */
+export function byTopLevel(table: AllocationTable, nameOf: (code: string) => string): AllocationTable {
+  const groups = new Map<string, number>();
+  let risks = 0;
+  let riskCount = 0;
+  for (const r of table.rows) {
+    if (r.kind === 'risk') {
+      risks += r.amount;
+      riskCount++;
+    } else groups.set(topLevelOf(r.code), (groups.get(topLevelOf(r.code)) ?? 0) + r.amount);
+  }
+  const share = (amount: number) => (table.contingency ? amount / table.contingency : null);
+  const rows: AllocationRow[] = [...groups.entries()]
+    .sort(([a], [b]) => byCode(a, b))
+    .map(([code, amount]) => ({
+      code,
+      name: nameOf(code) || `All lines under ${code}`,
+      kind: 'item',
+      amount,
+      share: share(amount),
+    }));
+  if (riskCount)
+    rows.push({
+      code: '',
+      name: `${riskCount} risk${riskCount === 1 ? '' : 's'} of their own`,
+      kind: 'risk',
+      amount: risks,
+      share: share(risks),
+    });
+  return { ...table, rows };
+}
+
 /** The table as rows of cells for a CSV or a spreadsheet: header, one row per line, then the totals. */
 export function allocationSheet(table: AllocationTable, currency: string): (string | number)[][] {
   const share = (v: number | null) => (v === null ? '' : Number(v.toFixed(6)));

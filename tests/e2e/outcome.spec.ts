@@ -62,6 +62,15 @@ test('the contingency allocated to lines and risks adds up to the contingency on
   // to the contingency within Monte Carlo error); here within 5 % of it.
   expect(Math.abs(difference)).toBeLessThan(0.05 * Math.abs(contingency));
 
+  // Summed by top-level WBS, the rows add up to the same sum.
+  await page.getByRole('button', { name: 'Top-level WBS' }).click();
+  const branches = await outcome.allocationAmounts();
+  expect(branches.length).toBeLessThan(amounts.length);
+  expect(Math.abs(branches.reduce((s, a) => s + a, 0) - sum)).toBeLessThanOrEqual(
+    0.5 * (branches.length + 1),
+  );
+  await page.getByRole('button', { name: 'Lines and risks' }).click();
+
   // The download holds every row, and they add up to the same sum.
   const csv = await page.request.get(`/api/projects/${projectId}/runs/${runId}/allocation?format=csv`);
   expect(csv.status()).toBe(200);

@@ -2,7 +2,7 @@
 // add up to the window's mean total less the base, which differs from the P-value less the base by
 // the Monte Carlo error that the table states).
 import { describe, expect, it } from 'vitest';
-import { allocationSheet, allocationTable, byCode, shownRows } from '@/lib/runs/allocation';
+import { allocationSheet, allocationTable, byCode, byTopLevel, shownRows } from '@/lib/runs/allocation';
 import type { AllocationResult } from '@/lib/sim';
 
 const allocation: AllocationResult = {
@@ -45,6 +45,18 @@ describe('the allocation table', () => {
     expect(others?.amount).toBeCloseTo(80.5 + 0 + 95.25, 9);
     expect(rows.reduce((s, r) => s + r.amount, 0) + others!.amount).toBeCloseTo(table.sum, 9);
     expect(shownRows(table, 30).others).toBeNull();
+  });
+
+  it('sums the rows by top-level WBS, risks of their own apart, to the same sum', () => {
+    const grouped = byTopLevel(table, (c) => (c === '2' ? 'Pipeline' : ''));
+    // By hand: branch 1 = 200; branch 2 = 80.5 + 120 = 200.5; risks = 0 + 95.25.
+    expect(grouped.rows.map((r) => [r.code, r.name, r.amount])).toEqual([
+      ['1', 'All lines under 1', 200],
+      ['2', 'Pipeline', 200.5],
+      ['', '2 risks of their own', 95.25],
+    ]);
+    expect(grouped.rows.reduce((s, r) => s + r.amount, 0)).toBeCloseTo(table.sum, 9);
+    expect(grouped.sum).toBe(table.sum);
   });
 
   it('writes every row and the three totals for a download', () => {

@@ -1,3 +1,6 @@
+'use client';
+
+import { useState } from 'react';
 import { TableHead } from '@/components/ui/table';
 import { buttonClass } from '@/components/ui/button';
 import { shownRows, type AllocationTable as Table } from '@/lib/runs/allocation';
@@ -9,19 +12,24 @@ import { shownRows, type AllocationTable as Table } from '@/lib/runs/allocation'
  * rest; the downloads hold every row.
  */
 export function AllocationTable({
-  table,
+  table: lines,
+  grouped,
   chosen,
   money,
   share,
   download,
 }: {
   table: Table;
+  /** The same table summed by top-level WBS. */
+  grouped: Table;
   /** The level the run's settings chose (the allocation may be at another for older runs). */
   chosen: string;
   money: (v: number) => string;
   share: (v: number) => string;
   download: { csv: string; xlsx: string };
 }) {
+  const [view, setView] = useState<'lines' | 'wbs'>('lines');
+  const table = view === 'lines' ? lines : grouped;
   const { rows, others } = shownRows(table);
   const cell = 'num py-0.5 pl-3';
   const pct = (v: number | null) => (v === null ? '—' : share(v));
@@ -37,6 +45,24 @@ export function AllocationTable({
             : ''}
         </p>
         <div className="ml-auto flex shrink-0 gap-2">
+          <div role="group" aria-label="Rows of the allocation" className="flex">
+            {(
+              [
+                ['lines', 'Lines and risks'],
+                ['wbs', 'Top-level WBS'],
+              ] as const
+            ).map(([key, label], i) => (
+              <button
+                key={key}
+                type="button"
+                aria-pressed={view === key}
+                onClick={() => setView(key)}
+                className={`border border-rule-strong px-3 py-1.5 text-sm ${i ? 'rounded-r border-l-0' : 'rounded-l'} ${view === key ? 'bg-cost text-paper-raised' : 'bg-paper-raised text-ink hover:bg-paper-sunk'}`}
+              >
+                {label}
+              </button>
+            ))}
+          </div>
           <a className={buttonClass('secondary')} href={download.csv} download>
             Download CSV
           </a>
@@ -61,7 +87,15 @@ export function AllocationTable({
             <tr key={`${r.kind}-${r.code}`} className="border-b border-rule/60" data-testid="allocation-row">
               <td className="py-0.5 pr-3 font-mono text-xs">{r.code}</td>
               <td className="py-0.5">{r.name}</td>
-              <td className="py-0.5 pl-3 text-ink-soft">{r.kind === 'item' ? 'line item' : 'risk'}</td>
+              <td className="py-0.5 pl-3 text-ink-soft">
+                {view === 'wbs'
+                  ? r.kind === 'item'
+                    ? 'WBS branch'
+                    : 'risks'
+                  : r.kind === 'item'
+                    ? 'line item'
+                    : 'risk'}
+              </td>
               <td className={cell} data-testid="allocation-amount">
                 {money(r.amount)}
               </td>
