@@ -4,7 +4,7 @@
  */
 
 import { PERCENTILES } from '@/lib/domain/percentiles';
-import type { SensitivityEntry, TotalSummary } from '@/lib/sim';
+import type { InputKind, Interval, Model, PercentileKey, SensitivityEntry, TotalSummary } from '@/lib/sim';
 
 export type Point = { x: number; y: number };
 
@@ -56,18 +56,6 @@ export function topDrivers(entries: SensitivityEntry[], count = 15): Sensitivity
     .slice(0, count);
 }
 
-/** Share of sample points with cost ≤ costTarget and duration ≤ durationTarget. */
-export function shareWithin(
-  cost: number[],
-  duration: number[],
-  costTarget: number,
-  durationTarget: number,
-): number {
-  let k = 0;
-  for (let i = 0; i < cost.length; i++) if (cost[i] <= costTarget && duration[i] <= durationTarget) k++;
-  return cost.length ? k / cost.length : 0;
-}
-
 export type SampleCharts = {
   /** Iterations in the sample, and in the run. */
   n: number;
@@ -97,4 +85,89 @@ export function sampleCharts(
     duration: sample.duration ? histogram(sample.duration) : null,
     scatter,
   };
+}
+
+/** The S-curve through a scenario's percentiles (P5 … P95; a scenario keeps no min or max). */
+export function scenarioCurve(percentiles: Record<PercentileKey, number>): Point[] {
+  return PERCENTILES.map(([k, p]) => ({ x: percentiles[k], y: p }));
+}
+
+/**
+ * What the responses are worth at a level: the pre-mitigation value less the post-mitigation one
+ * (post includes the responses' own cost). Both come from the same iterations (common random
+ * numbers), so the difference is the responses' effect, not sampling noise.
+ */
+export function responseValueAt(
+  pre: Record<PercentileKey, number>,
+  post: Record<PercentileKey, number>,
+  level: PercentileKey,
+): { pre: number; post: number; saving: number } {
+  return { pre: pre[level], post: post[level], saving: pre[level] - post[level] };
+}
+
+/**
+ * The 95% interval of the contingency at a level: the result's own where it holds one (v2, P50,
+ * P80, P90), else the P-value's interval less the base (a constant, so the interval shifts).
+ */
+export function contingencyInterval(summary: TotalSummary, level: PercentileKey): Interval | null {
+  const own = (summary.contingencyCI95 as Partial<Record<PercentileKey, Interval>> | undefined)?.[level];
+  if (own) return own;
+  const ci = (summary.percentileCI95 as Partial<Record<PercentileKey, Interval>>)[level];
+  return ci ? [ci[0] - summary.base, ci[1] - summary.base] : null;
+}
+
+export type SwingRow = {
+  id: string;
+  kind: InputKind | undefined;
+  /** The total's mean where the input is in its low tenth and in its high tenth, less the mean. */
+  low: number;
+  high: number;
+};
+
+/** Inputs by the width of their swing, widest first, as changes from the total's mean. */
+export function swingRows(entries: SensitivityEntry[], mean: number, count = 15): SwingRow[] {
+  return entries
+    .filter((e): e is SensitivityEntry & { swing: Interval } => Array.isArray(e.swing))
+    .map((e) => ({ id: e.id, kind: e.kind, low: e.swing[0] - mean, high: e.swing[1] - mean }))
+    .sort((a, b) => Math.abs(b.high - b.low) - Math.abs(a.high - a.low) || a.id.localeCompare(b.id))
+    .slice(0, count);
+}
+
+/** What each kind of input is called on screen. */
+export const KIND_LABEL: Record<InputKind, string> = {
+  item: 'line item',
+  activity: 'activity',
+  risk: 'risk',
+  driver: 'driver',
+};
+
+export type CriticalityRow = { id: string; criticality: number; ssi: number | null };
+
+/**
+ * Activities by criticality (most critical first) with their schedule sensitivity index where the
+ * result holds one (criticality × sd(activity) / sd(project), version 2 results).
+ */
+export function criticalityRows(
+  criticality: Record<string, number>,
+  duration: SensitivityEntry[],
+  count = 20,
+): CriticalityRow[] {
+  const ssi = new Map(duration.filter((e) => e.ssi !== undefined).map((e) => [e.id, e.ssi!]));
+  return Object.entries(criticality)
+    .map(([id, c]) => ({ id, criticality: c, ssi: ssi.get(id) ?? null }))
+    .sort((a, b) => b.criticality - a.criticality || (b.ssi ?? 0) - (a.ssi ?? 0) || a.id.localeCompare(b.id))
+    .slice(0, count);
+}
+
+/** The names of a model's inputs by code: line items, risks, activities and drivers. */
+export function inputNames(model: Model): Record<string, string> {
+  const names: Record<string, string> = {};
+  for (const input of [
+    ...model.items,
+    ...(model.risks ?? []),
+    ...(model.activities ?? []),
+    ...(model.drivers ?? []),
+  ])
+    names[input.id] = input.name ?? '';
+  return names;
 }

@@ -42,18 +42,20 @@ test('an estimator runs the demo project, watches it progress and reads the outc
   await expect(page.getByTestId('run-iterations')).toContainText('iterations done');
 
   await expect(runs.outcome()).toBeVisible({ timeout: 90_000 });
-  for (const chart of [
-    'chart-cost-histogram',
-    'chart-finish-curve',
-    'chart-scatter',
-    'chart-tornado-cost',
-    'chart-tornado-duration',
-    'chart-convergence-cost',
-    'chart-criticality',
+  // The S-curves and the density map are drawn as SVG, the bar and line charts on a canvas.
+  for (const [chart, element] of [
+    ['chart-cost-histogram', 'svg[role="img"]'],
+    ['chart-finish-curve', 'svg[role="img"]'],
+    ['chart-scatter', 'svg[role="img"]'],
+    ['chart-swing-cost', 'canvas'],
+    ['chart-swing-duration', 'canvas'],
+    ['chart-rank-cost', 'canvas'],
+    ['chart-convergence-cost', 'canvas'],
+    ['chart-criticality', 'canvas'],
   ]) {
-    const canvas = page.getByTestId(chart).locator('canvas');
-    await expect(canvas).toBeVisible();
-    const box = await canvas.boundingBox();
+    const drawn = page.getByTestId(chart).locator(element);
+    await expect(drawn).toBeVisible();
+    const box = await drawn.boundingBox();
     expect(box!.height).toBeGreaterThan(100);
   }
   await expect(page.getByText('Read these figures with care').first()).toBeVisible();

@@ -38,7 +38,7 @@ describe('a stored run is reproducible from its snapshot', () => {
       /^attachment; filename=".+-run-\d+\.model\.json"$/,
     );
     const snapshot = JSON.parse(download.text);
-    expect(snapshot.settings).toEqual({ iterations, seed, sampling: 'lhs' });
+    expect(snapshot.settings).toEqual({ iterations, seed, sampling: 'lhs', contingencyLevel: 'P80' });
 
     // The stored hash is SHA-256 of the snapshot's canonical JSON (computed here independently).
     const [stored] = await rows<{ inputHash: string; result: string }>(

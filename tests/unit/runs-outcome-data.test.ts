@@ -1,10 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import {
+  contingencyInterval,
+  criticalityRows,
   empiricalCurve,
+  inputNames,
+  responseValueAt,
+  scenarioCurve,
+  swingRows,
   histogram,
   percentileCurve,
   sampleCharts,
-  shareWithin,
   topDrivers,
 } from '@/lib/runs/outcome-data';
 import type { TotalSummary } from '@/lib/sim';
@@ -74,10 +79,6 @@ describe('chart data shaping', () => {
     expect(top.map((t) => t.id)).not.toContain('C4');
   });
 
-  it('counts the share of points within both targets', () => {
-    expect(shareWithin([1, 2, 3, 4], [10, 30, 20, 40], 3, 25)).toBe(0.5);
-  });
-
   it('thins the scatter evenly and sorts it along the duration axis, keeping each pair together', () => {
     const duration = Array.from({ length: 5000 }, (_, i) => (i * 7919) % 5000);
     const cost = duration.map((d) => 10 * d + 3);
@@ -87,5 +88,63 @@ describe('chart data shaping', () => {
       expect(charts.scatter[i].x).toBeGreaterThanOrEqual(charts.scatter[i - 1].x);
     for (const p of charts.scatter) expect(p.y).toBe(10 * p.x + 3);
     expect(charts.cost.counts.reduce((a, b) => a + b, 0)).toBe(5000);
+  });
+
+  it('gives the contingency interval: the result’s own, else the P-value’s less the base', () => {
+    // contingency = P − base and the base is a constant, so its interval is the P-value's shifted
+    // by the base (common practice; docs/result-format.md, contingencyCI95).
+    expect(contingencyInterval(summary, 'P80')).toEqual([32, 34]);
+    expect(
+      contingencyInterval({ ...summary, contingencyCI95: { P50: [1, 2], P80: [3, 4], P90: [5, 6] } }, 'P80'),
+    ).toEqual([3, 4]);
+    expect(contingencyInterval(summary, 'P70')).toBeNull();
+  });
+
+  it('reads the responses’ value at a level as pre less post, both from the same percentiles', () => {
+    const pre = { ...summary.percentiles, P80: 140 };
+    expect(responseValueAt(pre, summary.percentiles, 'P80')).toEqual({ pre: 140, post: 133, saving: 7 });
+    expect(scenarioCurve(summary.percentiles).map((p) => p.y)).toEqual([
+      0.05, 0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.7, 0.8, 0.9, 0.95,
+    ]);
+  });
+
+  it('orders swings by their width as changes from the mean, skipping entries without one', () => {
+    const rows = swingRows(
+      [
+        { id: 'C1', rankCorrelation: 0.6, varianceShare: 0.5, kind: 'item', swing: [90, 130] },
+        { id: 'D1', rankCorrelation: 0.3, varianceShare: 0.2, kind: 'driver', swing: [95, 160] },
+        { id: 'R1', rankCorrelation: -0.1, varianceShare: 0.1, kind: 'risk', swing: [108, 104] },
+        { id: 'A1', rankCorrelation: 0.2, varianceShare: 0.2 },
+      ],
+      110,
+    );
+    // Widths by hand: D1 65, C1 40, R1 4.
+    expect(rows.map((r) => r.id)).toEqual(['D1', 'C1', 'R1']);
+    expect(rows[0]).toMatchObject({ low: -15, high: 50, kind: 'driver' });
+    expect(rows[2]).toMatchObject({ low: -2, high: -6 });
+  });
+
+  it('lists activities by criticality with their schedule sensitivity index where known', () => {
+    const rows = criticalityRows({ A1: 1, A2: 0.4, A3: 1 }, [
+      { id: 'A3', rankCorrelation: 0.5, varianceShare: 0.5, kind: 'activity', ssi: 0.7 },
+      { id: 'A1', rankCorrelation: 0.1, varianceShare: 0.1, kind: 'activity', ssi: 0.2 },
+    ]);
+    expect(rows.map((r) => [r.id, r.ssi])).toEqual([
+      ['A3', 0.7],
+      ['A1', 0.2],
+      ['A2', null],
+    ]);
+  });
+
+  it('names every kind of input by its code', () => {
+    const names = inputNames({
+      format: 'outturn-model',
+      version: 2,
+      items: [{ id: 'C1', name: 'Piling' }],
+      risks: [{ id: 'R1', name: 'Flood', probability: 0.1 }],
+      activities: [{ id: 'A1', name: 'Dig', duration: { type: 'fixed', value: 5 } }],
+      drivers: [{ id: 'D1', name: 'Ground', factor: { type: 'fixed', value: 1 }, applies: ['C1'] }],
+    });
+    expect(names).toEqual({ C1: 'Piling', R1: 'Flood', A1: 'Dig', D1: 'Ground' });
   });
 });

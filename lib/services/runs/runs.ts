@@ -109,7 +109,13 @@ function snapshotOf(model: Model, settings: RunSettings): Model {
   return {
     ...model,
     ...(Object.keys(targets).length ? { targets } : {}),
-    settings: { iterations: settings.iterations, seed: settings.seed, sampling: settings.sampling },
+    settings: {
+      iterations: settings.iterations,
+      seed: settings.seed,
+      sampling: settings.sampling,
+      // The contingency is allocated at the level the run was asked for.
+      contingencyLevel: settings.confidence,
+    },
   };
 }
 

@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { can } from '@/lib/auth/roles';
 import { getRunOutcome } from '@/lib/services/runs';
-import { sampleCharts } from '@/lib/runs/outcome-data';
+import { inputNames, sampleCharts } from '@/lib/runs/outcome-data';
 import { buttonClass } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { OutcomeView } from '@/components/runs/outcome-view';
@@ -17,12 +17,6 @@ const when = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 
 export default async function RunPage({ params }: { params: RunParams }) {
   const { actor, project, run } = await loadRunPage(params, '', 'run:read');
   const outcome = run.status === 'succeeded' ? await getRunOutcome(actor, project.id, run.id) : null;
-  const names: Record<string, string> = {};
-  if (outcome) {
-    const m = outcome.snapshot;
-    for (const line of [...m.items, ...(m.risks ?? []), ...(m.activities ?? []), ...(m.drivers ?? [])])
-      names[line.id] = line.name ?? '';
-  }
   return (
     <div className="space-y-5">
       <div className="flex items-end gap-4">
@@ -68,7 +62,7 @@ export default async function RunPage({ params }: { params: RunParams }) {
           run={outcome.run}
           result={outcome.result}
           charts={outcome.sample ? sampleCharts(outcome.sample) : null}
-          names={names}
+          names={inputNames(outcome.snapshot)}
         />
       ) : (
         <RunProgress initial={run} mayCancel={can(actor.role, 'run:cancel')} />
