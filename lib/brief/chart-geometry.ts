@@ -132,3 +132,64 @@ export function tornadoGeometry(
   }));
   return { plot, zero, bars, ticks };
 }
+
+export type Xy = { x: number; y: number };
+export type CubicSegment = { c1: Xy; c2: Xy; to: Xy };
+
+/**
+ * A smooth curve through points with increasing x that never overshoots them: monotone cubic
+ * Hermite interpolation with the Fritsch–Carlson tangents (F. N. Fritsch and R. E. Carlson,
+ * "Monotone Piecewise Cubic Interpolation", SIAM J. Numer. Anal. 17(2), 1980), written as cubic
+ * Bézier segments (control points at a third of each interval along the tangents). A cumulative
+ * curve drawn this way stays a cumulative curve: it never falls between two of its points.
+ * Points that repeat an x are dropped (the first is kept).
+ */
+export function monotoneCubic(points: readonly Xy[]): { start: Xy | null; segments: CubicSegment[] } {
+  const p = points.filter((q, i) => i === 0 || q.x > points[i - 1].x);
+  if (!p.length) return { start: null, segments: [] };
+  const n = p.length;
+  const slope: number[] = [];
+  for (let i = 0; i < n - 1; i++) slope.push((p[i + 1].y - p[i].y) / (p[i + 1].x - p[i].x));
+  const m: number[] = p.map((_, i) => {
+    if (i === 0) return slope[0] ?? 0;
+    if (i === n - 1) return slope[n - 2];
+    return slope[i - 1] * slope[i] <= 0 ? 0 : (slope[i - 1] + slope[i]) / 2;
+  });
+  // Fritsch–Carlson: keep α² + β² ≤ 9 on every interval, which keeps each piece monotone.
+  for (let i = 0; i < n - 1; i++) {
+    if (slope[i] === 0) {
+      m[i] = 0;
+      m[i + 1] = 0;
+      continue;
+    }
+    const a = m[i] / slope[i];
+    const b = m[i + 1] / slope[i];
+    const s = a * a + b * b;
+    if (s > 9) {
+      const t = 3 / Math.sqrt(s);
+      m[i] = t * a * slope[i];
+      m[i + 1] = t * b * slope[i];
+    }
+  }
+  const segments: CubicSegment[] = [];
+  for (let i = 0; i < n - 1; i++) {
+    const h = (p[i + 1].x - p[i].x) / 3;
+    segments.push({
+      c1: { x: p[i].x + h, y: p[i].y + m[i] * h },
+      c2: { x: p[i + 1].x - h, y: p[i + 1].y - m[i + 1] * h },
+      to: p[i + 1],
+    });
+  }
+  return { start: p[0], segments };
+}
+
+/** The SVG path ("M … C …") of a monotone cubic through the points. */
+export function smoothPath(points: readonly Xy[]): string {
+  const { start, segments } = monotoneCubic(points);
+  if (!start) return '';
+  const f = (v: number) => Number(v.toFixed(2));
+  return [
+    `M${f(start.x)},${f(start.y)}`,
+    ...segments.map((s) => `C${f(s.c1.x)},${f(s.c1.y)} ${f(s.c2.x)},${f(s.c2.y)} ${f(s.to.x)},${f(s.to.y)}`),
+  ].join(' ');
+}

@@ -1,0 +1,39 @@
+/**
+ * The finish of the project as calendar dates: each confidence level's duration in working days
+ * counted from the project's base date on a Monday-to-Friday calendar (lib/runs/working-days),
+ * and the level the run funds at.
+ */
+import { finishDate } from '@/lib/runs/working-days';
+import type { PercentileKey, TotalSummary } from '@/lib/sim';
+
+export type FinishLevel = { level: PercentileKey; days: number; date: string };
+
+export type FinishBrief = {
+  baseDate: string;
+  p50: FinishLevel;
+  p80: FinishLevel;
+  /** At the level the run funds at (P50, P70, P80 or P90). */
+  atLevel: FinishLevel;
+  /** The finish target, when given: its date, its working days, and whether the funded level misses it. */
+  target: { date: string | null; days: number; missedAtLevel: boolean } | null;
+};
+
+export function finishBrief(
+  duration: Pick<TotalSummary, 'percentiles'>,
+  baseDate: string,
+  level: PercentileKey,
+  target: { days: number; date: string | null } | null,
+): FinishBrief {
+  const at = (key: PercentileKey): FinishLevel => {
+    const days = duration.percentiles[key];
+    return { level: key, days, date: finishDate(baseDate, days) };
+  };
+  const atLevel = at(level);
+  return {
+    baseDate,
+    p50: at('P50'),
+    p80: at('P80'),
+    atLevel,
+    target: target ? { ...target, missedAtLevel: atLevel.days > target.days + 1e-9 } : null,
+  };
+}
