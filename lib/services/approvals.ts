@@ -187,7 +187,7 @@ export async function listBaselines(actor: Actor, projectId: number): Promise<Tr
   const project = await findProject(actor, projectId);
   const approvals = await Approval.findAll({
     where: { projectId: project.id, organizationId: actor.organizationId, decision: 'approved' },
-    include: [{ model: SimulationRun, as: 'run', attributes: ['id', 'result'] }],
+    include: [{ model: SimulationRun, as: 'run', attributes: ['id', 'result', 'settings'] }],
     order: [
       ['createdAt', 'ASC'],
       ['id', 'ASC'],
@@ -203,6 +203,8 @@ export async function listBaselines(actor: Actor, projectId: number): Promise<Tr
         stage: a.stage,
         estimateClass: a.estimateClass,
         sponsorName: a.sponsorName,
+        selfApproved: Boolean(a.selfApproved),
+        riskValues: a.run!.settings?.riskValues ?? null,
         result: JSON.parse(a.run!.result!) as SimulationResult,
       })),
   );

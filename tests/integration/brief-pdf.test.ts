@@ -62,6 +62,11 @@ describe('the brief PDF', () => {
     expect(text).toContain('Land purchase and legal fees.');
     expect(text).toContain('R1 Contaminated silt');
     expect(text).toContain('Read these figures with care');
+    // The headline sentence of the page is printed too, naming the scenario and the targets.
+    expect(text).toContain('Funding at P80 (before any risk response) means a budget of');
+    expect(text).toMatch(/chance of staying within the cost target of €7,500,000/);
+    expect(text).toMatch(/No finish target was given/);
+    expect(text).toContain('Estimate-class check (Class 3)');
   });
 
   it('comes on A4 by default and on US Letter when asked', async () => {
