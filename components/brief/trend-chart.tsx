@@ -1,5 +1,6 @@
 'use client';
 
+import type { ChartDataset } from 'chart.js';
 import { Chart } from 'react-chartjs-2';
 import { COLORS } from '@/components/charts/setup';
 import { ChartFrame } from '@/components/charts/chart-frame';
@@ -17,6 +18,54 @@ const labelsOf = (rows: TrendRow[]) =>
 /** The value of a row where it is of the scenario, else a gap: lines never join two scenarios. */
 const only = (rows: TrendRow[], s: Scenario, pick: (r: TrendRow) => number | null) =>
   rows.map((r) => (r.scenario === s ? pick(r) : null));
+
+const common = {
+  maintainAspectRatio: false,
+  interaction: { mode: 'index' as const, intersect: false },
+  plugins: { legend: { position: 'bottom' as const } },
+};
+
+type BarSet = ChartDataset<'bar', (number | null)[]>;
+
+/** One drawdown in its own chart: bars on an axis of their own unit, from zero. */
+function DrawdownChart(props: {
+  title: string;
+  reading: string;
+  testId: string;
+  labels: string[][];
+  datasets: BarSet[];
+  axisTitle: string;
+  show: (v: number) => string;
+  tick: (v: number) => string;
+}) {
+  return (
+    <ChartFrame title={props.title} reading={props.reading} height={200} testId={props.testId}>
+      <Chart
+        type="bar"
+        aria-label={props.title}
+        role="img"
+        data={{ labels: props.labels, datasets: props.datasets }}
+        options={{
+          ...common,
+          plugins: {
+            ...common.plugins,
+            tooltip: {
+              callbacks: { label: (ctx) => `${ctx.dataset.label}: ${props.show(Number(ctx.parsed.y))}` },
+            },
+          },
+          scales: {
+            x: { stacked: true },
+            y: {
+              beginAtZero: true,
+              title: { display: true, text: props.axisTitle },
+              ticks: { callback: (v) => props.tick(Number(v)) },
+            },
+          },
+        }}
+      />
+    </ChartFrame>
+  );
+}
 
 /**
  * Approved baselines over the stage gates, in three charts that each keep one unit on one axis:
@@ -62,7 +111,7 @@ export function TrendCharts({ rows, currency }: { rows: TrendRow[]; currency: st
       [2, 3],
     ),
   ]);
-  const bars = (label: string, data: (number | null)[], color: string, s: Scenario) => ({
+  const bars = (label: string, data: (number | null)[], color: string, s: Scenario): BarSet => ({
     type: 'bar' as const,
     label: mixed ? `${label} · ${SCENARIO_LABEL[s]}` : label,
     data,
@@ -70,13 +119,7 @@ export function TrendCharts({ rows, currency }: { rows: TrendRow[]; currency: st
     borderColor: s === 'pre' ? COLORS.caution : color,
     borderWidth: 1,
     maxBarThickness: 36,
-    skipNull: true,
   });
-  const common = {
-    maintainAspectRatio: false,
-    interaction: { mode: 'index' as const, intersect: false },
-    plugins: { legend: { position: 'bottom' as const } },
-  };
   const reading =
     rows.length > 1
       ? `Contingency at P80 went from ${money(first.contingencyP80)} to ${money(last.contingencyP80)} over ${rows.length} baselines.`
@@ -119,86 +162,41 @@ export function TrendCharts({ rows, currency }: { rows: TrendRow[]; currency: st
           }}
         />
       </ChartFrame>
-      <ChartFrame
+      <DrawdownChart
         title="Contingency drawdown by stage"
         reading={reading}
-        height={200}
         testId="trend-contingency"
-      >
-        <Chart
-          type="bar"
-          aria-label="Contingency at P80 of each approved baseline"
-          role="img"
-          data={{
-            labels,
-            datasets: scenarios.map((s) =>
-              bars(
-                'Contingency at P80',
-                only(rows, s, (r) => r.contingencyP80),
-                COLORS.costLight,
-                s,
-              ),
-            ),
-          }}
-          options={{
-            ...common,
-            plugins: {
-              ...common.plugins,
-              tooltip: {
-                callbacks: { label: (ctx) => `${ctx.dataset.label}: ${money(Number(ctx.parsed.y))}` },
-              },
-            },
-            scales: {
-              x: { stacked: true },
-              y: {
-                beginAtZero: true,
-                title: { display: true, text: `Contingency at P80 (${currency})` },
-                ticks: { callback: (v) => formatMoneyShort(Number(v), currency) },
-              },
-            },
-          }}
-        />
-      </ChartFrame>
+        datasets={scenarios.map((s) =>
+          bars(
+            'Contingency at P80',
+            only(rows, s, (r) => r.contingencyP80),
+            COLORS.costLight,
+            s,
+          ),
+        )}
+        labels={labels}
+        axisTitle={`Contingency at P80 (${currency})`}
+        show={money}
+        tick={(v) => formatMoneyShort(v, currency)}
+      />
       {withSchedule ? (
-        <ChartFrame
+        <DrawdownChart
           title="Schedule margin drawdown by stage"
           reading={`Working days between the P80 duration and the base duration; latest ${last.scheduleMarginP80 === null ? '—' : formatDays(last.scheduleMarginP80)}.`}
-          height={200}
           testId="trend-schedule"
-        >
-          <Chart
-            type="bar"
-            aria-label="Schedule margin at P80 of each approved baseline"
-            role="img"
-            data={{
-              labels,
-              datasets: scenarios.map((s) =>
-                bars(
-                  'Schedule margin at P80',
-                  only(rows, s, (r) => r.scheduleMarginP80),
-                  COLORS.timeLight,
-                  s,
-                ),
-              ),
-            }}
-            options={{
-              ...common,
-              plugins: {
-                ...common.plugins,
-                tooltip: {
-                  callbacks: { label: (ctx) => `${ctx.dataset.label}: ${formatDays(Number(ctx.parsed.y))}` },
-                },
-              },
-              scales: {
-                x: { stacked: true },
-                y: {
-                  beginAtZero: true,
-                  title: { display: true, text: 'Schedule margin at P80 (working days)' },
-                },
-              },
-            }}
-          />
-        </ChartFrame>
+          datasets={scenarios.map((s) =>
+            bars(
+              'Schedule margin at P80',
+              only(rows, s, (r) => r.scheduleMarginP80),
+              COLORS.timeLight,
+              s,
+            ),
+          )}
+          labels={labels}
+          axisTitle="Schedule margin at P80 (working days)"
+          show={(v) => formatDays(v)}
+          tick={(v) => String(v)}
+        />
       ) : null}
     </div>
   );

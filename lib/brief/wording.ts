@@ -1,6 +1,8 @@
 // Sentences the brief prints in more than one place (page, PDF).
 import type { ClassCheck } from '@/lib/domain/estimate-class';
+import { formatDays, formatMoney } from '@/lib/runs/format';
 import { signedPercent } from './format';
+import type { ScenarioBrief } from './scenario';
 
 export const BRIEF_CAUTION =
   'Results are only as good as the ranges entered. They support, and do not replace, professional judgement, ' +
@@ -82,3 +84,35 @@ export const SCENARIO_TEXT = {
     detail: 'Risk events count with their probability and impact once the planned responses are in place.',
   },
 } as const;
+
+/** What the responses cost, in a sentence: the same on the page and in the PDF. */
+export function responsesText(scenario: ScenarioBrief, currency: string): string {
+  const r = scenario.responses;
+  if (!r) return 'No response cost was entered.';
+  return (
+    `The ${r.count} response${r.count === 1 ? '' : 's'} with a cost are expected to cost ${formatMoney(r.expectedCost, currency)} in total` +
+    (scenario.used === 'post' ? ', included in the figures.' : ', not included in these figures.')
+  );
+}
+
+/** The two scenarios of one run side by side: [what, before, after, what the responses buy]. */
+export function scenarioRows(scenario: ScenarioBrief, currency: string): [string, string, string, string][] {
+  const c = scenario.compared;
+  if (!c) return [];
+  const money = (v: number) => formatMoney(v, currency);
+  const days = (v: number) => formatDays(v);
+  const rows: [string, number | null, number | null, (v: number) => string][] = [
+    ['Cost P50', c.pre.costP50, c.post.costP50, money],
+    ['Cost P80', c.pre.costP80, c.post.costP80, money],
+    ['Duration P50', c.pre.durationP50, c.post.durationP50, days],
+    ['Duration P80', c.pre.durationP80, c.post.durationP80, days],
+  ];
+  return rows
+    .filter((r): r is [string, number, number, (v: number) => string] => r[1] !== null && r[2] !== null)
+    .map(([label, pre, post, show]) => [
+      label,
+      show(pre),
+      show(post),
+      pre - post >= 0 ? `${show(pre - post)} less` : `${show(post - pre)} more`,
+    ]);
+}

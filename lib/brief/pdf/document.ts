@@ -17,6 +17,8 @@ import {
   VERDICT_TEXT,
   classBandsText,
   classCheckWarnings,
+  responsesText,
+  scenarioRows,
   simulatedRangeText,
 } from '../wording';
 import { PDF_COLOURS as C } from './palette';
@@ -251,34 +253,12 @@ function targets(w: Writer, brief: BriefData) {
 }
 
 function scenarioSection(w: Writer, brief: BriefData) {
-  const money = (v: number) => formatMoney(v, brief.project.currency);
   const { scenario } = brief;
   const text = SCENARIO_TEXT[scenario.used];
   w.heading('Scenario');
-  w.paragraph(
-    `${text.title}. ${text.detail} ` +
-      (scenario.responses
-        ? `The ${scenario.responses.count} response${scenario.responses.count === 1 ? '' : 's'} with a cost are expected to cost ${money(scenario.responses.expectedCost)} in total${scenario.used === 'post' ? ', included in the figures' : ', not included in these figures'}.`
-        : 'No response cost was entered.'),
-  );
-  const c = scenario.compared;
-  if (!c) return;
-  const days = (v: number) => formatDays(v);
-  const rows = (
-    [
-      ['Cost P50', c.pre.costP50, c.post.costP50, money],
-      ['Cost P80', c.pre.costP80, c.post.costP80, money],
-      ['Duration P50', c.pre.durationP50, c.post.durationP50, days],
-      ['Duration P80', c.pre.durationP80, c.post.durationP80, days],
-    ] as const
-  )
-    .filter((r) => r[1] !== null && r[2] !== null)
-    .map(([label, pre, post, show]) => [
-      label,
-      show(pre!),
-      show(post!),
-      pre! - post! >= 0 ? `${show(pre! - post!)} less` : `${show(post! - pre!)} more`,
-    ]);
+  w.paragraph(`${text.title}. ${text.detail} ${responsesText(scenario, brief.project.currency)}`);
+  const rows = scenarioRows(scenario, brief.project.currency);
+  if (!rows.length) return;
   w.table(
     [
       { label: 'Same run, same random numbers', width: 3 },
