@@ -78,7 +78,7 @@ export function SCurveSvg({
                 stroke={c}
                 strokeDasharray="3 3"
               />
-              <text x={m.at + 3} y={plot.y - 3} fontSize="10" fill={c}>
+              <text x={m.at + 3} y={plot.y - 3 + m.row * 11} fontSize="10" fill={c}>
                 {m.label}
               </text>
             </g>

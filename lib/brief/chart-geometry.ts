@@ -41,8 +41,11 @@ export type SCurveGeometry = {
   line: { x: number; y: number }[];
   xTicks: Tick[];
   yTicks: Tick[];
-  /** Vertical guides at chosen values (e.g. base, P80, the target), clipped to the plot. */
-  markers: { label: string; value: number; at: number }[];
+  /**
+   * Vertical guides at chosen values (e.g. base, P80, the target), clipped to the plot; `row` is
+   * the line their label sits on (0 first), so that labels of close guides do not overprint.
+   */
+  markers: { label: string; value: number; at: number; row: number }[];
 };
 
 /**
@@ -72,8 +75,26 @@ export function sCurveGeometry(
     line: points.map((p) => ({ x: sx(p.x), y: sy(p.y) })),
     xTicks: ticks.map((value) => ({ value, at: sx(value) })),
     yTicks: [0, 0.2, 0.4, 0.6, 0.8, 1].map((value) => ({ value, at: sy(value) })),
-    markers: markers.filter((m) => m.value >= x0 && m.value <= x1).map((m) => ({ ...m, at: sx(m.value) })),
+    markers: labelRows(
+      markers.filter((m) => m.value >= x0 && m.value <= x1).map((m) => ({ ...m, at: sx(m.value) })),
+    ),
   };
+}
+
+/** Room a marker's label takes along x, in the drawing's units. */
+const LABEL_ROOM = 44;
+
+/** Gives each marker the first label line on which it keeps LABEL_ROOM from the labels before it. */
+function labelRows<M extends { at: number }>(markers: M[]): (M & { row: number })[] {
+  const lastAt: number[] = [];
+  return [...markers]
+    .sort((a, b) => a.at - b.at)
+    .map((m) => {
+      let row = lastAt.findIndex((at) => m.at - at >= LABEL_ROOM);
+      if (row < 0) row = lastAt.length;
+      lastAt[row] = m.at;
+      return { ...m, row };
+    });
 }
 
 export type TornadoBar = {
@@ -94,9 +115,10 @@ export type TornadoGeometry = {
 };
 
 /**
- * Horizontal bars from a zero line, one row per driver in the given order; the axis is
- * symmetric and runs to the largest |value| rounded up to a tenth (values are rank
- * correlations in [−1, 1]). `labelWidth` leaves room for the names on the left.
+ * Horizontal bars from a zero line, one row per driver in the given order. The axis runs to the
+ * largest |value| rounded up to a tenth (values are rank correlations in [−1, 1]): on both sides
+ * when drivers push both ways, on one side only (a half axis) when every driver pushes the same
+ * way, so that no half of the plot stands empty. `labelWidth` leaves room for the names.
  */
 export function tornadoGeometry(
   drivers: { label: string; value: number }[],
@@ -111,12 +133,21 @@ export function tornadoGeometry(
     height: box.height - bottom,
   };
   const largest = Math.max(0.1, ...drivers.map((d) => Math.abs(d.value)));
-  const limit = Math.min(1, Math.ceil(largest * 10 - 1e-9) / 10);
-  const sx = linearScale(-limit, limit, plot.x, plot.x + plot.width);
+  const both = drivers.some((d) => d.value < 0) && drivers.some((d) => d.value > 0);
+  // A half axis ticks every 0.1 up to 0.5, else every 0.2, and ends on a tick.
+  const step = largest <= 0.5 ? 0.1 : 0.2;
+  const limit = both
+    ? Math.min(1, Math.ceil(largest * 10 - 1e-9) / 10)
+    : Math.min(1, Math.ceil(largest / step - 1e-9) * step);
+  const negative =
+    drivers.length > 0 && drivers.every((d) => d.value <= 0) && drivers.some((d) => d.value < 0);
+  const lo = both || negative ? -limit : 0;
+  const hi = negative ? 0 : limit;
+  const sx = linearScale(lo, hi, plot.x, plot.x + plot.width);
   const zero = sx(0);
   const row = drivers.length ? plot.height / drivers.length : 0;
   const bars = drivers.map((d, i) => {
-    const end = sx(Math.max(-limit, Math.min(limit, d.value)));
+    const end = sx(Math.max(lo, Math.min(hi, d.value)));
     return {
       label: d.label,
       value: d.value,
@@ -126,10 +157,12 @@ export function tornadoGeometry(
       height: row * 0.7,
     };
   });
-  const ticks = [-limit, -limit / 2, 0, limit / 2, limit].map((value) => ({
-    value: Number(value.toPrecision(6)),
-    at: sx(value),
-  }));
+  const ticks = [0, 0.25, 0.5, 0.75, 1]
+    .map((k) => lo + k * (hi - lo))
+    .map((value) => ({
+      value: Number(value.toPrecision(6)),
+      at: sx(value),
+    }));
   return { plot, zero, bars, ticks };
 }
 

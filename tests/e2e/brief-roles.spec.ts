@@ -92,6 +92,7 @@ test('an owner cannot approve a run they started until self-approval is allowed;
 
   const errors = watchErrors(page);
   await new AuthPages(page).signIn(org.email, org.password);
+  await expect(page).toHaveURL(/\/projects$/);
   const brief = new BriefPages(page);
   await brief.open(projectId, runId);
   await expect(page.getByTestId('self-approval-refused')).toContainText(

@@ -59,7 +59,7 @@ export function drawSCurve(
     doc
       .fontSize(6.5)
       .fillColor(c)
-      .text(m.label, m.at + 2, plot.y + 2, { lineBreak: false });
+      .text(m.label, m.at + 2, plot.y + 2 + m.row * 8, { lineBreak: false });
   }
 
   const { start, segments } = monotoneCubic(g.line);
