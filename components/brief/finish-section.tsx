@@ -1,6 +1,7 @@
 import { formatDate, formatDays } from '@/lib/runs/format';
 import { finishDate } from '@/lib/runs/working-days';
 import type { BriefData } from '@/lib/brief/build';
+import { finishRows } from '@/lib/brief/finish';
 import { SCurveSvg, type CurveMarker } from './s-curve-svg';
 
 /** The finish at P50 and P80 as calendar dates, and the finish S-curve with dates along it. */
@@ -9,9 +10,6 @@ export function FinishSection({ brief }: { brief: BriefData }) {
   const duration = brief.duration;
   if (!finish || !duration) return null;
   const dateOf = (days: number) => formatDate(finishDate(finish.baseDate, days));
-  const rows = [finish.p50, finish.p80];
-  if (!rows.some((r) => r.level === finish.atLevel.level)) rows.push(finish.atLevel);
-  rows.sort((a, b) => a.days - b.days);
   const markers: CurveMarker[] = [
     { label: 'P50', value: finish.p50.days, tone: 'base' },
     { label: finish.atLevel.level, value: finish.atLevel.days, tone: 'level' },
@@ -29,25 +27,13 @@ export function FinishSection({ brief }: { brief: BriefData }) {
           </tr>
         </thead>
         <tbody>
-          {rows.map((r) => (
-            <tr key={r.level} className="border-b border-rule" data-testid={`finish-${r.level}`}>
-              <td className="py-1">
-                {r.level}
-                {r.level === brief.contingency.level ? ' (funded level)' : ''}
-              </td>
+          {finishRows(finish).map((r) => (
+            <tr key={r.key} className="border-b border-rule" data-testid={`finish-${r.key}`}>
+              <td className="py-1">{r.label}</td>
               <td className="num py-1 font-medium">{formatDate(r.date)}</td>
-              <td className="num py-1 text-ink-soft">{formatDays(r.days)}</td>
+              <td className="num py-1 text-ink-soft">{formatDays(r.days, r.wholeDays ? 0 : 1)}</td>
             </tr>
           ))}
-          {finish.target ? (
-            <tr className="border-b border-rule" data-testid="finish-target">
-              <td className="py-1">Finish target</td>
-              <td className="num py-1 font-medium">
-                {finish.target.date ? formatDate(finish.target.date) : dateOf(finish.target.days)}
-              </td>
-              <td className="num py-1 text-ink-soft">{formatDays(finish.target.days, 0)}</td>
-            </tr>
-          ) : null}
         </tbody>
       </table>
       <SCurveSvg

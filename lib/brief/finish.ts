@@ -37,3 +37,32 @@ export function finishBrief(
     target: target ? { ...target, missedAtLevel: atLevel.days > target.days + 1e-9 } : null,
   };
 }
+
+export type FinishRow = { key: string; label: string; date: string; days: number; wholeDays: boolean };
+
+/**
+ * The finish table's rows, earliest first: P50, P80 and the funded level (when it is neither),
+ * then the target. Dates are ISO; the page and the PDF format them alike.
+ */
+export function finishRows(finish: FinishBrief): FinishRow[] {
+  const levels = [finish.p50, finish.p80];
+  if (!levels.some((r) => r.level === finish.atLevel.level)) levels.push(finish.atLevel);
+  const rows: FinishRow[] = levels
+    .sort((a, b) => a.days - b.days)
+    .map((r) => ({
+      key: r.level,
+      label: r.level === finish.atLevel.level ? `${r.level} (funded level)` : r.level,
+      date: r.date,
+      days: r.days,
+      wholeDays: false,
+    }));
+  if (finish.target)
+    rows.push({
+      key: 'target',
+      label: 'Finish target',
+      date: finish.target.date ?? finishDate(finish.baseDate, finish.target.days),
+      days: finish.target.days,
+      wholeDays: true,
+    });
+  return rows;
+}

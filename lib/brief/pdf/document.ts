@@ -10,6 +10,7 @@ import { CLASS_CHECK_SOURCE } from '@/lib/domain/estimate-class';
 import { contingencyOver } from '@/lib/domain/contingency';
 import { percentileOf, type BriefData, type TotalBrief } from '../build';
 import { dateText, dateTimeText, moneyWithInterval, probabilityText, signedPercent } from '../format';
+import { finishRows } from '../finish';
 import { headlineText } from '../headline';
 import {
   BRIEF_CAUTION,
@@ -275,20 +276,11 @@ function finishSection(w: Writer, brief: BriefData) {
   if (!finish || !duration) return;
   const dateOf = (days: number) => formatDate(finishDate(finish.baseDate, days));
   w.heading('Finish dates', 60);
-  const levels = [finish.p50, finish.p80];
-  if (!levels.some((r) => r.level === finish.atLevel.level)) levels.push(finish.atLevel);
-  levels.sort((a, b) => a.days - b.days);
-  const rows = levels.map((r) => [
-    `${r.level}${r.level === brief.contingency.level ? ' (funded level)' : ''}`,
+  const rows = finishRows(finish).map((r) => [
+    r.label,
     formatDate(r.date),
-    formatDays(r.days),
+    formatDays(r.days, r.wholeDays ? 0 : 1),
   ]);
-  if (finish.target)
-    rows.push([
-      'Finish target',
-      finish.target.date ? formatDate(finish.target.date) : dateOf(finish.target.days),
-      formatDays(finish.target.days, 0),
-    ]);
   w.table(
     [
       { label: 'Finish', width: 2 },
