@@ -49,12 +49,13 @@ export function SCurveSvg({
             </text>
           </g>
         ))}
-        {g.xTicks.map((t) => (
+        {g.xTicks.map((t, i) => (
           <text
             key={t.value}
             x={t.at}
             y={plot.y + plot.height + 15}
-            textAnchor="middle"
+            // The last label ends at the axis's end, so a long one (a date) is not cut at the edge.
+            textAnchor={i === g.xTicks.length - 1 ? 'end' : 'middle'}
             fontSize="10"
             fill="#7b8190"
           >

@@ -8,9 +8,12 @@ export const BRIEF_CAUTION =
   'Results are only as good as the ranges entered. They support, and do not replace, professional judgement, ' +
   'your organisation’s contingency policy and the funding body’s rules.';
 
-/** The simulated P10 and P90 as shares of the P50: ["−8 %", "+21 %"]. */
+/**
+ * The simulated P10 and P90 as shares of the P50, to a tenth of a percent so that a side just
+ * inside a band's edge does not read as on it: ["−8.1 %", "+9.6 %"].
+ */
 export function simulatedRangeText(check: ClassCheck): [string, string] {
-  return [signedPercent(check.simulatedLow), signedPercent(check.simulatedHigh)];
+  return [signedPercent(check.simulatedLow, 1), signedPercent(check.simulatedHigh, 1)];
 }
 
 /** The class's narrowest and widest range on each side: [["−10 %", "+10 %"], ["−20 %", "+30 %"]]. */
@@ -39,13 +42,13 @@ export function classCheckWarnings(check: ClassCheck): string[] {
     const v = check[side];
     if (v === 'narrow')
       out.push(
-        `On the ${side} side the simulated ${p} is ${signedPercent(value)} of the P50, narrower than even the narrowest ` +
+        `On the ${side} side the simulated ${p} is ${signedPercent(value, 1)} of the P50, narrower than even the narrowest ` +
           `${signedPercent(best)} expected of a Class ${check.estimateClass} estimate. Check for optimistic ranges, ` +
           'missing risk events or missing correlation.',
       );
     if (v === 'wide')
       out.push(
-        `On the ${side} side the simulated ${p} is ${signedPercent(value)} of the P50, wider than the widest ` +
+        `On the ${side} side the simulated ${p} is ${signedPercent(value, 1)} of the P50, wider than the widest ` +
           `${signedPercent(worst)} expected of a Class ${check.estimateClass} estimate. The estimate may be less mature ` +
           'than its class, or large risks remain open.',
       );

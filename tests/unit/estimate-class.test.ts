@@ -43,10 +43,10 @@ describe('estimate-class check', () => {
     expect([narrow.low, narrow.high]).toEqual(['narrow', 'narrow']);
     const [low, high] = classCheckWarnings(narrow);
     expect(low).toMatch(
-      /low side the simulated P10 is −9 % of the P50, narrower than even the narrowest −10 %/,
+      /low side the simulated P10 is −9.0 % of the P50, narrower than even the narrowest −10 %/,
     );
     expect(high).toMatch(
-      /high side the simulated P90 is \+9 % of the P50, narrower than even the narrowest \+10 %/,
+      /high side the simulated P90 is \+9.0 % of the P50, narrower than even the narrowest \+10 %/,
     );
   });
 

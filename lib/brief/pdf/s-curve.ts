@@ -33,12 +33,15 @@ export function drawSCurve(
       align: 'right',
       lineBreak: false,
     });
-  for (const t of g.xTicks)
-    doc.text(pdfText(tickText(t.value)), t.at - 32, plot.y + plot.height + 4, {
+  g.xTicks.forEach((t, i) => {
+    // The last label ends at the axis's end, so a long one (a date) stays inside the margin.
+    const last = i === g.xTicks.length - 1;
+    doc.text(pdfText(tickText(t.value)), last ? t.at - 64 : t.at - 32, plot.y + plot.height + 4, {
       width: 64,
-      align: 'center',
+      align: last ? 'right' : 'center',
       lineBreak: false,
     });
+  });
 
   doc.lineWidth(0.75).strokeColor(C.soft);
   doc
