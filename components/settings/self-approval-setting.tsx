@@ -16,6 +16,8 @@ export function SelfApprovalSetting({ initial }: { initial: OrganizationSettings
   const [status, setStatus] = useState<{ tone: 'success' | 'invalid'; text: string } | null>(null);
 
   async function change(next: boolean) {
+    // The switch moves at once and moves back if the server keeps the previous choice.
+    setAllowed(next);
     setBusy(true);
     setStatus(null);
     try {
@@ -31,6 +33,7 @@ export function SelfApprovalSetting({ initial }: { initial: OrganizationSettings
           : 'Saved: a run is approved by someone other than the person who started it.',
       });
     } catch (e) {
+      setAllowed(!next);
       setStatus({
         tone: 'invalid',
         text:

@@ -68,7 +68,8 @@ describe('the brief PDF', () => {
     expect(flat).toContain('Funding at P80 (before any risk response) means a budget of');
     expect(flat).toContain('chance of staying within the cost target of €7,500,000');
     expect(flat).toContain('No finish target was given');
-    expect(text).toContain('Estimate-class check (Class 3)');
+    expect(text).toContain('ESTIMATE-CLASS CHECK (CLASS 3)');
+    expect(flat).toMatch(/Verdict (narrower than|within|wider than) the class/);
   });
 
   it('comes on A4 by default and on US Letter when asked', async () => {
