@@ -115,8 +115,9 @@ export function TrendCharts({ rows, currency }: { rows: TrendRow[]; currency: st
     type: 'bar' as const,
     label: mixed ? `${label} · ${SCENARIO_LABEL[s]}` : label,
     data,
-    backgroundColor: s === 'pre' ? 'rgba(183, 121, 31, 0.25)' : color,
-    borderColor: s === 'pre' ? COLORS.caution : color,
+    // Told apart by colour only when both scenarios are drawn.
+    backgroundColor: mixed && s === 'pre' ? 'rgba(183, 121, 31, 0.25)' : color,
+    borderColor: mixed && s === 'pre' ? COLORS.caution : color,
     borderWidth: 1,
     maxBarThickness: 36,
   });
@@ -127,7 +128,7 @@ export function TrendCharts({ rows, currency }: { rows: TrendRow[]; currency: st
   const withSchedule = rows.some((r) => r.scheduleMarginP80 !== null);
 
   return (
-    <div className="space-y-3">
+    <div className="grid grid-cols-3 gap-3">
       <ChartFrame
         title="Total cost of each approved baseline"
         reading={
@@ -135,7 +136,7 @@ export function TrendCharts({ rows, currency }: { rows: TrendRow[]; currency: st
             ? 'Pre- and post-mitigation baselines are drawn as separate lines: the step between them is the response, not a drawdown.'
             : `Every baseline is ${SCENARIO_LABEL[scenarios[0]]}.`
         }
-        height={240}
+        height={200}
         testId="trend-chart"
       >
         <Chart

@@ -35,12 +35,10 @@ export default async function TrendPage({ params }: { params: Promise<{ projectI
             -mitigation: P80 <strong>{formatMoney(current.p80, project.currency)}</strong>, base{' '}
             {formatMoney(current.base, project.currency)}.
           </p>
-          <div className="grid grid-cols-[minmax(0,5fr)_minmax(0,6fr)] gap-4">
-            <TrendCharts rows={rows} currency={project.currency} />
-            <Card title="Figures">
-              <TrendTable rows={rows} currency={project.currency} projectId={project.id} />
-            </Card>
-          </div>
+          <TrendCharts rows={rows} currency={project.currency} />
+          <Card title="Figures">
+            <TrendTable rows={rows} currency={project.currency} projectId={project.id} />
+          </Card>
           <ResultCautions />
         </>
       )}
