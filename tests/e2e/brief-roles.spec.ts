@@ -41,6 +41,7 @@ test('a sponsor lands on the briefs waiting for a decision; the brief names the 
   const projectsTop = (await page.getByRole('heading', { name: 'Projects' }).boundingBox())!.y;
   expect(listTop).toBeLessThan(projectsTop);
 
+  await page.screenshot({ path: '/tmp/sponsor-landing.png' });
   await waiting.getByRole('link', { name: `${code} · brief of run ${runId}` }).click();
   await expect(page).toHaveURL(new RegExp(`/projects/${projectId}/runs/${runId}/brief$`));
   await expect(page.getByTestId('scenario')).toContainText(
@@ -111,8 +112,20 @@ test('an owner cannot approve a run they started until self-approval is allowed;
   await expect(brief.decisionRecord()).toContainText('Approved as the baseline');
   await expect(page.getByTestId('self-approved')).toHaveText('Self-approved');
 
+  // A post-mitigation baseline joins the trend: it is its own line, and its change is not
+  // measured from the pre-mitigation one.
+  const postRun = await succeededRun(org.client, projectId, { riskValues: 'post' });
+  const decided = await org.client.post(`/api/projects/${projectId}/decisions`, {
+    runId: postRun,
+    decision: 'approved',
+  });
+  expect(decided.status).toBe(201);
+
   await brief.openTrend(projectId);
   await expect(page.getByTestId(`trend-row-${runId}`)).toContainText('self-approved');
+  await expect(page.getByTestId(`trend-row-${runId}`)).toContainText('pre-mitigation');
+  await expect(page.getByTestId(`trend-row-${postRun}`)).toContainText('post-mitigation');
+  await expect(page.getByTestId(`trend-row-${postRun}`).locator('td').nth(6)).toHaveText('—');
   await expect(page.getByTestId('current-baseline')).toContainText('(self-approved)');
   await expect(page.getByTestId('trend-contingency')).toBeVisible();
   await page.screenshot({ path: '/tmp/trend-self-approved.png', fullPage: true });
