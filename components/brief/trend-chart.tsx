@@ -22,7 +22,7 @@ const only = (rows: TrendRow[], s: Scenario, pick: (r: TrendRow) => number | nul
 const common = {
   maintainAspectRatio: false,
   interaction: { mode: 'index' as const, intersect: false },
-  plugins: { legend: { position: 'bottom' as const } },
+  plugins: { legend: { position: 'bottom' as const, labels: { boxWidth: 18, boxHeight: 3 } } },
 };
 
 type BarSet = ChartDataset<'bar', (number | null)[]>;
@@ -76,7 +76,6 @@ export function TrendCharts({ rows, currency }: { rows: TrendRow[]; currency: st
   const scenarios = (['pre', 'post'] as const).filter((s) => rows.some((r) => r.scenario === s));
   const labels = labelsOf(rows);
   const money = (v: number) => formatMoney(v, currency);
-  const first = rows[0];
   const last = rows[rows.length - 1];
   const mixed = scenarios.length > 1;
 
@@ -121,10 +120,16 @@ export function TrendCharts({ rows, currency }: { rows: TrendRow[]; currency: st
     borderWidth: 1,
     maxBarThickness: 36,
   });
-  const reading =
-    rows.length > 1
-      ? `Contingency at P80 went from ${money(first.contingencyP80)} to ${money(last.contingencyP80)} over ${rows.length} baselines.`
-      : `One baseline so far: P80 ${money(last.p80)}, contingency ${money(last.contingencyP80)}.`;
+  // Read within each scenario: a change from pre- to post-mitigation is the response, not a drawdown.
+  const reading = scenarios
+    .map((sc) => {
+      const own = rows.filter((r) => r.scenario === sc);
+      const head = mixed ? `${SCENARIO_LABEL[sc][0].toUpperCase()}${SCENARIO_LABEL[sc].slice(1)}: ` : '';
+      return own.length > 1
+        ? `${head}contingency at P80 went from ${money(own[0].contingencyP80)} to ${money(own[own.length - 1].contingencyP80)} over ${own.length} baselines.`
+        : `${head}one baseline so far, contingency at P80 ${money(own[0].contingencyP80)}.`;
+    })
+    .join(' ');
   const withSchedule = rows.some((r) => r.scheduleMarginP80 !== null);
 
   return (
