@@ -157,12 +157,13 @@ export function tornadoGeometry(
       height: row * 0.7,
     };
   });
-  const ticks = [0, 0.25, 0.5, 0.75, 1]
-    .map((k) => lo + k * (hi - lo))
-    .map((value) => ({
-      value: Number(value.toPrecision(6)),
-      at: sx(value),
-    }));
+  const tickValues = both
+    ? [-limit, -limit / 2, 0, limit / 2, limit]
+    : Array.from({ length: Math.round(limit / step) + 1 }, (_, k) => lo + k * step);
+  const ticks = tickValues.map((value) => ({
+    value: Number(value.toPrecision(6)),
+    at: sx(value),
+  }));
   return { plot, zero, bars, ticks };
 }
 

@@ -77,5 +77,8 @@ describe('tornado geometry', () => {
     const down = tornadoGeometry([{ label: 'A', value: -0.34 }], box, 100, 20);
     expect(down.zero).toBeCloseTo(300, 9);
     expect(down.ticks.map((t) => t.value)).toEqual([-0.4, -0.3, -0.2, -0.1, 0]);
+    // 0.52 rounds up to 0.6 on steps of 0.2: four round ticks, not quarters of the axis.
+    const mid = tornadoGeometry([{ label: 'A', value: 0.52 }], box, 100, 20);
+    expect(mid.ticks.map((t) => t.value)).toEqual([0, 0.2, 0.4, 0.6]);
   });
 });
