@@ -32,6 +32,8 @@ export class Approval extends Model<InferAttributes<Approval>, InferCreationAttr
   declare comment: string;
   declare stage: string;
   declare estimateClass: number;
+  /** The sponsor also started the run (only where the organisation allows it). */
+  declare selfApproved: CreationOptional<boolean>;
   declare createdAt: CreationOptional<Date>;
   declare run?: NonAttribute<SimulationRun>;
 }
@@ -46,6 +48,7 @@ Approval.init(
     comment: { type: DataTypes.TEXT, allowNull: false },
     stage: { type: DataTypes.STRING(40), allowNull: false },
     estimateClass: { type: DataTypes.TINYINT, allowNull: false },
+    selfApproved: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
     createdAt: DataTypes.DATE,
   },
   { sequelize, tableName: 'Approvals', updatedAt: false },

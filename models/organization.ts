@@ -14,6 +14,8 @@ export class Organization extends Model<
 > {
   declare id: CreationOptional<number>;
   declare name: string;
+  /** Whether the person who started a run may also approve it as the baseline. */
+  declare allowSelfApproval: CreationOptional<boolean>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -22,6 +24,7 @@ Organization.init(
   {
     id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
     name: { type: DataTypes.STRING(120), allowNull: false },
+    allowSelfApproval: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

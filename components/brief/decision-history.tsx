@@ -21,6 +21,9 @@ export function DecisionHistory({ decisions, projectId }: { decisions: DecisionV
             className={`py-1 font-medium ${d.decision === 'approved' ? 'text-cost-dark' : 'text-caution-dark'}`}
           >
             {d.decision === 'approved' ? 'Approved' : 'Returned'}
+            {d.selfApproved ? (
+              <span className="block text-2xs font-semibold uppercase text-caution-dark">self-approved</span>
+            ) : null}
           </td>
           <td className="py-1">{d.sponsorName}</td>
           <td className="py-1">

@@ -27,13 +27,19 @@ export function DecisionPanel({
   projectId,
   runId,
   levelText,
+  approveRefusal = null,
+  selfApproval = false,
 }: {
   projectId: number;
   runId: number;
   levelText: string;
+  /** Why this person may not approve the run (they started it); null when they may. */
+  approveRefusal?: string | null;
+  /** This person started the run and the organisation allows self-approval. */
+  selfApproval?: boolean;
 }) {
   const router = useRouter();
-  const [choice, setChoice] = useState<Choice>('approved');
+  const [choice, setChoice] = useState<Choice>(approveRefusal ? 'returned' : 'approved');
   const [comment, setComment] = useState('');
   const [error, setError] = useState<string | null>(null);
   const [commentError, setCommentError] = useState<string | null>(null);
@@ -64,6 +70,17 @@ export function DecisionPanel({
   return (
     <form onSubmit={submit} className="space-y-3" aria-label="Decision on this run" noValidate>
       {error ? <Notice tone="invalid">{error}</Notice> : null}
+      {approveRefusal ? (
+        <Notice tone="caution" title="Someone else approves this run">
+          <span data-testid="self-approval-refused">{approveRefusal}</span>
+        </Notice>
+      ) : null}
+      {selfApproval ? (
+        <p className="text-xs text-caution-dark" data-testid="self-approval-note">
+          You started this run. Your organisation allows self-approval, so you may approve it; the decision
+          will be marked self-approved on the brief and in the trend.
+        </p>
+      ) : null}
       <fieldset className="space-y-1.5">
         <legend className="text-sm font-medium text-ink-soft">Your decision</legend>
         {CHOICES.map((c) => (
@@ -73,6 +90,7 @@ export function DecisionPanel({
               name="decision"
               value={c.value}
               checked={choice === c.value}
+              disabled={c.value === 'approved' && approveRefusal !== null}
               onChange={() => setChoice(c.value)}
               className="mt-1"
             />

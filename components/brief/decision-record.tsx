@@ -11,6 +11,15 @@ export function DecisionRecord({ decision }: { decision: DecisionBrief }) {
     >
       <p className="font-semibold">
         {approved ? 'Approved as the baseline' : 'Returned for rework'} by {decision.sponsorName}
+        {decision.selfApproved ? (
+          <span
+            className="ml-2 rounded border border-caution/60 bg-caution-light px-1.5 py-0.5 text-2xs font-semibold uppercase tracking-wide text-caution-dark"
+            data-testid="self-approved"
+            title="The sponsor also started this run; the organisation allows self-approval."
+          >
+            Self-approved
+          </span>
+        ) : null}
       </p>
       <p className="text-xs">
         {dateTimeText(decision.decidedAt)} · {decision.stage} · Class {decision.estimateClass}

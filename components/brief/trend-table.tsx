@@ -1,5 +1,5 @@
 import { BriefLink } from './brief-link';
-import { formatMoney } from '@/lib/runs/format';
+import { formatChange, formatDays, formatMoney } from '@/lib/runs/format';
 import { dateText } from '@/lib/brief/format';
 import type { TrendRow } from '@/lib/brief/trend';
 import { Table, type HeadCell } from '@/components/ui/table';
@@ -8,10 +8,14 @@ const num = (title: string): HeadCell => ({ title, align: 'num', className: 'whi
 const HEAD: HeadCell[] = [
   'Approved',
   'Stage',
-  ...['Base', 'P50', 'P80', 'Contingency (P80)', 'Change'].map(num),
+  'Scenario',
+  ...['P50', 'P80', 'Contingency (P80)', 'Change', 'Schedule margin (P80)', 'Change'].map(num),
 ];
 
-/** The figures behind the trend chart, one row per approved baseline. */
+/**
+ * The figures behind the trend charts, one row per approved baseline. A change is measured from
+ * the previous baseline of the same scenario, never across pre- and post-mitigation.
+ */
 export function TrendTable({
   rows,
   currency,
@@ -22,10 +26,11 @@ export function TrendTable({
   projectId: number;
 }) {
   const m = (v: number) => formatMoney(v, currency);
+  const d = (v: number) => formatDays(v);
   return (
     <Table look="ruled" head={HEAD} className="w-full text-xs" data-testid="trend-table">
       {rows.map((r) => (
-        <tr key={r.approvalId} className="border-b border-rule">
+        <tr key={r.approvalId} className="border-b border-rule" data-testid={`trend-row-${r.runId}`}>
           <td className="py-1">
             <BriefLink projectId={projectId} runId={r.runId}>
               {dateText(r.decidedAt)}
@@ -33,18 +38,30 @@ export function TrendTable({
             <span className="block text-2xs text-ink-faint">
               run {r.runId} · {r.sponsorName}
             </span>
+            {r.selfApproved ? (
+              <span
+                className="block text-2xs font-semibold text-caution-dark"
+                data-testid="trend-self-approved"
+              >
+                self-approved
+              </span>
+            ) : null}
           </td>
           <td className="py-1">
             {r.stage} <span className="text-ink-faint">· C{r.estimateClass}</span>
           </td>
-          <td className="num whitespace-nowrap py-1">{m(r.base)}</td>
+          <td className="py-1">{r.scenario === 'post' ? 'post-mitigation' : 'pre-mitigation'}</td>
           <td className="num whitespace-nowrap py-1">{m(r.p50)}</td>
           <td className="num whitespace-nowrap py-1 font-medium">{m(r.p80)}</td>
           <td className="num whitespace-nowrap py-1">{m(r.contingencyP80)}</td>
           <td className="num whitespace-nowrap py-1 text-ink-soft">
-            {r.contingencyChange === null
-              ? '—'
-              : `${r.contingencyChange > 0 ? '+' : r.contingencyChange < 0 ? '−' : '±'}${m(Math.abs(r.contingencyChange))}`}
+            {r.contingencyChange === null ? '—' : formatChange(r.contingencyChange, m)}
+          </td>
+          <td className="num whitespace-nowrap py-1">
+            {r.scheduleMarginP80 === null ? '—' : d(r.scheduleMarginP80)}
+          </td>
+          <td className="num whitespace-nowrap py-1 text-ink-soft">
+            {r.scheduleMarginChange === null ? '—' : formatChange(r.scheduleMarginChange, d)}
           </td>
         </tr>
       ))}

@@ -17,6 +17,7 @@ const HEAD: HeadCell[] = [
   { title: <span className="sr-only">Compare</span>, padding: 'w-8 px-2 py-2' },
   ...['Run', 'Status', 'Started (UTC)', 'By', 'Settings'],
   ...['Cost P50', 'Cost P80', 'Duration P80'].map((title) => ({ title, align: 'right' as const })),
+  'Brief',
 ];
 
 const when = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' });
@@ -110,6 +111,19 @@ export function RunsHistory({
               </td>
               <td className="num px-3 py-1.5">
                 {r.summary?.duration ? formatDays(r.summary.duration.P80) : '—'}
+              </td>
+              <td className="px-3 py-1.5">
+                {r.status === 'succeeded' ? (
+                  <Link
+                    href={`/projects/${projectId}/runs/${r.id}/brief`}
+                    className="text-cost hover:underline"
+                    aria-label={`Brief of run ${r.id}`}
+                  >
+                    Brief
+                  </Link>
+                ) : (
+                  <span className="text-ink-faint">—</span>
+                )}
               </td>
             </tr>
           ))}

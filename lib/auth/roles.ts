@@ -16,6 +16,7 @@ const WHO_MAY = {
   'comment:write': ['owner', 'estimator', 'sponsor'],
   'members:read': ['owner'],
   'members:manage': ['owner'],
+  'organization:manage': ['owner'],
   'calendar:manage': ['owner'],
   'billing:read': ['owner', 'billing'],
   'billing:manage': ['owner', 'billing'],

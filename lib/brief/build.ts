@@ -2,10 +2,14 @@
  * Everything the brief shows, assembled from one run (its result and its input snapshot) and
  * its project. Pure: the page, the PDF and the JSON reply all render this one object.
  */
-import { checkAgainstClass, type ClassCheck } from './estimate-class';
+import { checkAgainstClass, isEstimateClass, type ClassCheck } from '@/lib/domain/estimate-class';
+import { finishDate, MONDAY_TO_FRIDAY, type WorkCalendar } from '@/lib/runs/working-days';
+import { allocationByTopWbs, type AllocationBrief } from './allocation';
+import { finishBrief, type FinishBrief } from './finish';
 import { topRiskExposures, type RiskExposure } from './risk-exposure';
+import { scenarioBrief, type Scenario, type ScenarioBrief } from './scenario';
 import { percentileCurve, topDrivers, type Point } from '@/lib/runs/outcome-data';
-import type { Interval, Model, SimulationResult, TotalSummary } from '@/lib/sim';
+import type { InputKind, Interval, Model, SensitivityEntry, SimulationResult, TotalSummary } from '@/lib/sim';
 import { contingencyAt, type Contingency } from '@/lib/domain/contingency';
 import { CONFIDENCE_LEVELS, type ConfidenceLevel } from '@/lib/validation/runs';
 
@@ -24,7 +28,17 @@ export type TotalBrief = {
   target: { value: number; probability: number; ci95: Interval } | null;
 };
 
-export type DriverBrief = { id: string; name: string; rankCorrelation: number; varianceShare: number };
+export type DriverBrief = {
+  id: string;
+  /** "C1 Sheet piling": the code and the name. */
+  name: string;
+  /** Line item, activity, risk event or risk driver (version 1 results do not say). */
+  kind: InputKind | null;
+  rankCorrelation: number;
+  varianceShare: number;
+  /** Mean total where the input is at its low and its high tenth (version 2 results). */
+  swing: Interval | null;
+};
 
 export type DecisionBrief = {
   id: number;
@@ -34,6 +48,8 @@ export type DecisionBrief = {
   decidedAt: string;
   stage: string;
   estimateClass: number;
+  /** Approved by the person who started the run (the organisation allows it). */
+  selfApproved: boolean;
 };
 
 export type BriefProject = {
@@ -43,6 +59,8 @@ export type BriefProject = {
   currency: string;
   stage: string;
   estimateClass: number;
+  /** The day work starts: finish dates count working days from it. */
+  baseDate: string;
   assumptions: string | null;
   exclusions: string | null;
   /** The project's version when the brief was read: editing its notes sends it back. */
@@ -61,6 +79,11 @@ export type BriefRun = {
   /** The confidence level the run was started to fund at. */
   confidence: ContingencyLevel;
   finishTarget: string | null;
+  /** The risk values the run was started with (a version 2 result may carry both). */
+  riskValues: Scenario;
+  startedById: number | null;
+  /** The working calendar stored with the run (Monday to Friday for runs made before calendars). */
+  calendar: WorkCalendar;
 };
 
 export type BriefData = {
@@ -70,7 +93,12 @@ export type BriefData = {
   duration: TotalBrief | null;
   contingency: Contingency & { level: ContingencyLevel };
   joint: { probability: number; ci95: Interval } | null;
+  scenario: ScenarioBrief;
+  /** Calendar dates of the finish, when the run has a schedule. */
+  finish: FinishBrief | null;
   drivers: DriverBrief[];
+  finishDrivers: DriverBrief[];
+  allocation: AllocationBrief | null;
   topRisks: RiskExposure[];
   classCheck: ClassCheck | null;
   engineWarnings: string[];
@@ -80,7 +108,11 @@ export type BriefData = {
 
 export type BriefSource = {
   project: BriefProject;
-  run: Omit<BriefRun, 'iterations' | 'seed' | 'sampling' | 'confidence'> & { confidence?: string | null };
+  run: Omit<BriefRun, 'iterations' | 'seed' | 'sampling' | 'confidence' | 'riskValues' | 'calendar'> & {
+    confidence?: string | null;
+    riskValues?: string | null;
+    calendar?: WorkCalendar | null;
+  };
   result: SimulationResult;
   snapshot: Model;
   decision?: DecisionBrief | null;
@@ -114,12 +146,24 @@ function inputNames(model: Model): Map<string, string> {
   return names;
 }
 
+function driversOf(entries: SensitivityEntry[], names: Map<string, string>, count: number): DriverBrief[] {
+  return topDrivers(entries, count).map((d) => ({
+    id: d.id,
+    name: names.get(d.id) ?? d.id,
+    kind: d.kind ?? null,
+    rankCorrelation: d.rankCorrelation,
+    varianceShare: d.varianceShare,
+    swing: d.swing ?? null,
+  }));
+}
+
 export function buildBrief(source: BriefSource, { drivers = 10, risks = 8 } = {}): BriefData {
   const { result, snapshot, project } = source;
   const level = (CONFIDENCE_LEVELS as readonly string[]).includes(source.run.confidence ?? '')
     ? (source.run.confidence as ContingencyLevel)
     : 'P80';
 
+  const calendar = source.run.calendar ?? MONDAY_TO_FRIDAY;
   const cost = totalBrief(result.cost);
   const within = result.cost.probabilityWithinTarget;
   if (within && snapshot.targets?.cost !== undefined)
@@ -133,14 +177,17 @@ export function buildBrief(source: BriefSource, { drivers = 10, risks = 8 } = {}
   }
 
   const names = inputNames(snapshot);
-  let classCheck: ClassCheck | null = null;
-  if (result.cost.base > 0 && project.estimateClass >= 1 && project.estimateClass <= 5)
-    classCheck = checkAgainstClass(
-      project.estimateClass,
-      result.cost.base,
-      result.cost.percentiles.P10,
-      result.cost.percentiles.P90,
-    );
+  const { P10, P50, P90 } = result.cost.percentiles;
+  const classCheck: ClassCheck | null =
+    isEstimateClass(project.estimateClass) && P50 > 0
+      ? checkAgainstClass(project.estimateClass, P10, P50, P90)
+      : null;
+  const finishTarget = duration?.target
+    ? {
+        days: duration.target.value,
+        date: source.run.finishTarget ?? finishDate(project.baseDate, duration.target.value, calendar),
+      }
+    : null;
 
   return {
     project,
@@ -150,15 +197,20 @@ export function buildBrief(source: BriefSource, { drivers = 10, risks = 8 } = {}
       seed: result.seed,
       sampling: result.sampling,
       confidence: level,
+      riskValues: source.run.riskValues === 'post' ? 'post' : 'pre',
+      calendar,
     },
     cost,
     duration,
     contingency: { ...contingencyAt(result.cost, level), level },
-    joint: result.joint ?? null,
-    drivers: topDrivers(result.sensitivity.cost, drivers).map((d) => ({
-      ...d,
-      name: names.get(d.id) ?? d.id,
-    })),
+    joint: result.joint ? { probability: result.joint.probability, ci95: result.joint.ci95 } : null,
+    scenario: scenarioBrief(result, snapshot, source.run.riskValues === 'post' ? 'post' : 'pre'),
+    finish: result.duration
+      ? finishBrief(result.duration, project.baseDate, level, finishTarget, calendar)
+      : null,
+    drivers: driversOf(result.sensitivity.cost, names, drivers),
+    finishDrivers: result.duration ? driversOf(result.sensitivity.duration, names, drivers) : [],
+    allocation: result.allocation ? allocationByTopWbs(result.allocation, snapshot) : null,
     topRisks: topRiskExposures(snapshot, risks),
     classCheck,
     engineWarnings: result.warnings ?? [],

@@ -17,10 +17,12 @@ export function probabilityText(p: number, ci95?: Interval): string {
   return ci95 ? `${pct(p)} % (95 % interval ${pct(ci95[0])}–${pct(ci95[1])} %)` : `${pct(p)} %`;
 }
 
-/** A signed share of the base: "+12 %", "−8 %". */
-export function signedPercent(x: number): string {
-  const rounded = Math.round(x * 100);
-  return `${rounded > 0 ? '+' : rounded < 0 ? '−' : '±'}${Math.abs(rounded)} %`;
+/** A signed share of the base: "+12 %", "−8 %"; with `digits`, "+9.6 %". */
+export function signedPercent(x: number, digits = 0): string {
+  const scale = 10 ** digits;
+  const rounded = Math.round(x * 100 * scale) / scale;
+  const sign = rounded > 0 ? '+' : rounded < 0 ? '−' : '±';
+  return `${sign}${Math.abs(rounded).toFixed(digits)} %`;
 }
 
 /**

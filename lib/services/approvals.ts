@@ -15,9 +15,11 @@ import { parseOrThrow } from '@/lib/validation/parse';
 import { notifyDecision } from '@/lib/mail';
 import { recipientsWithRole } from './notifications';
 import { moneyWithInterval } from '@/lib/brief/format';
+import { selfApprovalRefusal } from '@/lib/brief/wording';
 import { trendRows, type TrendRow } from '@/lib/brief/trend';
 import type { SimulationResult } from '@/lib/sim';
 import { recordAudit } from './audit';
+import { selfApprovalAllowed } from './organization-settings';
 import { findProject } from './projects';
 import type { DecisionView } from '@/lib/view-types/approvals';
 
@@ -33,6 +35,7 @@ export function toDecisionView(a: Approval): DecisionView {
     stage: a.stage,
     estimateClass: a.estimateClass,
     decidedAt: new Date(a.createdAt).toISOString(),
+    selfApproved: Boolean(a.selfApproved),
   };
 }
 
@@ -109,13 +112,16 @@ export async function decideOnRun(actor: Actor, projectId: number, input: unknow
   const project = await findProject(actor, projectId);
   const run = await SimulationRun.findOne({
     where: { id: data.runId, projectId: project.id, organizationId: actor.organizationId },
-    attributes: ['id', 'status', 'result'],
+    attributes: ['id', 'status', 'result', 'startedById'],
   });
   if (!run) throw notFound('Run');
   if (run.status !== 'succeeded' || !run.result)
     throw conflict(`Run ${run.id} is ${run.status}: only a run that succeeded can be decided on.`);
   const earlier = await Approval.findOne({ where: { runId: run.id }, attributes: ['id'] });
   if (earlier) throw conflict(`Run ${run.id} already has a decision; a decision cannot be changed.`);
+  const selfApproved = data.decision === 'approved' && run.startedById === actor.userId;
+  if (selfApproved && !(await selfApprovalAllowed(actor.organizationId)))
+    throw forbidden(selfApprovalRefusal(run.id));
 
   const result = JSON.parse(run.result) as SimulationResult;
   try {
@@ -131,6 +137,7 @@ export async function decideOnRun(actor: Actor, projectId: number, input: unknow
           comment: data.comment,
           stage: project.stage,
           estimateClass: project.estimateClass,
+          selfApproved,
         },
         { transaction },
       );
@@ -180,7 +187,7 @@ export async function listBaselines(actor: Actor, projectId: number): Promise<Tr
   const project = await findProject(actor, projectId);
   const approvals = await Approval.findAll({
     where: { projectId: project.id, organizationId: actor.organizationId, decision: 'approved' },
-    include: [{ model: SimulationRun, as: 'run', attributes: ['id', 'result'] }],
+    include: [{ model: SimulationRun, as: 'run', attributes: ['id', 'result', 'settings'] }],
     order: [
       ['createdAt', 'ASC'],
       ['id', 'ASC'],
@@ -196,6 +203,8 @@ export async function listBaselines(actor: Actor, projectId: number): Promise<Tr
         stage: a.stage,
         estimateClass: a.estimateClass,
         sponsorName: a.sponsorName,
+        selfApproved: Boolean(a.selfApproved),
+        riskValues: a.run!.settings?.riskValues ?? null,
         result: JSON.parse(a.run!.result!) as SimulationResult,
       })),
   );

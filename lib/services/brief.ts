@@ -3,7 +3,8 @@ import 'server-only';
  * The brief of a run: one read that gathers the run's stored result and input snapshot, the
  * project's notes and the decision, and one write that puts the brief before the sponsors.
  */
-import { AuditEntry, type Project, User, sequelize } from '@/models';
+import { Op } from 'sequelize';
+import { Approval, AuditEntry, Project, SimulationRun, User, sequelize } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
 import { conflict, forbidden } from '@/lib/errors';
@@ -16,6 +17,7 @@ import { recordAudit } from './audit';
 import { notesOf } from './project-notes';
 import { findProject } from './projects';
 import { getRunOutcome } from './runs';
+import type { AwaitingBrief } from '@/lib/view-types/approvals';
 
 const SENT_ACTION = 'request-decision';
 
@@ -55,6 +57,9 @@ export async function getBrief(actor: Actor, projectId: number, runId: number): 
       finishedAt: outcome.run.finishedAt,
       confidence: outcome.run.settings?.confidence ?? null,
       finishTarget: outcome.run.settings?.finishTarget ?? null,
+      riskValues: outcome.run.settings?.riskValues ?? null,
+      startedById: outcome.run.startedBy?.id ?? null,
+      calendar: outcome.run.settings?.calendar ?? null,
     },
     result: outcome.result,
     snapshot: outcome.snapshot,
@@ -65,8 +70,8 @@ export async function getBrief(actor: Actor, projectId: number, runId: number): 
 
 /** The project as the brief names it. */
 function briefProject(project: Project): BriefProject {
-  const { id, name, code, currency, stage, estimateClass, version } = project;
-  return { id, name, code, currency, stage, estimateClass, version, ...notesOf(project) };
+  const { id, name, code, currency, stage, estimateClass, baseDate, version } = project;
+  return { id, name, code, currency, stage, estimateClass, baseDate, version, ...notesOf(project) };
 }
 
 /**
@@ -112,4 +117,66 @@ export async function sendBriefToSponsors(
     );
     return { sponsors: sponsors.length, sentAt: new Date().toISOString() };
   });
+}
+
+/**
+ * The briefs put before the sponsors that have no decision yet, most recently sent first: what a
+ * sponsor (or an owner) who decides on baselines sees first on signing in. Runs of archived
+ * projects are left out; a run this actor started is flagged, since by default they may not
+ * approve it themselves.
+ */
+export async function briefsAwaitingDecision(actor: Actor, limit = 20): Promise<AwaitingBrief[]> {
+  if (!can(actor.role, 'baseline:decide')) return [];
+  const sent = await AuditEntry.findAll({
+    where: { organizationId: actor.organizationId, entity: 'brief', action: SENT_ACTION },
+    include: [{ model: User, as: 'user', attributes: ['name'] }],
+    attributes: ['id', 'entityId', 'createdAt'],
+    order: [['id', 'DESC']],
+    limit: 500,
+  });
+  const latest = new Map<number, { at: Date; byName: string }>();
+  for (const entry of sent) {
+    const runId = Number(entry.entityId);
+    const user = (entry as AuditEntry & { user?: { name: string } }).user;
+    if (Number.isInteger(runId) && !latest.has(runId))
+      latest.set(runId, { at: new Date(entry.createdAt), byName: user?.name ?? 'A former member' });
+  }
+  if (!latest.size) return [];
+  const runIds = [...latest.keys()];
+  const [decided, runs] = await Promise.all([
+    Approval.findAll({
+      where: { organizationId: actor.organizationId, runId: { [Op.in]: runIds } },
+      attributes: ['runId'],
+    }),
+    SimulationRun.findAll({
+      where: { organizationId: actor.organizationId, id: { [Op.in]: runIds }, status: 'succeeded' },
+      attributes: ['id', 'projectId', 'startedById'],
+      include: [
+        {
+          model: Project,
+          as: 'project',
+          attributes: ['id', 'code', 'name'],
+          where: { archivedAt: null },
+        },
+      ],
+    }),
+  ]);
+  const done = new Set(decided.map((a) => a.runId));
+  return runs
+    .filter((r) => !done.has(r.id))
+    .map((r) => {
+      const project = (r as SimulationRun & { project: Project }).project;
+      const sentAt = latest.get(r.id)!;
+      return {
+        projectId: project.id,
+        projectCode: project.code,
+        projectName: project.name,
+        runId: r.id,
+        sentAt: sentAt.at.toISOString(),
+        sentByName: sentAt.byName,
+        startedByYou: r.startedById === actor.userId,
+      };
+    })
+    .sort((a, b) => b.sentAt.localeCompare(a.sentAt) || b.runId - a.runId)
+    .slice(0, limit);
 }

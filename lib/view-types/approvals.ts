@@ -11,4 +11,18 @@ export type DecisionView = {
   stage: string;
   estimateClass: number;
   decidedAt: string;
+  /** Approved by the person who started the run (the organisation allows it). */
+  selfApproved: boolean;
+};
+
+/** A brief put before the sponsors that awaits a decision. */
+export type AwaitingBrief = {
+  projectId: number;
+  projectCode: string;
+  projectName: string;
+  runId: number;
+  sentAt: string;
+  sentByName: string;
+  /** The person looking started this run (by default they may not approve it). */
+  startedByYou: boolean;
 };

@@ -62,6 +62,14 @@ describe('the brief PDF', () => {
     expect(text).toContain('Land purchase and legal fees.');
     expect(text).toContain('R1 Contaminated silt');
     expect(text).toContain('Read these figures with care');
+    // The headline sentence of the page is printed too, naming the scenario and the targets
+    // (read with its line breaks folded).
+    const flat = text.replace(/\s+/g, ' ');
+    expect(flat).toContain('Funding at P80 (before any risk response) means a budget of');
+    expect(flat).toContain('chance of staying within the cost target of €7,500,000');
+    expect(flat).toContain('No finish target was given');
+    expect(text).toContain('ESTIMATE-CLASS CHECK (CLASS 3)');
+    expect(flat).toMatch(/Verdict (narrower than|within|wider than) the class/);
   });
 
   it('comes on A4 by default and on US Letter when asked', async () => {

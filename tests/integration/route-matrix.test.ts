@@ -131,6 +131,8 @@ async function organisation(label: string, everyRole: boolean): Promise<OrgRecor
     expect(['queued', 'running']).toContain(run.json.run.status);
     await new Promise((r) => setTimeout(r, 200));
   }
+  // The owner started the run: approving it too needs the organisation's leave (separation of duties).
+  expect((await owner.put('/api/organization', { allowSelfApproval: true })).status).toBe(200);
   const decided = await owner.post(`/api/projects/${projectId}/decisions`, { runId, decision: 'approved' });
   expect(decided.status).toBe(201);
   const first = async (register: string) =>

@@ -58,4 +58,27 @@ describe('tornado geometry', () => {
     expect(g.bars[1].y).toBeGreaterThan(g.bars[0].y);
     expect(g.ticks.map((t) => t.value)).toEqual([-0.7, -0.35, 0, 0.35, 0.7]);
   });
+
+  it('uses a half axis from zero when every driver pushes the same way', () => {
+    const box = { x: 0, y: 0, width: 318, height: 120 };
+    const up = tornadoGeometry(
+      [
+        { label: 'A', value: 0.62 },
+        { label: 'B', value: 0.3 },
+      ],
+      box,
+      100,
+      20,
+    );
+    // 0 to 0.8 (0.62 rounded up to a step of 0.2) over the 200 pt plot: zero on its left edge.
+    expect(up.zero).toBeCloseTo(100, 9);
+    expect(up.bars[0].width).toBeCloseTo((0.62 / 0.8) * 200, 9);
+    expect(up.ticks.map((t) => t.value)).toEqual([0, 0.2, 0.4, 0.6, 0.8]);
+    const down = tornadoGeometry([{ label: 'A', value: -0.34 }], box, 100, 20);
+    expect(down.zero).toBeCloseTo(300, 9);
+    expect(down.ticks.map((t) => t.value)).toEqual([-0.4, -0.3, -0.2, -0.1, 0]);
+    // 0.52 rounds up to 0.6 on steps of 0.2: four round ticks, not quarters of the axis.
+    const mid = tornadoGeometry([{ label: 'A', value: 0.52 }], box, 100, 20);
+    expect(mid.ticks.map((t) => t.value)).toEqual([0, 0.2, 0.4, 0.6]);
+  });
 });

@@ -34,6 +34,42 @@ describe('trend rows', () => {
     expect(rows[1]).toMatchObject({ base: 1000, p50: 1080, p80: 1150, stage: 'Detailed design' });
   });
 
+  it('measures each change within its own scenario and the schedule margin at P80', () => {
+    const row = (
+      approvalId: number,
+      month: string,
+      scenario: 'pre' | 'post',
+      c: [number, number],
+      d: [number, number],
+    ) => ({
+      approvalId,
+      runId: approvalId * 10,
+      decidedAt: `2026-${month}-01T00:00:00.000Z`,
+      stage: 'Gate',
+      estimateClass: 3,
+      sponsorName: 'S',
+      riskValues: scenario,
+      result: {
+        ...cost(c[0], c[1], c[1]),
+        duration: {
+          base: d[0],
+          percentiles: { P50: d[1], P80: d[1] },
+        } as unknown as BaselineSource['result']['cost'],
+      },
+    });
+    const rows = trendRows([
+      row(1, '01', 'pre', [1000, 1400], [200, 260]),
+      row(2, '02', 'post', [1000, 1250], [200, 240]),
+      row(3, '03', 'pre', [1000, 1300], [200, 250]),
+    ]);
+    expect(rows.map((r) => r.scenario)).toEqual(['pre', 'post', 'pre']);
+    // Contingency P80 − base: 400, 250, 300; the third compares with the first (both pre), 300 − 400.
+    expect(rows.map((r) => r.contingencyChange)).toEqual([null, null, -100]);
+    // Schedule margin, duration P80 − base duration: 60, 40, 50 working days; 50 − 60 for the third.
+    expect(rows.map((r) => r.scheduleMarginP80)).toEqual([60, 40, 50]);
+    expect(rows.map((r) => r.scheduleMarginChange)).toEqual([null, null, -10]);
+  });
+
   it('is empty without baselines', () => {
     expect(trendRows([])).toEqual([]);
   });

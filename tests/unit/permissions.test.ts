@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { ACTIONS, can, PAID_ROLES, ROLES } from '@/lib/auth/roles';
+import { landingPath } from '@/lib/auth/landing';
 
 // The role table of the product design: owner everything; estimator edits and runs;
 // sponsor reads, approves and comments; billing manages seats and sees no project data.
@@ -25,6 +26,19 @@ describe('permission table', () => {
 
   it('keeps billing members away from project data', () => {
     expect(ACTIONS.filter((a) => can('billing', a))).toEqual(['billing:read', 'billing:manage']);
+  });
+
+  it("leaves the organisation's own settings (self-approval) to owners", () => {
+    expect(ROLES.filter((r) => can(r, 'organization:manage'))).toEqual(['owner']);
+  });
+
+  it('starts each role on a page it may see: billing on billing, the others on the projects', () => {
+    expect(Object.fromEntries(ROLES.map((r) => [r, landingPath(r)]))).toEqual({
+      owner: '/projects',
+      estimator: '/projects',
+      sponsor: '/projects',
+      billing: '/settings/billing',
+    });
   });
 
   it('counts owners and estimators as paid seats only', () => {

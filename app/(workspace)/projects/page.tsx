@@ -1,6 +1,10 @@
 import Link from 'next/link';
+import { redirect } from 'next/navigation';
 import { requirePageActor } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/roles';
+import { landingPath } from '@/lib/auth/landing';
+import { briefsAwaitingDecision } from '@/lib/services/brief';
+import { AwaitingDecision } from '@/components/brief/awaiting-decision';
 import { listProjectsWithEstimates } from '@/lib/services/projects';
 import { latestRunSummaries } from '@/lib/services/runs';
 import { formatMoney } from '@/lib/registers/numbers';
@@ -15,7 +19,9 @@ export default async function ProjectsPage({
 }: {
   searchParams: Promise<{ archived?: string }>;
 }) {
-  const actor = await requirePageActor('project:read', '/projects');
+  const actor = await requirePageActor(undefined, '/projects');
+  // The workspace's front door: a role that reads no projects starts on its own page instead.
+  if (!can(actor.role, 'project:read')) redirect(landingPath(actor.role));
   const showArchived = (await searchParams).archived === '1';
   const projects = await listProjectsWithEstimates(actor, { includeArchived: showArchived });
   const latest = await latestRunSummaries(
@@ -23,8 +29,12 @@ export default async function ProjectsPage({
     projects.map((p) => p.id),
   );
   const mayWrite = can(actor.role, 'project:write');
+  const awaiting = await briefsAwaitingDecision(actor);
+  // Those who decide without preparing (sponsors) come to decide: the list comes first, even empty.
+  const showAwaiting = can(actor.role, 'baseline:decide') && (awaiting.length > 0 || !mayWrite);
   return (
     <div className="space-y-5">
+      {showAwaiting ? <AwaitingDecision briefs={awaiting} /> : null}
       <div className="flex items-baseline justify-between">
         <h1 className="text-2xl font-semibold">Projects</h1>
         <Link

@@ -4,13 +4,26 @@
  * every width is taken from the page.
  */
 import PDFDocument from 'pdfkit';
-import { formatDays, formatMoney } from '@/lib/runs/format';
+import { formatDate, formatDays, formatMoney, formatMoneyShort, formatShare } from '@/lib/runs/format';
+import { calendarText, finishDate } from '@/lib/runs/working-days';
+import { CLASS_CHECK_SOURCE } from '@/lib/domain/estimate-class';
 import { contingencyOver } from '@/lib/domain/contingency';
 import { percentileOf, type BriefData, type TotalBrief } from '../build';
 import { dateText, dateTimeText, moneyWithInterval, probabilityText, signedPercent } from '../format';
-import { BRIEF_CAUTION, classRangeText, simulatedRangeText } from '../wording';
+import { finishRows } from '../finish';
+import { headlineText } from '../headline';
+import {
+  BRIEF_CAUTION,
+  SCENARIO_TEXT,
+  VERDICT_TEXT,
+  classBandsText,
+  classCheckWarnings,
+  responsesText,
+  scenarioRows,
+  simulatedRangeText,
+} from '../wording';
 import { PDF_COLOURS as C } from './palette';
-import { drawSCurve } from './s-curve';
+import { drawSCurve, type PdfMarker } from './s-curve';
 import { drawTornado } from './tornado';
 import { pdfText } from './text';
 
@@ -240,6 +253,132 @@ function targets(w: Writer, brief: BriefData) {
     );
 }
 
+function scenarioSection(w: Writer, brief: BriefData) {
+  const { scenario } = brief;
+  const text = SCENARIO_TEXT[scenario.used];
+  w.heading('Scenario');
+  w.paragraph(`${text.title}. ${text.detail} ${responsesText(scenario, brief.project.currency)}`);
+  const rows = scenarioRows(scenario, brief.project.currency);
+  if (!rows.length) return;
+  w.table(
+    [
+      { label: 'Same run, same random numbers', width: 3 },
+      { label: 'Before responses', width: 2, align: 'right' },
+      { label: 'After responses', width: 2, align: 'right' },
+      { label: 'What the responses buy', width: 2, align: 'right' },
+    ],
+    rows,
+  );
+}
+
+function finishSection(w: Writer, brief: BriefData) {
+  const { finish, duration } = brief;
+  if (!finish || !duration) return;
+  const dateOf = (days: number) => formatDate(finishDate(finish.baseDate, days, finish.calendar));
+  w.heading('Finish dates', 60);
+  const rows = finishRows(finish).map((r) => [
+    r.label,
+    formatDate(r.date),
+    formatDays(r.days, r.wholeDays ? 0 : 1),
+  ]);
+  w.table(
+    [
+      { label: 'Finish', width: 2 },
+      { label: 'Date', width: 2, align: 'right' },
+      { label: `Working days from ${formatDate(finish.baseDate)}`, width: 3, align: 'right' },
+    ],
+    rows,
+  );
+  w.paragraph(
+    `80 % of simulated outcomes finish by ${formatDate(finish.p80.date)} (working days ${calendarText(finish.calendar)}).`,
+    {
+      size: 8,
+      colour: C.soft,
+    },
+  );
+  const markers: PdfMarker[] = [
+    { label: 'P50', value: finish.p50.days, tone: 'base' },
+    { label: finish.atLevel.level, value: finish.atLevel.days, tone: 'level' },
+  ];
+  if (finish.atLevel.level !== 'P80') markers.push({ label: 'P80', value: finish.p80.days, tone: 'level' });
+  if (finish.target) markers.push({ label: 'Target', value: finish.target.days, tone: 'target' });
+  w.room(150);
+  drawSCurve(
+    w.doc,
+    duration.curve,
+    markers,
+    dateOf,
+    { x: w.left, y: w.y, width: w.width, height: 140 },
+    C.time,
+  );
+  w.y += 148;
+}
+
+function classCheck(w: Writer, brief: BriefData) {
+  const check = brief.classCheck!;
+  const { narrowest, widest } = classBandsText(check);
+  w.heading(`Estimate-class check (Class ${check.estimateClass})`);
+  w.table(
+    [
+      {
+        label: `Range as a share of the P50 of cost (${formatMoney(check.reference, brief.project.currency)})`,
+        width: 4,
+      },
+      { label: 'Low side', width: 1.6, align: 'right' },
+      { label: 'High side', width: 1.6, align: 'right' },
+    ],
+    [
+      ['Simulated P10 and P90', ...simulatedRangeText(check)],
+      [`Class ${check.estimateClass}, narrowest expected`, ...narrowest],
+      [`Class ${check.estimateClass}, widest expected`, ...widest],
+      ['Verdict', VERDICT_TEXT[check.low], VERDICT_TEXT[check.high]],
+    ],
+  );
+  w.paragraph(
+    `Measured around the estimate including contingency at about P50, not around the base, on each side. Source: ${CLASS_CHECK_SOURCE}; check them against the current revision. Reading the class ranges as a P10-P90 range is common practice.`,
+    { size: 7.5, colour: C.faint },
+  );
+  const warnings = classCheckWarnings(check);
+  if (warnings.length) w.caution("The simulated range is out of the class's band", warnings.join(' '));
+}
+
+function allocationSection(w: Writer, brief: BriefData) {
+  const a = brief.allocation;
+  if (!a) return;
+  const money = (v: number) => formatMoney(v, brief.project.currency);
+  w.heading('Where the contingency sits (by top-level WBS)');
+  w.table(
+    [
+      { label: 'Top-level WBS', width: 4 },
+      { label: 'Lines', width: 1, align: 'right' },
+      { label: `Contingency at ${a.level}`, width: 2, align: 'right' },
+      { label: 'Share', width: 1, align: 'right' },
+    ],
+    [
+      ...a.rows.map((r) => [
+        r.wbs !== null && r.name !== `WBS ${r.wbs}` ? `${r.wbs} ${r.name}` : r.name,
+        String(r.count),
+        money(r.amount),
+        r.share === null ? '—' : formatShare(r.share, 0),
+      ]),
+      ['Total', '', money(a.total), a.contingency ? formatShare(a.total / a.contingency, 0) : '—'],
+    ],
+  );
+  w.paragraph(
+    `Euler allocation: each line's mean cost over base in the outcomes nearest the ${a.level} total. The contingency at ${a.level} is ${money(a.contingency)}.`,
+    { size: 7.5, colour: C.faint },
+  );
+}
+
+function driversSection(w: Writer, drivers: BriefData['drivers'], title: string) {
+  if (!drivers.length) return;
+  const height = Math.max(60, drivers.length * 15 + 22);
+  w.heading(title, height + 6);
+  w.room(height + 6);
+  drawTornado(w.doc, drivers, { x: w.left, y: w.y, width: w.width, height });
+  w.y += height + 6;
+}
+
 export async function renderBriefPdf(
   brief: BriefData,
   { paper = 'A4' }: { paper?: 'A4' | 'LETTER' } = {},
@@ -264,7 +403,10 @@ export async function renderBriefPdf(
   const currency = brief.project.currency;
   const money = (v: number) => formatMoney(v, currency);
   header(w, brief);
+  w.paragraph(headlineText(brief), { size: 10.5 });
+  w.y += 2;
   headlineFigures(w, brief);
+  scenarioSection(w, brief);
 
   w.heading('Confidence levels of total cost');
   w.table(percentileColumns('Cost'), percentileRows(brief.cost, money));
@@ -277,21 +419,8 @@ export async function renderBriefPdf(
   }
   targets(w, brief);
 
-  if (brief.classCheck) {
-    w.heading(`Estimate-class check (AACE RP 18R-97, Class ${brief.classCheck.estimateClass})`);
-    w.table(
-      [
-        { label: 'Range', width: 3 },
-        { label: 'Low', width: 1, align: 'right' },
-        { label: 'High', width: 1, align: 'right' },
-      ],
-      [
-        ['Simulated P10–P90, as share of base', ...simulatedRangeText(brief.classCheck)],
-        [`Class ${brief.classCheck.estimateClass} expected accuracy`, ...classRangeText(brief.classCheck)],
-      ],
-    );
-    if (brief.classCheck.warning) w.caution('The simulated range looks narrow', brief.classCheck.warning);
-  }
+  if (brief.classCheck) classCheck(w, brief);
+  finishSection(w, brief);
 
   w.heading('Cost S-curve', 190);
   w.paragraph(
@@ -299,16 +428,24 @@ export async function renderBriefPdf(
     { size: 8, colour: C.soft },
   );
   w.room(175);
-  drawSCurve(doc, brief, { x: w.left, y: w.y, width: w.width, height: 170 });
+  const costMarkers: PdfMarker[] = [
+    { label: 'Base', value: brief.cost.base, tone: 'base' },
+    { label: brief.contingency.level, value: brief.contingency.value, tone: 'level' },
+  ];
+  if (brief.cost.target)
+    costMarkers.push({ label: 'Target', value: brief.cost.target.value, tone: 'target' });
+  drawSCurve(doc, brief.cost.curve, costMarkers, (v) => formatMoneyShort(v, currency), {
+    x: w.left,
+    y: w.y,
+    width: w.width,
+    height: 170,
+  });
   w.y += 178;
 
-  if (brief.drivers.length) {
-    const height = Math.max(60, brief.drivers.length * 15 + 22);
-    w.heading('Top drivers of cost (rank correlation)', height + 6);
-    w.room(height + 6);
-    drawTornado(doc, brief.drivers, { x: w.left, y: w.y, width: w.width, height });
-    w.y += height + 6;
-  }
+  allocationSection(w, brief);
+  driversSection(w, brief.drivers, 'Top drivers of cost (rank correlation, every kind of input)');
+  if (brief.duration)
+    driversSection(w, brief.finishDrivers, 'Top drivers of finish (rank correlation, every kind of input)');
 
   w.heading('Top risk events by expected cost');
   if (!brief.topRisks.length) w.paragraph('The run had no risk events.', { colour: C.soft });
@@ -361,7 +498,7 @@ export async function renderBriefPdf(
   w.heading('Decision');
   if (brief.decision)
     w.paragraph(
-      `${brief.decision.decision === 'approved' ? 'Approved as the baseline' : 'Returned'} by ${brief.decision.sponsorName} on ${dateTimeText(brief.decision.decidedAt)} (${brief.decision.stage}, Class ${brief.decision.estimateClass}).${brief.decision.comment ? ` “${brief.decision.comment}”` : ''}`,
+      `${brief.decision.decision === 'approved' ? 'Approved as the baseline' : 'Returned'}${brief.decision.selfApproved ? ' (self-approved: the sponsor also started the run)' : ''} by ${brief.decision.sponsorName} on ${dateTimeText(brief.decision.decidedAt)} (${brief.decision.stage}, Class ${brief.decision.estimateClass}).${brief.decision.comment ? ` “${brief.decision.comment}”` : ''}`,
     );
   else w.paragraph('Awaiting a sponsor’s decision.', { colour: C.soft });
 

@@ -1,20 +1,23 @@
-// The cost S-curve drawn with pdfkit's vector primitives from the brief's data.
+// An S-curve (cost or finish) drawn with pdfkit's vector primitives from the brief's data: the same
+// geometry and the same smooth monotone curve as the page's SVG.
 import type PDFKit from 'pdfkit';
-import { formatMoneyShort } from '@/lib/runs/format';
-import { sCurveGeometry, type Box } from '../chart-geometry';
-import type { BriefData } from '../build';
+import { monotoneCubic, sCurveGeometry, type Box } from '../chart-geometry';
 import { PDF_COLOURS as C } from './palette';
 import { pdfText } from './text';
 
-export function drawSCurve(doc: PDFKit.PDFDocument, brief: BriefData, box: Box): void {
-  const currency = brief.project.currency;
-  const markers = [
-    { label: 'Base', value: brief.cost.base },
-    { label: brief.contingency.level, value: brief.contingency.value },
-  ];
-  if (brief.cost.target) markers.push({ label: 'Target', value: brief.cost.target.value });
-  const g = sCurveGeometry(brief.cost.curve, box, markers);
+export type PdfMarker = { label: string; value: number; tone: 'base' | 'level' | 'target' };
+
+export function drawSCurve(
+  doc: PDFKit.PDFDocument,
+  curve: { x: number; y: number }[],
+  markers: PdfMarker[],
+  tickText: (v: number) => string,
+  box: Box,
+  colour: string = C.cost,
+): void {
+  const g = sCurveGeometry(curve, box, markers);
   const { plot } = g;
+  const toneOf = new Map(markers.map((m) => [m.label, m.tone]));
 
   doc.save();
   doc.lineWidth(0.5).strokeColor(C.rule);
@@ -30,12 +33,15 @@ export function drawSCurve(doc: PDFKit.PDFDocument, brief: BriefData, box: Box):
       align: 'right',
       lineBreak: false,
     });
-  for (const t of g.xTicks)
-    doc.text(pdfText(formatMoneyShort(t.value, currency)), t.at - 30, plot.y + plot.height + 4, {
-      width: 60,
-      align: 'center',
+  g.xTicks.forEach((t, i) => {
+    // The last label ends at the axis's end, so a long one (a date) stays inside the margin.
+    const last = i === g.xTicks.length - 1;
+    doc.text(pdfText(tickText(t.value)), last ? t.at - 64 : t.at - 32, plot.y + plot.height + 4, {
+      width: 64,
+      align: last ? 'right' : 'center',
       lineBreak: false,
     });
+  });
 
   doc.lineWidth(0.75).strokeColor(C.soft);
   doc
@@ -45,8 +51,9 @@ export function drawSCurve(doc: PDFKit.PDFDocument, brief: BriefData, box: Box):
     .stroke();
 
   for (const m of g.markers) {
-    const colour = m.label === 'Base' ? C.faint : m.label === 'Target' ? C.caution : C.cost;
-    doc.lineWidth(0.75).strokeColor(colour).dash(2, { space: 2 });
+    const tone = toneOf.get(m.label) ?? 'level';
+    const c = tone === 'base' ? C.faint : tone === 'target' ? C.caution : C.cost;
+    doc.lineWidth(0.75).strokeColor(c).dash(2, { space: 2 });
     doc
       .moveTo(m.at, plot.y)
       .lineTo(m.at, plot.y + plot.height)
@@ -54,14 +61,15 @@ export function drawSCurve(doc: PDFKit.PDFDocument, brief: BriefData, box: Box):
       .undash();
     doc
       .fontSize(6.5)
-      .fillColor(colour)
-      .text(m.label, m.at + 2, plot.y + 2, { lineBreak: false });
+      .fillColor(c)
+      .text(m.label, m.at + 2, plot.y + 2 + m.row * 8, { lineBreak: false });
   }
 
-  if (g.line.length) {
-    doc.lineWidth(1.5).strokeColor(C.cost).lineJoin('round');
-    doc.moveTo(g.line[0].x, g.line[0].y);
-    for (const p of g.line.slice(1)) doc.lineTo(p.x, p.y);
+  const { start, segments } = monotoneCubic(g.line);
+  if (start) {
+    doc.lineWidth(1.5).strokeColor(colour).lineJoin('round');
+    doc.moveTo(start.x, start.y);
+    for (const s of segments) doc.bezierCurveTo(s.c1.x, s.c1.y, s.c2.x, s.c2.y, s.to.x, s.to.y);
     doc.stroke();
   }
   doc.restore();

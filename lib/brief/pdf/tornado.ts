@@ -1,15 +1,19 @@
-// The tornado (rank correlation of each input with total cost) drawn with pdfkit primitives.
+// The tornado (rank correlation of each input with a total) drawn with pdfkit primitives.
 import type PDFKit from 'pdfkit';
 import { tornadoGeometry, type Box } from '../chart-geometry';
 import type { DriverBrief } from '../build';
 import { PDF_COLOURS as C } from './palette';
 import { pdfText } from './text';
+import { KIND_LABEL } from '../wording';
 
 export function drawTornado(doc: PDFKit.PDFDocument, drivers: DriverBrief[], box: Box): void {
   const g = tornadoGeometry(
-    drivers.map((d) => ({ label: d.name, value: d.rankCorrelation })),
+    drivers.map((d) => ({
+      label: d.kind ? `${d.name} (${KIND_LABEL[d.kind].toLowerCase()})` : d.name,
+      value: d.rankCorrelation,
+    })),
     box,
-    170,
+    190,
   );
   doc.save();
   doc.font('Helvetica').fontSize(6.5);
@@ -31,7 +35,7 @@ export function drawTornado(doc: PDFKit.PDFDocument, drivers: DriverBrief[], box
     doc.rect(bar.x, bar.y, Math.max(0.5, bar.width), bar.height).fill(bar.value < 0 ? C.time : C.cost);
     doc.fontSize(7).fillColor(C.ink);
     doc.text(pdfText(bar.label), box.x, bar.y + bar.height / 2 - 3.5, {
-      width: 164,
+      width: 184,
       align: 'right',
       lineBreak: false,
       ellipsis: true,

@@ -60,8 +60,27 @@ async function insert(table: string, row: Record<string, unknown>) {
   );
 }
 
-/** Creates a project (as `owner`, an owner or estimator) with three items and three risks. */
-export async function projectWithRegisters(owner: Client, label = 'Harbour wall') {
+/** Two activities in sequence, about 90 + 55 working days: enough for a finish date and its S-curve. */
+const ACTIVITIES = [
+  {
+    code: 'A1',
+    name: 'Cofferdam and piling',
+    duration: { type: 'pert', low: 70, mode: 90, high: 130 },
+    predecessors: [],
+  },
+  {
+    code: 'A2',
+    name: 'Capping and fit-out',
+    duration: { type: 'triangular', low: 45, mode: 55, high: 80 },
+    predecessors: [{ code: 'A1', lag: 0 }],
+  },
+];
+
+/**
+ * Creates a project (as `owner`, an owner or estimator) with three items and three risks, and with
+ * `schedule` two activities.
+ */
+export async function projectWithRegisters(owner: Client, label = 'Harbour wall', { schedule = false } = {}) {
   const code = `HW-${Math.random().toString(36).slice(2, 8).toUpperCase()}`;
   const created = await owner.post('/api/projects', {
     name: `${label} ${code}`,
@@ -106,6 +125,20 @@ export async function projectWithRegisters(owner: Client, label = 'Harbour wall'
       createdAt: now,
       updatedAt: now,
     });
+  if (schedule)
+    for (const a of ACTIVITIES)
+      await insert('Activities', {
+        organizationId,
+        projectId,
+        code: a.code,
+        name: a.name,
+        duration: JSON.stringify(a.duration),
+        predecessors: JSON.stringify(a.predecessors),
+        sortOrder: order++,
+        version: 1,
+        createdAt: now,
+        updatedAt: now,
+      });
   return { projectId, code, organizationId };
 }
 

@@ -4,7 +4,7 @@ import { formatMoney } from '@/lib/runs/format';
 import { dateText } from '@/lib/brief/format';
 import { Card, EmptyState } from '@/components/ui/card';
 import { ResultCautions } from '@/components/ui/notice';
-import { TrendChart } from '@/components/brief/trend-chart';
+import { TrendCharts } from '@/components/brief/trend-chart';
 import { TrendTable } from '@/components/brief/trend-table';
 import { loadProjectPage } from '../project-page';
 
@@ -30,16 +30,15 @@ export default async function TrendPage({ params }: { params: Promise<{ projectI
         <>
           <p data-testid="current-baseline">
             Current baseline: <strong>run {current.runId}</strong>, approved {dateText(current.decidedAt)} by{' '}
-            {current.sponsorName} at {current.stage}: P80{' '}
-            <strong>{formatMoney(current.p80, project.currency)}</strong>, base{' '}
+            {current.sponsorName}
+            {current.selfApproved ? ' (self-approved)' : ''} at {current.stage}, {current.scenario}
+            -mitigation: P80 <strong>{formatMoney(current.p80, project.currency)}</strong>, base{' '}
             {formatMoney(current.base, project.currency)}.
           </p>
-          <div className="grid grid-cols-2 gap-4">
-            <TrendChart rows={rows} currency={project.currency} />
-            <Card title="Figures">
-              <TrendTable rows={rows} currency={project.currency} projectId={project.id} />
-            </Card>
-          </div>
+          <TrendCharts rows={rows} currency={project.currency} />
+          <Card title="Figures">
+            <TrendTable rows={rows} currency={project.currency} projectId={project.id} />
+          </Card>
           <ResultCautions />
         </>
       )}

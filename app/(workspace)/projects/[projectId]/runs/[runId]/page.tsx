@@ -39,6 +39,15 @@ export default async function RunPage({ params }: { params: RunParams }) {
           </p>
         </div>
         <div className="ml-auto flex gap-2">
+          {run.status === 'succeeded' ? (
+            <Link
+              href={`/projects/${project.id}/runs/${run.id}/brief`}
+              className={buttonClass('primary')}
+              data-testid="open-brief"
+            >
+              Open the brief for sponsors
+            </Link>
+          ) : null}
           <a
             href={`/api/projects/${project.id}/runs/${run.id}/snapshot`}
             className={buttonClass('secondary')}

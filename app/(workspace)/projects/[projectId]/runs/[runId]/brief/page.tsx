@@ -4,12 +4,18 @@ import { isAppError } from '@/lib/errors';
 import { loadOrNotFound } from '@/lib/http/page';
 import { getBrief } from '@/lib/services/brief';
 import type { BriefData } from '@/lib/brief/build';
-import { dateTimeText, moneyWithInterval, probabilityText } from '@/lib/brief/format';
-import { formatMoney } from '@/lib/runs/format';
+import { dateTimeText, moneyWithInterval } from '@/lib/brief/format';
+import { headlineSentences } from '@/lib/brief/headline';
+import { selfApprovalRefusal } from '@/lib/brief/wording';
+import { formatDays, formatMoneyShort } from '@/lib/runs/format';
+import { selfApprovalAllowed } from '@/lib/services/organization-settings';
 import { buttonClass } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/card';
 import { Notice, ResultCautions } from '@/components/ui/notice';
+import { AllocationTable } from '@/components/brief/allocation-table';
 import { ClassCheckPanel } from '@/components/brief/class-check';
+import { FinishSection } from '@/components/brief/finish-section';
+import { ScenarioPanel } from '@/components/brief/scenario-panel';
 import { DecisionPanel } from '@/components/brief/decision-panel';
 import { DecisionRecord } from '@/components/brief/decision-record';
 import {
@@ -23,11 +29,14 @@ import {
 import { NotesEditor } from '@/components/brief/notes-editor';
 import { PrintButton } from '@/components/brief/print-button';
 import { RiskTable } from '@/components/brief/risk-table';
-import { SCurveSvg } from '@/components/brief/s-curve-svg';
+import { SCurveSvg, type CurveMarker } from '@/components/brief/s-curve-svg';
 import { SendToSponsors } from '@/components/brief/send-to-sponsors';
 import { TornadoSvg } from '@/components/brief/tornado-svg';
 
 import { loadRunPage, type RunParams } from '../run-page';
+
+const DRIVERS_CAPTION = (total: string) =>
+  `Rank correlation of each input with ${total}, every kind of input: the longer the bar, the more that input drives the spread and the more its mitigation is worth. On the right, the mean total when the input is in its lowest and in its highest tenth.`;
 
 function Section({ title, children, id }: { title: string; children: React.ReactNode; id?: string }) {
   return (
@@ -43,17 +52,11 @@ function Section({ title, children, id }: { title: string; children: React.React
   );
 }
 
-/** One sentence that says what the brief asks the sponsor to fund. */
-function Summary({ brief }: { brief: BriefData }) {
-  const c = brief.project.currency;
-  const { level, value, amount } = brief.contingency;
+/** The headline: what funding at the level buys in cost and time, against both targets. */
+function Headline({ brief }: { brief: BriefData }) {
   return (
-    <p className="text-lg">
-      Funding at <strong>{level}</strong> means a budget of <strong>{formatMoney(value, c)}</strong>:{' '}
-      {formatMoney(amount, c)} of contingency over the base estimate of {formatMoney(brief.cost.base, c)}.
-      {brief.cost.target
-        ? ` The chance of staying within the cost target of ${formatMoney(brief.cost.target.value, c)} is ${probabilityText(brief.cost.target.probability)}.`
-        : ''}
+    <p className="text-lg" data-testid="headline">
+      {headlineSentences(brief).join(' ')}
     </p>
   );
 }
@@ -81,7 +84,16 @@ export default async function BriefPage({ params }: { params: RunParams }) {
   const money = moneyOf(brief);
   const p80 = p80Of(brief);
   const pdfUrl = `/api/projects/${project.id}/brief/${run.id}/pdf`;
+  const costMarkers: CurveMarker[] = [
+    { label: 'Base', value: brief.cost.base, tone: 'base' },
+    { label: brief.contingency.level, value: brief.contingency.value, tone: 'level' },
+  ];
+  if (brief.cost.target)
+    costMarkers.push({ label: 'Target', value: brief.cost.target.value, tone: 'target' });
   const mayDecide = can(actor.role, 'baseline:decide');
+  // Separation of duties: whoever started the run may return it, but approves it only where allowed.
+  const ownRun = brief.run.startedById === actor.userId;
+  const mayApprove = mayDecide && (!ownRun || (await selfApprovalAllowed(actor.organizationId)));
   const mayEdit = can(actor.role, 'project:write');
 
   return (
@@ -115,8 +127,9 @@ export default async function BriefPage({ params }: { params: RunParams }) {
         </p>
       </header>
 
-      <Summary brief={brief} />
+      <Headline brief={brief} />
       <HeadlineFigures brief={brief} />
+      <ScenarioPanel brief={brief} />
 
       {brief.decision ? <DecisionRecord decision={brief.decision} /> : null}
       {!brief.decision && (mayDecide || mayEdit) ? (
@@ -128,6 +141,8 @@ export default async function BriefPage({ params }: { params: RunParams }) {
                 projectId={project.id}
                 runId={run.id}
                 levelText={`${brief.contingency.level}, ${money(brief.contingency.value)}`}
+                approveRefusal={mayApprove ? null : selfApprovalRefusal(run.id)}
+                selfApproval={mayApprove && ownRun}
               />
             </div>
           ) : null}
@@ -176,19 +191,62 @@ export default async function BriefPage({ params }: { params: RunParams }) {
         <TargetsTable brief={brief} />
       </Section>
 
+      {brief.finish ? (
+        <Section title="Finish dates">
+          <FinishSection brief={brief} />
+        </Section>
+      ) : null}
+
       {brief.classCheck ? (
         <Section title={`Estimate-class check (Class ${brief.classCheck.estimateClass})`}>
-          <ClassCheckPanel check={brief.classCheck} />
+          <ClassCheckPanel check={brief.classCheck} currency={project.currency} />
         </Section>
       ) : null}
 
       <Section title="Cost S-curve">
-        <SCurveSvg brief={brief} />
+        <SCurveSvg
+          testId="cost-s-curve"
+          curve={brief.cost.curve}
+          markers={costMarkers}
+          tickText={(v) => formatMoneyShort(v, project.currency)}
+          label={`S-curve of total cost: ${brief.contingency.level} is ${money(brief.contingency.value)}`}
+          caption={
+            <>
+              Share of simulated outcomes (vertical) at or below each total cost in {project.currency}{' '}
+              (horizontal). {brief.contingency.level.slice(1)} % of outcomes cost at most{' '}
+              {money(brief.contingency.value)}.
+            </>
+          }
+        />
       </Section>
 
+      {brief.allocation ? (
+        <Section title="Where the contingency sits (by top-level WBS)">
+          <AllocationTable allocation={brief.allocation} currency={project.currency} />
+        </Section>
+      ) : null}
+
       <Section title="Top drivers of cost">
-        <TornadoSvg drivers={brief.drivers} />
+        <TornadoSvg
+          testId="cost-drivers"
+          drivers={brief.drivers}
+          label="Top drivers of total cost"
+          caption={DRIVERS_CAPTION('total cost')}
+          swingText={(v) => formatMoneyShort(v, project.currency)}
+        />
       </Section>
+
+      {brief.duration ? (
+        <Section title="Top drivers of finish">
+          <TornadoSvg
+            testId="finish-drivers"
+            drivers={brief.finishDrivers}
+            label="Top drivers of the project's duration"
+            caption={DRIVERS_CAPTION('the project duration')}
+            swingText={(v) => formatDays(v, 0)}
+          />
+        </Section>
+      ) : null}
 
       <Section title="Top risk events by expected cost">
         <RiskTable risks={brief.topRisks} currency={project.currency} />

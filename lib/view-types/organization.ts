@@ -1,0 +1,6 @@
+// The organisation's settings as the owner's page shows them.
+export type OrganizationSettings = {
+  name: string;
+  /** Whether the person who started a run may also approve it as the baseline. */
+  allowSelfApproval: boolean;
+};
