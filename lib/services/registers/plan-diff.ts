@@ -33,7 +33,7 @@ const scopeOf = (s: RegisterSnapshot) => ({ projectId: s.projectId, organization
 
 const VALUES: ValuesOf = {
   items: (r, s) => ({ ...itemAttributes(r, s.activityIdByCode), sortOrder: r.sortOrder, ...scopeOf(s) }),
-  risks: (r, s) => ({ ...riskAttributes(r, s.activityIdByCode), sortOrder: r.sortOrder, ...scopeOf(s) }),
+  risks: (r, s) => ({ ...riskAttributes(r), sortOrder: r.sortOrder, ...scopeOf(s) }),
   activities: (r, s) => ({ ...activityAttributes(r), sortOrder: r.sortOrder, ...scopeOf(s) }),
   correlations: (r, s) => ({ ...correlationAttributes(r), ...scopeOf(s) }),
 };
@@ -75,8 +75,14 @@ export function planWrites(
     created: 0,
     updated: 0,
   };
-  // Line items and risks link activities by id: a renamed activity changes none of their columns.
-  const written: RegisterKind[] = kind === 'correlations' ? [kind] : [kind, 'correlations'];
+  // Line items link activities by id: a renamed activity changes none of their columns. Risks name
+  // their activities and cost lines by code, so a rename or removal there rewrites them.
+  const written: RegisterKind[] =
+    kind === 'correlations'
+      ? [kind]
+      : kind === 'activities' || kind === 'items'
+        ? [kind, 'risks', 'correlations']
+        : [kind, 'correlations'];
   for (const k of written) {
     const diff = diffRegister(k, state, next, writes, options, k === kind ? batchIndex : new Map());
     plan.audit.push(...diff.audit);

@@ -103,7 +103,13 @@ function snapshotOf(model: Model, settings: RunSettings): Model {
   return {
     ...model,
     ...(Object.keys(targets).length ? { targets } : {}),
-    settings: { iterations: settings.iterations, seed: settings.seed, sampling: settings.sampling },
+    // The model's own settings (the headline mitigation scenario) stay; the run's override the rest.
+    settings: {
+      ...model.settings,
+      iterations: settings.iterations,
+      seed: settings.seed,
+      sampling: settings.sampling,
+    },
   };
 }
 
