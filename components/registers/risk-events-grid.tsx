@@ -147,6 +147,7 @@ function codesColumn(
 export function RiskEventsGrid({ projectId, currency, readOnly }: RegisterTabProps) {
   const activities = useSavedRows(projectId, 'activities');
   const items = useSavedRows(projectId, 'items');
+  const correlations = useSavedRows(projectId, 'correlations');
   const activityOptions = useMemo<CodeOption[]>(
     () => (activities.data ?? []).map((a) => ({ code: String(a.code), label: String(a.name ?? '') })),
     [activities.data],
@@ -352,7 +353,7 @@ export function RiskEventsGrid({ projectId, currency, readOnly }: RegisterTabPro
       readOnly={readOnly}
       columns={columns}
       totalRow={total}
-      note={<StatusRules />}
+      note={<StatusRules rows={register.rows} correlations={correlations.data ?? []} />}
       aside={
         <ProbabilityImpactMatrix
           risks={register.rows}
@@ -364,13 +365,28 @@ export function RiskEventsGrid({ projectId, currency, readOnly }: RegisterTabPro
   );
 }
 
-/** The status rules the model follows, stated above the grid. */
-function StatusRules() {
+/** The status rules the model follows, stated above the grid, with what they leave out now. */
+function StatusRules({ rows, correlations }: { rows: GridRow[]; correlations: Record<string, unknown>[] }) {
+  const closed = new Set(rows.filter((r) => r.status === 'closed').map((r) => String(r.code)));
+  const pairs = correlations
+    .filter((c) => closed.has(String(c.aCode)) || closed.has(String(c.bCode)))
+    .map((c) => `${c.aCode}–${c.bCode}`);
+  const occurred = rows.filter((r) => r.status === 'occurred').map((r) => String(r.code));
   return (
-    <p className="text-xs text-ink-soft" data-testid="risk-status-rules">
-      <strong className="font-medium text-ink">Status rules:</strong> {STATUS_RULES.occurred}{' '}
-      {STATUS_RULES.closed} Negative costs and delays are{' '}
-      <span className="font-medium text-opportunity">opportunities</span>.
-    </p>
+    <div className="space-y-0.5 text-xs text-ink-soft" data-testid="risk-status-rules">
+      <p>
+        <strong className="font-medium text-ink">Status rules:</strong> {STATUS_RULES.occurred}{' '}
+        {STATUS_RULES.closed} Negative costs and delays are{' '}
+        <span className="font-medium text-opportunity">opportunities</span>, not errors.
+      </p>
+      {closed.size || occurred.length ? (
+        <p data-testid="risk-status-effect">
+          {closed.size
+            ? `Left out of the model now: ${[...closed].join(', ')}${pairs.length ? ` and the correlation${pairs.length > 1 ? 's' : ''} ${pairs.join(', ')}` : ''}. `
+            : ''}
+          {occurred.length ? `Counted as certain: ${occurred.join(', ')}.` : ''}
+        </p>
+      ) : null}
+    </div>
   );
 }

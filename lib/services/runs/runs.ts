@@ -38,6 +38,7 @@ const LIST_ATTRIBUTES = [
   'inputHash',
   'summary',
   'engineVersion',
+  'modelNotices',
   'blockSize',
   'startedAt',
   'finishedAt',
@@ -143,6 +144,7 @@ export async function startRun(
         settings,
         inputSnapshot: JSON.stringify(snapshot),
         inputHash: snapshotHash(snapshot),
+        modelNotices: notices,
       },
       { transaction },
     );
