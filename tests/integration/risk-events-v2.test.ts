@@ -13,81 +13,9 @@ import { newOrganisation, type Client } from './helpers/http';
 import { closeDb, rows } from './helpers/db';
 import { download, upload } from './helpers/files';
 import { projectWithRegisters, waitForRun } from './runs-fixtures';
+import { QUAY_WALL as MODEL } from '../fixtures/registers/quay-wall-v2';
 
 const exec = promisify(execFile);
-
-/** A quay wall with every version 2 field of risks and lines (an invented project). */
-const MODEL = {
-  format: 'outturn-model',
-  version: 2,
-  currency: 'EUR',
-  items: [
-    { id: '1.1', name: 'Piling', dist: { type: 'pert', low: 2_000_000, mode: 2_400_000, high: 3_300_000 } },
-    { id: '1.2', name: 'Concrete deck', dist: { type: 'normal', mean: 1_500_000, sd: 120_000 } },
-    {
-      id: '1.3',
-      name: 'Crane hire',
-      ratePerDay: { type: 'triangular', low: 3_000, mode: 3_500, high: 4_500 },
-      activity: 'A2',
-    },
-    { id: '1.4', name: 'Site overheads', ratePerDay: 6_000, span: 'project' },
-  ],
-  risks: [
-    {
-      id: 'R1',
-      name: 'Obstructions in the bed',
-      probability: 0.35,
-      cost: { type: 'triangular', low: 150_000, mode: 300_000, high: 700_000 },
-      delay: { type: 'triangular', low: 5, mode: 12, high: 30 },
-      activities: ['A2', 'A3'],
-      items: ['1.1'],
-      sizes: 'independent',
-      post: { probability: 0.15, cost: { type: 'triangular', low: 100_000, mode: 200_000, high: 400_000 } },
-      mitigationCost: { type: 'triangular', low: 40_000, mode: 55_000, high: 90_000 },
-    },
-    {
-      id: 'R2',
-      name: 'Early steel delivery',
-      probability: 0.4,
-      cost: { type: 'normal', mean: -80_000, sd: 20_000 },
-      delay: { type: 'uniform', low: -10, high: -3 },
-      activities: ['A1'],
-    },
-    {
-      id: 'R3',
-      name: 'Tidal window lost',
-      probability: 0.2,
-      delay: { type: 'lognormal', mean: 8, sd: 3 },
-      activities: ['A3'],
-      post: { delay: { type: 'lognormal', mean: 5, sd: 2 } },
-      mitigationCost: 25_000,
-    },
-  ],
-  activities: [
-    {
-      id: 'A1',
-      name: 'Procure steel',
-      duration: { type: 'triangular', low: 40, mode: 50, high: 75 },
-      predecessors: [],
-    },
-    {
-      id: 'A2',
-      name: 'Drive piles',
-      duration: { type: 'pert', low: 60, mode: 70, high: 100 },
-      predecessors: ['A1'],
-    },
-    {
-      id: 'A3',
-      name: 'Cast deck',
-      duration: { type: 'triangular', low: 30, mode: 35, high: 50 },
-      predecessors: ['A2'],
-    },
-  ],
-  correlations: [
-    { a: 'R1', b: 'R3', rho: 0.5 },
-    { a: '1.1', b: 'A2', rho: 0.4 },
-  ],
-};
 
 const strip = (r: Record<string, unknown>) => {
   const { id: _i, version: _v, sortOrder: _s, ...rest } = r;

@@ -8,12 +8,18 @@
 import { baseDurationOf } from '../distributions/base';
 import type { ModelActivity } from '../formats';
 import { allocateForwardPass, forwardPass } from './forward-pass';
-import { buildNetwork, checkNetwork } from './network';
+import { buildNetwork, checkNetwork, type Network } from './network';
 
 export function baseFinishOf(activities: readonly ModelActivity[]): number | null {
   if (activities.length === 0 || checkNetwork([...activities]).length > 0) return null;
-  const network = buildNetwork([...activities]);
-  const durations = new Float64Array(activities.map((a) => baseDurationOf(a.duration)));
+  return finishOf(
+    buildNetwork([...activities]),
+    new Float64Array(activities.map((a) => baseDurationOf(a.duration))),
+  );
+}
+
+/** The latest finish of the network for one set of durations (one forward pass). */
+export function finishOf(network: Network, durations: Float64Array): number {
   const total = new Float64Array(1);
   forwardPass(
     network,
