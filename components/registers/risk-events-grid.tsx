@@ -132,6 +132,7 @@ function codesColumn(
   options: CodeOption[],
   noun: string,
   headerTooltip: string,
+  applies: (r: GridRow) => boolean,
 ): RegisterColumn {
   return {
     field,
@@ -139,6 +140,7 @@ function codesColumn(
     kind: 'codes',
     width: 130,
     group: 'Touches',
+    applies,
     editor: { component: CodePickEditor, params: { options, noun }, popup: true },
     headerTooltip,
   };
@@ -245,6 +247,7 @@ export function RiskEventsGrid({ projectId, currency, readOnly }: RegisterTabPro
         activityOptions,
         'activities',
         'Every activity the delay lengthens (a negative delay shortens them)',
+        (r) => !!r.delayType,
       ),
       codesColumn(
         'itemCodes',
@@ -252,6 +255,7 @@ export function RiskEventsGrid({ projectId, currency, readOnly }: RegisterTabPro
         itemOptions,
         'line items',
         'The WBS lines the cost belongs to: contingency is allocated to them',
+        (r) => !!r.costType,
       ),
       {
         field: 'sizes',
@@ -354,15 +358,15 @@ export function RiskEventsGrid({ projectId, currency, readOnly }: RegisterTabPro
       columns={columns}
       totalRow={total}
       note={<StatusRules rows={register.rows} correlations={correlations.data ?? []} />}
-      aside={
-        <ProbabilityImpactMatrix
-          risks={register.rows}
-          baseEstimate={base}
-          meanCost={(r) => impactMean(r, 'cost')}
-        />
-      }
+      aside={<ProbabilityImpactMatrix risks={register.rows} baseEstimate={base} meanCost={threatCost} />}
     />
   );
+}
+
+/** The matrix places threats: an opportunity's saving is not a small threat. */
+function threatCost(r: GridRow): number | null {
+  const m = impactMean(r, 'cost');
+  return m !== null && m < 0 ? null : m;
 }
 
 /** The status rules the model follows, stated above the grid, with what they leave out now. */

@@ -25,6 +25,22 @@ const risksGrid = (page: Page) => page.getByRole('region', { name: 'Risk events'
 const cell = (page: Page, row: number, field: string) =>
   risksGrid(page).locator(`.ag-grid-scrolling-rows .ag-row[row-index="${row}"] [col-id="${field}"]`);
 
+/** Scrolls the grid sideways until a cell is drawn (the grid draws only the columns in view). */
+async function reveal(page: Page, row: number, field: string) {
+  const target = cell(page, row, field);
+  for (let step = 0; step < 30 && (await target.count()) === 0; step++) {
+    await risksGrid(page)
+      .locator('.ag-center-cols-viewport')
+      .evaluate((el) => {
+        el.scrollLeft += 250;
+        el.dispatchEvent(new Event('scroll'));
+      });
+    await page.waitForTimeout(50);
+  }
+  await target.scrollIntoViewIfNeeded();
+  return target;
+}
+
 test('an estimator reads opportunities and the status rules, and picks a risk’s activities', async ({
   page,
 }) => {
@@ -40,9 +56,13 @@ test('an estimator reads opportunities and the status rules, and picks a risk’
   // R2 saves money and time: an opportunity, in its own tone, never the invalid red.
   await expect(cell(page, 1, '_direction')).toHaveText('Opportunity');
   await expect(cell(page, 1, '_direction')).toHaveClass(/text-opportunity/);
-  await expect(cell(page, 1, 'costMean')).not.toHaveClass(/cell-invalid/);
-  await expect(cell(page, 0, 'activityCodes')).toHaveText('A2, A3');
   if (shot) await page.screenshot({ path: `${shot}/risks-1280.png`, fullPage: true });
+  const saving = await reveal(page, 1, 'delayLow');
+  await expect(saving).toHaveText('-10');
+  await expect(saving).toHaveClass(/text-opportunity/);
+  await expect(saving).not.toHaveClass(/cell-invalid/);
+  await expect(await reveal(page, 0, 'activityCodes')).toHaveText('A2, A3');
+  if (shot) await page.screenshot({ path: `${shot}/risks-scrolled.png` });
 
   // The multi-pick: tick A1 for R1, by the filter and Enter.
   await cell(page, 0, 'activityCodes').dblclick();
@@ -64,7 +84,7 @@ test('an estimator reads opportunities and the status rules, and picks a risk’
     ).status(),
   ).toBe(200);
   await page.reload();
-  await expect(cell(page, 0, 'activityCodes')).toHaveText('A2, A3, A1');
+  await expect(await reveal(page, 0, 'activityCodes')).toHaveText('A2, A3, A1');
   await expect(page.getByTestId('risk-status-effect')).toContainText(
     'Left out of the model now: R3 and the correlation R1–R3',
   );
