@@ -3,7 +3,7 @@
 // a filter box over checkboxes. Enter in the filter ticks the first match; Enter on an empty
 // filter, Tab or a click outside ends the edit; Escape leaves the cell as it was.
 
-import { useMemo, useState, type KeyboardEvent } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import type { CustomCellEditorProps } from 'ag-grid-react';
 
 export type CodeOption = { code: string; label: string };
@@ -27,14 +27,28 @@ export function CodePickEditor(props: CustomCellEditorProps & Params) {
     setPicked(next);
     onValueChange(next);
   };
-  const onFilterKey = (e: KeyboardEvent<HTMLInputElement>) => {
-    if (e.key === 'Enter' && filter.trim()) {
-      e.preventDefault();
-      e.stopPropagation();
+  // A native listener on the box itself: the grid hears keys on its own elements before React
+  // does, and would end the edit on Enter.
+  const input = useRef<HTMLInputElement>(null);
+  const enter = useRef<() => void>(() => undefined);
+  useEffect(() => {
+    enter.current = () => {
       if (matches[0]) toggle(matches[0].code);
       setFilter('');
-    }
-  };
+    };
+  });
+  useEffect(() => {
+    const box = input.current;
+    if (!box) return;
+    const onKey = (e: KeyboardEvent) => {
+      if (e.key !== 'Enter' || !box.value.trim()) return;
+      e.preventDefault();
+      e.stopPropagation();
+      enter.current();
+    };
+    box.addEventListener('keydown', onKey);
+    return () => box.removeEventListener('keydown', onKey);
+  }, []);
   const unknown = picked.filter((c) => !options.some((o) => o.code === c));
 
   return (
@@ -48,8 +62,8 @@ export function CodePickEditor(props: CustomCellEditorProps & Params) {
         className="mb-2 w-full rounded border border-rule px-2 py-1"
         placeholder={`Filter ${noun}… (Enter ticks the first)`}
         value={filter}
+        ref={input}
         onChange={(e) => setFilter(e.target.value)}
-        onKeyDown={onFilterKey}
       />
       <ul className="max-h-56 overflow-y-auto" role="group" aria-label={noun}>
         {matches.slice(0, SHOWN).map((o) => (

@@ -30,7 +30,7 @@ async function reveal(page: Page, row: number, field: string) {
   const target = cell(page, row, field);
   for (let step = 0; step < 30 && (await target.count()) === 0; step++) {
     await risksGrid(page)
-      .locator('.ag-center-cols-viewport')
+      .locator('.ag-body-horizontal-scroll-viewport')
       .evaluate((el) => {
         el.scrollLeft += 250;
         el.dispatchEvent(new Event('scroll'));
