@@ -52,7 +52,15 @@ function groupColumns(
     if (!col.group) out.push(defs[i]);
     else if (last && 'children' in last && last.groupId === `${col.group}:${i - last.children.length}`)
       last.children.push(defs[i]);
-    else out.push({ groupId: `${col.group}:${i}`, headerName: col.group, children: [defs[i]] });
+    // Open at first: a cell that shows only when its group is open (a normal's mean) is never hidden
+    // while it holds the row's problem; the header's arrow closes the group to save width.
+    else
+      out.push({
+        groupId: `${col.group}:${i}`,
+        headerName: col.group,
+        children: [defs[i]],
+        openByDefault: true,
+      });
   });
   return out;
 }

@@ -81,7 +81,7 @@ function impactColumns(kind: 'cost' | 'delay', group: string): RegisterColumn[] 
       width: 104,
       options: impactTypes,
       group,
-      headerTooltip: `The ${kind}'s distribution, before and after the response. Mean and SD: expand the group.`,
+      headerTooltip: `The ${kind}'s distribution, before and after the response. Its group header's arrow hides the mean and SD cells.`,
     },
     ...cells(kind, false),
     ...cells(post, true),
