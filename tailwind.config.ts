@@ -14,6 +14,8 @@ const config: Config = {
         time: { DEFAULT: '#7a3f86', light: '#efe0f1', dark: '#552a5e' },
         caution: { DEFAULT: '#b7791f', light: '#fbf0d9', dark: '#7c5212' },
         invalid: { DEFAULT: '#c0262d', light: '#fbe3e3' },
+        // Opportunities (a risk that saves money or time): a green of our own, never the invalid red.
+        opportunity: { DEFAULT: '#2e6b45', light: '#dcefe2' },
       },
       fontFamily: {
         sans: ['var(--font-inter)', 'system-ui', 'sans-serif'],

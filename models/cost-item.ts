@@ -15,7 +15,7 @@ import type { Project } from './project';
 
 /**
  * A line of the estimate. Either `dist` (an uncertain amount) or `ratePerDay` with an
- * activity (a time-dependent cost) is set; `base` defaults to the distribution's central value.
+ * activity or `span: "project"` (a time-dependent cost) is set; `base` defaults to the distribution's central value.
  */
 export class CostItem extends Model<InferAttributes<CostItem>, InferCreationAttributes<CostItem>> {
   declare id: CreationOptional<number>;
@@ -27,6 +27,8 @@ export class CostItem extends Model<InferAttributes<CostItem>, InferCreationAttr
   declare dist: DistSpec | null;
   declare ratePerDay: DistSpec | number | null;
   declare activityId: ForeignKey<Activity['id']> | null;
+  /** "project": the rate is paid for the whole project's duration (no activity). */
+  declare span: 'project' | null;
   declare ownerName: string | null;
   declare notes: string | null;
   declare sortOrder: CreationOptional<number>;
@@ -46,6 +48,7 @@ CostItem.init(
     dist: { type: DataTypes.JSON, allowNull: true },
     ratePerDay: { type: DataTypes.JSON, allowNull: true },
     activityId: { type: DataTypes.INTEGER, allowNull: true },
+    span: { type: DataTypes.STRING(16), allowNull: true },
     ownerName: { type: DataTypes.STRING(120), allowNull: true },
     notes: { type: DataTypes.TEXT, allowNull: true },
     sortOrder: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },

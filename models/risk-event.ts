@@ -15,8 +15,13 @@ import type { Project } from './project';
 
 export const RISK_STATUSES = ['open', 'mitigating', 'closed', 'occurred'] as const;
 export const RISK_RESPONSES = ['avoid', 'reduce', 'transfer', 'accept'] as const;
+export const RISK_SIZES = ['linked', 'independent'] as const;
 
-/** A discrete risk event: if it occurs (probability), it costs and/or delays its activity. */
+/**
+ * A discrete risk event: if it occurs (probability), it costs and/or delays its activities
+ * (`activityCodes`; rows written before hold one `activityId` link instead). A negative cost or
+ * delay is an opportunity.
+ */
 export class RiskEvent extends Model<InferAttributes<RiskEvent>, InferCreationAttributes<RiskEvent>> {
   declare id: CreationOptional<number>;
   declare organizationId: ForeignKey<Organization['id']>;
@@ -33,10 +38,13 @@ export class RiskEvent extends Model<InferAttributes<RiskEvent>, InferCreationAt
   declare costImpact: DistSpec | null;
   declare delayImpact: DistSpec | null;
   declare activityId: ForeignKey<Activity['id']> | null;
+  declare activityCodes: string[] | null;
+  declare itemCodes: string[] | null;
+  declare sizes: CreationOptional<(typeof RISK_SIZES)[number]>;
   declare postProbability: number | null;
   declare postCostImpact: DistSpec | null;
   declare postDelayImpact: DistSpec | null;
-  declare mitigationCost: number | null;
+  declare mitigationCost: DistSpec | number | null;
   declare sortOrder: CreationOptional<number>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
@@ -60,10 +68,13 @@ RiskEvent.init(
     costImpact: { type: DataTypes.JSON, allowNull: true },
     delayImpact: { type: DataTypes.JSON, allowNull: true },
     activityId: { type: DataTypes.INTEGER, allowNull: true },
+    activityCodes: { type: DataTypes.JSON, allowNull: true },
+    itemCodes: { type: DataTypes.JSON, allowNull: true },
+    sizes: { type: DataTypes.ENUM(...RISK_SIZES), allowNull: false, defaultValue: 'linked' },
     postProbability: { type: DataTypes.DOUBLE, allowNull: true },
     postCostImpact: { type: DataTypes.JSON, allowNull: true },
     postDelayImpact: { type: DataTypes.JSON, allowNull: true },
-    mitigationCost: { type: DataTypes.DOUBLE, allowNull: true },
+    mitigationCost: { type: DataTypes.JSON, allowNull: true },
     sortOrder: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
     createdAt: DataTypes.DATE,

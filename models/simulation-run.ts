@@ -48,6 +48,8 @@ export class SimulationRun extends Model<
   declare summary: CreationOptional<RunSummary | null>;
   /** The engine version and block size the run was computed with (null for older runs). */
   declare engineVersion: CreationOptional<string | null>;
+  /** What the registers → model export left out or changed (closed risks, their correlations…). */
+  declare modelNotices: CreationOptional<string[] | null>;
   declare blockSize: CreationOptional<number | null>;
   declare startedAt: CreationOptional<Date | null>;
   declare finishedAt: CreationOptional<Date | null>;
@@ -72,6 +74,7 @@ SimulationRun.init(
     resultSample: { type: DataTypes.TEXT('long'), allowNull: true },
     summary: { type: DataTypes.JSON, allowNull: true },
     engineVersion: { type: DataTypes.STRING(32), allowNull: true },
+    modelNotices: { type: DataTypes.JSON, allowNull: true },
     blockSize: { type: DataTypes.INTEGER, allowNull: true },
     startedAt: { type: DataTypes.DATE, allowNull: true },
     finishedAt: { type: DataTypes.DATE, allowNull: true },

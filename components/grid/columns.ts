@@ -3,9 +3,10 @@
 
 import { readNumber, readProbability } from '@/lib/registers/numbers';
 import { formatPredecessors, parsePredecessors, type PredecessorLink } from '@/lib/registers/predecessors';
+import { formatCodeList, readCodeList } from '@/lib/registers/risk-fields';
 import type { GridRow } from './use-register-rows';
 
-export type CellKind = 'text' | 'number' | 'percent' | 'choice' | 'predecessors' | 'computed';
+export type CellKind = 'text' | 'number' | 'percent' | 'choice' | 'predecessors' | 'codes' | 'computed';
 
 export type RegisterColumn = {
   field: string;
@@ -23,11 +24,20 @@ export type RegisterColumn = {
   /** Indent (in levels) of the cell's text, for WBS codes. */
   indent?: (row: GridRow) => number;
   headerTooltip?: string;
+  /** Neighbouring columns with the same group sit under one header. */
+  group?: string;
+  /** In a group: shown only when the group is expanded ('open') or collapsed ('closed'). */
+  groupShow?: 'open' | 'closed';
+  /** Extra classes of a cell by its row (e.g. a tone that marks an opportunity). */
+  cellClass?: (row: GridRow) => string | null;
+  /** A cell editor of the register's own (e.g. a multi-pick), with its parameters. */
+  editor?: { component: unknown; params?: Record<string, unknown>; popup?: boolean };
 };
 
 export function parseCell(col: RegisterColumn, text: unknown): unknown {
   const raw = typeof text === 'string' ? text.trim() : text;
-  if (raw === '' || raw === null || raw === undefined) return col.kind === 'predecessors' ? [] : null;
+  if (raw === '' || raw === null || raw === undefined)
+    return col.kind === 'predecessors' || col.kind === 'codes' ? [] : null;
   switch (col.kind) {
     case 'number':
       return readNumber(raw);
@@ -47,6 +57,8 @@ export function parseCell(col: RegisterColumn, text: unknown): unknown {
       const parsed = parsePredecessors(String(raw));
       return parsed.ok ? parsed.links : String(raw);
     }
+    case 'codes':
+      return readCodeList(raw);
     default:
       return String(raw);
   }
@@ -58,6 +70,7 @@ export function cellText(col: RegisterColumn, value: unknown, row: GridRow): str
   if (value === null || value === undefined) return '';
   if (col.kind === 'predecessors')
     return Array.isArray(value) ? formatPredecessors(value as PredecessorLink[]) : String(value);
+  if (col.kind === 'codes') return formatCodeList(value);
   if (col.kind === 'choice') return col.options?.find((o) => o.value === value)?.label ?? String(value);
   if (col.kind === 'percent' && typeof value === 'number') return `${+(value * 100).toFixed(2)}%`;
   if (typeof value === 'number') return value.toLocaleString('en-GB', { maximumFractionDigits: 2 });

@@ -12,6 +12,7 @@ import {
   type CellFocusedEvent,
   type CellKeyDownEvent,
   type ColDef,
+  type ColGroupDef,
   type GridApi,
   type GridReadyEvent,
 } from 'ag-grid-community';
@@ -39,6 +40,30 @@ type Props = {
   height?: number;
   onReady?: (api: GridApi) => void;
 };
+
+/** Neighbouring columns that name the same group go under one group header. */
+function groupColumns(
+  columns: RegisterColumn[],
+  defs: ColDef<GridRow>[],
+): (ColDef<GridRow> | ColGroupDef<GridRow>)[] {
+  const out: (ColDef<GridRow> | ColGroupDef<GridRow>)[] = [];
+  columns.forEach((col, i) => {
+    const last = out[out.length - 1];
+    if (!col.group) out.push(defs[i]);
+    else if (last && 'children' in last && last.groupId === `${col.group}:${i - last.children.length}`)
+      last.children.push(defs[i]);
+    // Open at first: a cell that shows only when its group is open (a normal's mean) is never hidden
+    // while it holds the row's problem; the header's arrow closes the group to save width.
+    else
+      out.push({
+        groupId: `${col.group}:${i}`,
+        headerName: col.group,
+        children: [defs[i]],
+        openByDefault: true,
+      });
+  });
+  return out;
+}
 
 const editable = (col: RegisterColumn, row: GridRow | undefined) =>
   col.kind !== 'computed' && (!col.applies || (row ? col.applies(row) : true));
@@ -76,7 +101,7 @@ export function RegisterGrid({
     [onChange],
   );
 
-  const colDefs = useMemo<ColDef<GridRow>[]>(() => {
+  const colDefs = useMemo<(ColDef<GridRow> | ColGroupDef<GridRow>)[]>(() => {
     const defs: ColDef<GridRow>[] = columns.map((col) => ({
       colId: col.field,
       headerName: col.header,
@@ -90,9 +115,15 @@ export function RegisterGrid({
         p.data ? (col.value && !p.node?.rowPinned ? col.value(p.data) : p.data[col.field]) : undefined,
       valueFormatter: (p) => (p.data ? cellText(col, p.value, p.data) : ''),
       editable: (p) => !readOnly && !p.node.rowPinned && editable(col, p.data),
-      cellEditor: col.kind === 'choice' ? 'agSelectCellEditor' : 'agTextCellEditor',
-      cellEditorParams:
-        col.kind === 'choice' ? { values: (col.options ?? []).map((o) => o.label) } : { useFormatter: true },
+      cellEditor:
+        col.editor?.component ?? (col.kind === 'choice' ? 'agSelectCellEditor' : 'agTextCellEditor'),
+      cellEditorParams: col.editor
+        ? col.editor.params
+        : col.kind === 'choice'
+          ? { values: (col.options ?? []).map((o) => o.label) }
+          : { useFormatter: true },
+      cellEditorPopup: col.editor?.popup,
+      columnGroupShow: col.groupShow,
       type:
         col.kind === 'number' || col.kind === 'percent' || col.kind === 'computed'
           ? 'rightAligned'
@@ -107,6 +138,8 @@ export function RegisterGrid({
           classes.push('bg-caution-light');
         else if (col.kind === 'computed') classes.push('text-ink-soft');
         else if (!editable(col, row)) classes.push('bg-paper-sunk/50 text-ink-faint');
+        const own = !row._issues[col.field] && col.cellClass?.(row);
+        if (own) classes.push(own);
         return classes.join(' ');
       },
       cellStyle: col.indent
@@ -124,7 +157,7 @@ export function RegisterGrid({
         return undefined;
       },
     }));
-    return defs;
+    return groupColumns(columns, defs);
   }, [columns, readOnly]);
 
   const onCellEditRequest = useCallback(

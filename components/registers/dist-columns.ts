@@ -2,7 +2,7 @@
 import {
   DIST_LABELS,
   DIST_TYPES,
-  partsUsed,
+  partApplies,
   type DistPart,
   type DistType,
 } from '@/lib/registers/dist-fields';
@@ -11,9 +11,8 @@ import type { GridRow } from '@/components/grid/use-register-rows';
 
 const uses = (part: DistPart) => (row: GridRow) => {
   const type = row.distType as DistType | null;
-  if (!type || !DIST_TYPES.includes(type)) return false;
-  if (type === 'lognormal') return true; // low/high (P10/P90) or mean/sd
-  return partsUsed(type).includes(part);
+  // A lognormal takes low/high (P10/P90) or mean/SD.
+  return !!type && DIST_TYPES.includes(type) && partApplies(type, part);
 };
 
 export function distColumns(options: { allowNone?: boolean; unit?: string } = {}): RegisterColumn[] {

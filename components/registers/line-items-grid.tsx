@@ -1,11 +1,13 @@
 'use client';
 // The line items register: WBS lines with their distributions, computed mean and P10–P90 as
-// you type, a total row with the base estimate, and lines indented by WBS level.
+// you type, a total row with the base estimate, and lines indented by WBS level. A line is a lump
+// sum, a rate per day of one activity, or a rate per project day (it runs with the whole
+// project's simulated duration; its base uses the project's base duration).
 
 import { useCallback, useMemo } from 'react';
 import type { RegisterColumn } from '@/components/grid/columns';
 import type { GridRow } from '@/components/grid/use-register-rows';
-import { activityBaseDurations, lineBase } from '@/lib/registers/base-estimate';
+import { activityBaseDurations, lineBase, projectBaseDuration } from '@/lib/registers/base-estimate';
 import { meanOf, specFromParts, summarise, type DistType } from '@/lib/registers/dist-fields';
 import { formatMoney } from '@/lib/registers/numbers';
 import { wbsLevel } from '@/lib/registers/wbs';
@@ -14,12 +16,12 @@ import { RegisterTab, type RegisterTabProps } from './register-tab';
 import { summaryColumns, type RowSummary } from './summary-columns';
 import { duplicateCodeIssue, totalRowOf, useRegisterPage, useSavedRows } from './use-register-page';
 
-/** The line's mean without its percentiles (for the total row). */
+/** The line's mean without its percentiles (for the total row); per project day: only a run knows it. */
 function lineMean(row: GridRow, meanDays: Map<string, number>): number | null {
   const type = row.distType as DistType | null;
   if (!type) return typeof row.base === 'number' ? row.base : null;
   const r = specFromParts({ ...(row as object), type } as never);
-  if (!r.ok) return null;
+  if (!r.ok || row.basis === 'per-project-day') return null;
   if (row.basis !== 'per-day') return meanOf(r.spec);
   const days = meanDays.get(String(row.activityCode ?? ''));
   return days === undefined ? null : meanOf(r.spec) * days;
@@ -31,6 +33,8 @@ function lineSummary(row: GridRow, meanDays: Map<string, number>): RowSummary {
   const r = specFromParts({ ...(row as object), type } as never);
   if (!r.ok) return { mean: null, p10: null, p90: null };
   const s = summarise(r.spec);
+  // The project's duration has no mean before a run: the whole network's spread sets it.
+  if (row.basis === 'per-project-day') return { mean: null, p10: null, p90: null };
   if (row.basis === 'per-day') {
     // E[rate × days] = E[rate]·E[days] for independent inputs; the spread depends on the schedule.
     const days = meanDays.get(String(row.activityCode ?? ''));
@@ -78,12 +82,13 @@ export function LineItemsGrid({ projectId, currency, readOnly }: RegisterTabProp
   const durations = useMemo(() => {
     const rows = (activities.data ?? []) as never[];
     const base = activityBaseDurations(rows);
+    const project = projectBaseDuration(rows);
     const mean = new Map<string, number>();
     for (const a of activities.data ?? []) {
       const r = specFromParts({ ...(a as object), type: a.distType } as never);
       if (r.ok) mean.set(String(a.code), summarise(r.spec).mean);
     }
-    return { base, mean };
+    return { base, mean, project };
   }, [activities.data]);
 
   // summarise() is memoised by parameters, so this stays cheap for 2,000 rows.
@@ -109,13 +114,14 @@ export function LineItemsGrid({ projectId, currency, readOnly }: RegisterTabProp
         field: 'basis',
         header: 'Basis',
         kind: 'choice',
-        width: 92,
+        width: 124,
         options: [
           { value: 'lump-sum', label: 'Lump sum' },
-          { value: 'per-day', label: 'Per day' },
+          { value: 'per-day', label: 'Per activity day' },
+          { value: 'per-project-day', label: 'Per project day' },
         ],
         headerTooltip:
-          'Lump sum, or a rate per working day times the duration of an activity (time-dependent)',
+          'Lump sum; a rate per working day × the duration of one activity; or a rate per working day × the whole project’s duration (e.g. site overheads)',
       },
       {
         field: 'activityCode',
@@ -124,7 +130,7 @@ export function LineItemsGrid({ projectId, currency, readOnly }: RegisterTabProp
         width: 90,
         options: [{ value: null, label: '—' }, ...[...activityCodes].map((c) => ({ value: c, label: c }))],
         applies: (r) => r.basis === 'per-day',
-        headerTooltip: 'The activity whose duration a per-day line is paid for',
+        headerTooltip: 'The activity whose duration a per-activity-day line is paid for',
       },
       ...distColumns({ allowNone: true }),
       {
@@ -132,19 +138,21 @@ export function LineItemsGrid({ projectId, currency, readOnly }: RegisterTabProp
         header: `Base (${currency})`,
         kind: 'number',
         width: 118,
-        headerTooltip: 'Deterministic amount; when empty, the distribution’s base (shown in brackets)',
+        headerTooltip:
+          'Deterministic amount; when empty, the distribution’s base (shown in brackets). Per project day: the rate’s base × the project’s base duration (every activity at its base), not the simulated mean',
         format: (v, r) => {
           if (typeof v === 'number') return formatMoney(v);
           if (v != null) return String(v);
-          const d = lineBase({ ...(r as object), base: null } as never, durations.base);
+          const d = lineBase({ ...(r as object), base: null } as never, durations.base, durations.project);
           return d === null ? '' : `(${formatMoney(d)})`;
         },
       },
       ...summaryColumns(summaries, {
         meanHeader: 'Mean',
         widths: [110, 110],
-        formatMean: money,
-        formatPercentile: (v, r) => (r.basis === 'per-day' && r._key !== 'total' ? 'by run' : money(v)),
+        formatMean: (v, r) =>
+          r.basis === 'per-project-day' || (r._key === 'total' && v === null) ? 'by run' : money(v),
+        formatPercentile: (v, r) => (r.basis !== 'lump-sum' && r._key !== 'total' ? 'by run' : money(v)),
       }),
       { field: 'ownerName', header: 'Owner', kind: 'text', width: 120 },
       { field: 'notes', header: 'Notes', kind: 'text', width: 200 },
@@ -154,10 +162,12 @@ export function LineItemsGrid({ projectId, currency, readOnly }: RegisterTabProp
 
   const total = useMemo(() => {
     let base = 0;
-    let mean = 0;
+    let mean: number | null = 0;
     for (const r of register.rows) {
-      base += lineBase(r as never, durations.base) ?? 0;
-      mean += lineMean(r, durations.mean) ?? 0;
+      base += lineBase(r as never, durations.base, durations.project) ?? 0;
+      // A per-project-day line's mean needs a run: the total's mean then does too.
+      if (r.basis === 'per-project-day') mean = null;
+      else if (mean !== null) mean += lineMean(r, durations.mean) ?? 0;
     }
     return totalRowOf({
       code: 'Total',

@@ -63,9 +63,11 @@ type Props = {
   totalRow?: Record<string, unknown>;
   /** A panel to the right of the grid. */
   aside?: ReactNode;
+  /** A short note above the grid (e.g. the rules the model follows). */
+  note?: ReactNode;
 };
 
-export function RegisterTab({ page, readOnly, columns, rows, totalRow, aside }: Props) {
+export function RegisterTab({ page, readOnly, columns, rows, totalRow, aside, note }: Props) {
   const { register, blank, projectId, kind } = page;
   const words = TABS[kind];
   if (!words) throw new Error(`The ${kind} register has no grid tab.`);
@@ -110,6 +112,7 @@ export function RegisterTab({ page, readOnly, columns, rows, totalRow, aside }: 
         <ImportExport projectId={projectId} register={kind} readOnly={readOnly} />
       </RegisterToolbar>
       <RegisterNotice register={register} />
+      {note}
       {empty && register.rows.length === 0 && readOnly ? <p className="text-ink-soft">{empty}</p> : null}
       {aside ? (
         <div className="grid grid-cols-[1fr_auto] gap-3">

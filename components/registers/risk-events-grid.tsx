@@ -1,28 +1,30 @@
 'use client';
-// The risk events register with each risk's expected value and the probability–impact matrix.
+// The risk events register: threats and opportunities, before and after their response side by
+// side in column groups (the mean and SD cells open with their group), the activities and cost
+// lines each risk touches, the response's cost, each risk's expected value, and the
+// probability–impact matrix.
 import { useCallback, useMemo } from 'react';
 import type { RegisterColumn } from '@/components/grid/columns';
 import type { GridRow } from '@/components/grid/use-register-rows';
+import { STATUS_RULES } from '@/lib/domain/model-export';
 import { baseEstimate } from '@/lib/registers/base-estimate';
-import { specFromParts, summarise, DIST_LABELS } from '@/lib/registers/dist-fields';
+import { DIST_LABELS, partApplies, type DistPart, type DistType } from '@/lib/registers/dist-fields';
 import { formatMoney, formatNumber } from '@/lib/registers/numbers';
 import {
-  impactParts,
+  impactMean,
+  impactTypeField,
+  MITIGATION_TYPES,
+  mitigationMean,
+  riskDirection,
   RISK_IMPACT_TYPES,
-  RISK_RESPONSES,
-  RISK_STATUSES,
+  RISK_SIZES,
   type ImpactPrefix,
-} from '@/lib/validation/registers';
+} from '@/lib/registers/risk-fields';
+import { RISK_RESPONSES, RISK_STATUSES } from '@/lib/validation/registers';
+import { CodePickEditor, type CodeOption } from './code-pick-editor';
 import { ProbabilityImpactMatrix } from './probability-impact-matrix';
 import { RegisterTab, type RegisterTabProps } from './register-tab';
 import { duplicateCodeIssue, totalRowOf, useRegisterPage, useSavedRows } from './use-register-page';
-
-function impactMean(row: GridRow, prefix: ImpactPrefix): number | null {
-  const parts = impactParts(row, prefix);
-  if (!parts) return null;
-  const r = specFromParts(parts);
-  return r.ok ? summarise(r.spec).mean : null;
-}
 
 const choice = (values: readonly string[]) =>
   values.map((v) => ({ value: v, label: v[0].toUpperCase() + v.slice(1) }));
@@ -31,83 +33,146 @@ const impactTypes = [
   ...RISK_IMPACT_TYPES.map((t) => ({ value: t, label: DIST_LABELS[t] })),
 ];
 
-const PARTS = ['Low', 'Mode', 'High'] as const;
+const PARTS: { cell: string; part: DistPart; header: string; show?: 'open' }[] = [
+  { cell: 'Low', part: 'low', header: 'low' },
+  { cell: 'Mode', part: 'mode', header: 'most likely' },
+  { cell: 'High', part: 'high', header: 'high' },
+  { cell: 'Mean', part: 'mean', header: 'mean', show: 'open' },
+  { cell: 'Sd', part: 'sd', header: 'SD', show: 'open' },
+];
 
-/** Whether a low, most likely or high cell takes a value under the row's impact type. */
-const hasPart = (typeField: string, part: (typeof PARTS)[number]) => (r: GridRow) => {
-  const type = r[typeField] as string | null;
-  if (!type) return false;
-  if (type === 'fixed') return part === 'Mode';
-  if (type === 'uniform' || type === 'lognormal') return part !== 'Mode';
-  return true;
+const DIRECTION_TEXT = { threat: 'Threat', opportunity: 'Opportunity', both: 'Both' } as const;
+const OPPORTUNITY_TONE = 'text-opportunity';
+
+/** Whether an impact's cell takes a value under the row's impact type. */
+const applies = (prefix: ImpactPrefix, part: DistPart) => (r: GridRow) => {
+  const type = r[impactTypeField(prefix)] as DistType | null;
+  return !!type && partApplies(type, part);
 };
 
-/** The low, most likely and high cells of one impact, before or after mitigation. */
-function partColumns(
-  field: string,
-  typeField: string,
-  headers: [string, string, string],
-  widths: [number, number, number],
-): RegisterColumn[] {
-  return PARTS.map((part, i) => ({
-    field: `${field}${part}`,
-    header: headers[i],
-    kind: 'number',
-    width: widths[i],
-    applies: hasPart(typeField, part),
-  }));
-}
+/** A negative amount in an impact or expected value reads as an opportunity, not an error. */
+const negativeTone = (field: string) => (r: GridRow) =>
+  typeof r[field] === 'number' && (r[field] as number) < 0 ? OPPORTUNITY_TONE : null;
 
-function impactColumns(prefix: 'cost' | 'delay', unit: string): RegisterColumn[] {
-  const t = `${prefix}Type`;
-  const name = prefix === 'cost' ? 'Cost' : 'Delay';
+/** The cells of one impact before its response, then after it: side by side in one group. */
+function impactColumns(kind: 'cost' | 'delay', group: string): RegisterColumn[] {
+  const post: ImpactPrefix = kind === 'cost' ? 'postCost' : 'postDelay';
+  const cells = (prefix: ImpactPrefix, after: boolean): RegisterColumn[] =>
+    PARTS.map(({ cell, part, header, show }) => ({
+      field: `${prefix}${cell}`,
+      header: after ? `After: ${header}` : header[0].toUpperCase() + header.slice(1),
+      kind: 'number',
+      width: after ? 104 : 92,
+      group,
+      groupShow: show,
+      applies: applies(prefix, part),
+      cellClass: negativeTone(`${prefix}${cell}`),
+      headerTooltip: after
+        ? `After the response: ${header} (empty keeps the value before it)`
+        : part === 'low' || part === 'high'
+          ? `${header} (the P10 or P90 for a lognormal); negative for an opportunity`
+          : `${header}; negative for an opportunity`,
+    }));
   return [
-    { field: t, header: name, kind: 'choice', width: 100, options: impactTypes },
-    ...partColumns(
-      prefix,
-      t,
-      [`${name} low (${unit})`, `${name} most likely`, `${name} high`],
-      [110, 116, 100],
-    ),
+    {
+      field: `${kind}Type`,
+      header: 'Distribution',
+      kind: 'choice',
+      width: 104,
+      options: impactTypes,
+      group,
+      headerTooltip: `The ${kind}'s distribution, before and after the response. Its group header's arrow hides the mean and SD cells.`,
+    },
+    ...cells(kind, false),
+    ...cells(post, true),
   ];
 }
 
-/** Probability × mean impact, the risk's expected cost or delay. */
+/** Probability × mean impact, the risk's expected cost or delay (after: plus the response's cost). */
 function expectedColumn(
   field: string,
   header: string,
-  prefix: ImpactPrefix,
-  width: number,
+  value: (r: GridRow) => number | null,
   format: (v: number) => string,
+  headerTooltip: string,
 ): RegisterColumn {
   return {
     field,
     header,
     kind: 'computed',
-    width,
-    value: (r) => {
-      const m = impactMean(r, prefix);
-      return m === null || typeof r.probability !== 'number' ? null : r.probability * m;
-    },
+    width: 118,
+    group: 'Expected value',
+    value,
     format: (v) => (typeof v === 'number' ? format(v) : ''),
+    cellClass: (r) => {
+      const v = value(r);
+      return v !== null && v < 0 ? OPPORTUNITY_TONE : null;
+    },
+    headerTooltip,
+  };
+}
+
+const expectedBefore = (prefix: 'cost' | 'delay') => (r: GridRow) => {
+  const m = impactMean(r, prefix);
+  return m === null || typeof r.probability !== 'number' ? null : r.probability * m;
+};
+
+function expectedCostAfter(r: GridRow): number | null {
+  const m = impactMean(r, 'postCost');
+  const p = typeof r.postProbability === 'number' ? r.postProbability : r.probability;
+  const response = mitigationMean(r);
+  if (typeof p !== 'number' || response === null) return null;
+  return p * (m ?? 0) + response;
+}
+
+/** The multi-pick column of a risk's activities or cost lines. */
+function codesColumn(
+  field: string,
+  header: string,
+  options: CodeOption[],
+  noun: string,
+  headerTooltip: string,
+  applies: (r: GridRow) => boolean,
+): RegisterColumn {
+  return {
+    field,
+    header,
+    kind: 'codes',
+    width: 130,
+    group: 'Touches',
+    applies,
+    editor: { component: CodePickEditor, params: { options, noun }, popup: true },
+    headerTooltip,
   };
 }
 
 export function RiskEventsGrid({ projectId, currency, readOnly }: RegisterTabProps) {
   const activities = useSavedRows(projectId, 'activities');
   const items = useSavedRows(projectId, 'items');
-  const activityCodes = useMemo(() => (activities.data ?? []).map((a) => String(a.code)), [activities.data]);
+  const correlations = useSavedRows(projectId, 'correlations');
+  const activityOptions = useMemo<CodeOption[]>(
+    () => (activities.data ?? []).map((a) => ({ code: String(a.code), label: String(a.name ?? '') })),
+    [activities.data],
+  );
+  const itemOptions = useMemo<CodeOption[]>(
+    () => (items.data ?? []).map((i) => ({ code: String(i.code), label: String(i.description ?? '') })),
+    [items.data],
+  );
   const extraIssues = useCallback(
     (v: Record<string, unknown>, all: Record<string, unknown>[]) => {
       const out: Record<string, string> = {};
-      if (v.activityCode && activities.data && !activityCodes.includes(String(v.activityCode))) {
-        out.activityCode = `Unknown activity "${v.activityCode}".`;
-      }
+      const unknown = (field: string, known: CodeOption[] | null, what: string) => {
+        if (!known || !Array.isArray(v[field])) return;
+        const missing = (v[field] as string[]).find((c) => !known.some((o) => o.code === c));
+        if (missing) out[field] = `Unknown ${what} "${missing}".`;
+      };
+      unknown('activityCodes', activities.data ? activityOptions : null, 'activity');
+      unknown('itemCodes', items.data ? itemOptions : null, 'line item');
       const duplicate = duplicateCodeIssue(v, all, 'risk');
       if (duplicate) out.code = duplicate;
       return out;
     },
-    [activities.data, activityCodes],
+    [activities.data, activityOptions, items.data, itemOptions],
   );
   const blank = useCallback(
     () => ({
@@ -117,6 +182,9 @@ export function RiskEventsGrid({ projectId, currency, readOnly }: RegisterTabPro
       response: 'reduce',
       probability: null,
       costType: 'triangular',
+      activityCodes: [],
+      itemCodes: [],
+      sizes: 'linked',
     }),
     [],
   );
@@ -129,56 +197,159 @@ export function RiskEventsGrid({ projectId, currency, readOnly }: RegisterTabPro
 
   const columns = useMemo<RegisterColumn[]>(
     () => [
-      { field: 'code', header: 'Code', kind: 'text', width: 80, pinned: 'left' },
-      { field: 'title', header: 'Title', kind: 'text', width: 220, pinned: 'left' },
-      { field: 'status', header: 'Status', kind: 'choice', width: 100, options: choice(RISK_STATUSES) },
-      { field: 'probability', header: 'Probability', kind: 'percent', width: 100 },
-      ...impactColumns('cost', currency),
-      ...impactColumns('delay', 'days'),
+      { field: 'code', header: 'Code', kind: 'text', width: 76, pinned: 'left' },
+      { field: 'title', header: 'Title', kind: 'text', width: 190, pinned: 'left' },
       {
-        field: 'activityCode',
-        header: 'Delays activity',
+        field: '_direction',
+        header: 'Kind',
+        kind: 'computed',
+        width: 96,
+        group: 'Risk',
+        value: (r) => {
+          const d = riskDirection(r);
+          return d ? DIRECTION_TEXT[d] : null;
+        },
+        cellClass: (r) => (riskDirection(r) === 'opportunity' ? `${OPPORTUNITY_TONE} font-medium` : null),
+        headerTooltip: 'Threat (adds cost or time), opportunity (saves them) or both, from its mean impacts',
+      },
+      {
+        field: 'status',
+        header: 'Status',
         kind: 'choice',
-        width: 110,
-        options: [{ value: null, label: '—' }, ...activityCodes.map((c) => ({ value: c, label: c }))],
+        width: 100,
+        options: choice(RISK_STATUSES),
+        group: 'Risk',
+        headerTooltip: `${STATUS_RULES.occurred} ${STATUS_RULES.closed}`,
       },
       {
-        ...expectedColumn('_ev', `Expected cost (${currency})`, 'cost', 130, formatMoney),
-        headerTooltip: 'Probability × mean cost impact',
+        field: 'response',
+        header: 'Response',
+        kind: 'choice',
+        width: 92,
+        options: choice(RISK_RESPONSES),
+        group: 'Risk',
       },
-      expectedColumn('_evDelay', 'Expected delay (days)', 'delay', 120, (v) => formatNumber(v, 1)),
-      { field: 'response', header: 'Response', kind: 'choice', width: 96, options: choice(RISK_RESPONSES) },
-      { field: 'ownerName', header: 'Owner', kind: 'text', width: 110 },
-      { field: 'mitigationCost', header: `Mitigation cost`, kind: 'number', width: 116 },
-      { field: 'postProbability', header: 'Post probability', kind: 'percent', width: 110 },
-      ...partColumns(
-        'postCost',
-        'costType',
-        ['Post cost low', 'Post cost most likely', 'Post cost high'],
-        [104, 130, 104],
+      { field: 'ownerName', header: 'Owner', kind: 'text', width: 104, group: 'Risk' },
+      { field: 'probability', header: 'Before', kind: 'percent', width: 80, group: 'Probability' },
+      {
+        field: 'postProbability',
+        header: 'After',
+        kind: 'percent',
+        width: 80,
+        group: 'Probability',
+        headerTooltip: 'After the response (empty keeps the probability before it)',
+      },
+      ...impactColumns('cost', `Cost (${currency})`),
+      ...impactColumns('delay', 'Delay (working days)'),
+      codesColumn(
+        'activityCodes',
+        'Delays activities',
+        activityOptions,
+        'activities',
+        'Every activity the delay lengthens (a negative delay shortens them)',
+        (r) => !!r.delayType,
       ),
-      ...partColumns(
-        'postDelay',
-        'delayType',
-        ['Post delay low', 'Post delay most likely', 'Post delay high'],
-        [104, 134, 104],
+      codesColumn(
+        'itemCodes',
+        'Cost lines',
+        itemOptions,
+        'line items',
+        'The WBS lines the cost belongs to: contingency is allocated to them',
+        (r) => !!r.costType,
       ),
-      { field: 'cause', header: 'Cause', kind: 'text', width: 180 },
-      { field: 'event', header: 'Event', kind: 'text', width: 180 },
-      { field: 'effect', header: 'Effect', kind: 'text', width: 180 },
+      {
+        field: 'sizes',
+        header: 'Sizes',
+        kind: 'choice',
+        width: 100,
+        group: 'Touches',
+        options: choice(RISK_SIZES),
+        headerTooltip:
+          'Linked: a large cost comes with a long delay (one draw). Independent: each has its own.',
+      },
+      {
+        field: 'mitigationType',
+        header: 'Distribution',
+        kind: 'choice',
+        width: 104,
+        group: `Response cost (${currency})`,
+        options: [
+          { value: null, label: '—' },
+          ...MITIGATION_TYPES.map((t) => ({ value: t, label: DIST_LABELS[t] })),
+        ],
+        headerTooltip: 'Fixed for one amount, or a range; counted in the post-mitigation total',
+      },
+      {
+        field: 'mitigationLow',
+        header: 'Low',
+        kind: 'number',
+        width: 90,
+        group: `Response cost (${currency})`,
+        applies: (r) => !!r.mitigationType && r.mitigationType !== 'fixed',
+      },
+      {
+        field: 'mitigationCost',
+        header: 'Amount / most likely',
+        kind: 'number',
+        width: 130,
+        group: `Response cost (${currency})`,
+        applies: (r) => r.mitigationType !== 'uniform',
+      },
+      {
+        field: 'mitigationHigh',
+        header: 'High',
+        kind: 'number',
+        width: 90,
+        group: `Response cost (${currency})`,
+        applies: (r) => !!r.mitigationType && r.mitigationType !== 'fixed',
+      },
+      expectedColumn(
+        '_ev',
+        `Cost before (${currency})`,
+        expectedBefore('cost'),
+        formatMoney,
+        'Probability × mean cost impact, before the response',
+      ),
+      expectedColumn(
+        '_evPost',
+        `Cost after (${currency})`,
+        expectedCostAfter,
+        formatMoney,
+        'After the response: its probability × mean cost impact, plus the mean cost of the response',
+      ),
+      expectedColumn(
+        '_evDelay',
+        'Delay before (days)',
+        expectedBefore('delay'),
+        (v) => formatNumber(v, 1),
+        'Probability × mean delay, before the response',
+      ),
+      { field: 'cause', header: 'Cause', kind: 'text', width: 170, group: 'Description' },
+      { field: 'event', header: 'Event', kind: 'text', width: 170, group: 'Description' },
+      { field: 'effect', header: 'Effect', kind: 'text', width: 170, group: 'Description' },
     ],
-    [activityCodes, currency],
+    [activityOptions, itemOptions, currency],
   );
 
   const total = useMemo(() => {
     let ev = 0;
+    let evPost = 0;
     let evDelay = 0;
     for (const r of register.rows) {
       if (r.status === 'closed' || typeof r.probability !== 'number') continue;
-      ev += r.probability * (impactMean(r, 'cost') ?? 0);
-      evDelay += r.probability * (impactMean(r, 'delay') ?? 0);
+      // An occurred risk counts as certain, as in the model.
+      const p = r.status === 'occurred' ? 1 : r.probability;
+      ev += p * (impactMean(r, 'cost') ?? 0);
+      evDelay += p * (impactMean(r, 'delay') ?? 0);
+      evPost += expectedCostAfter(r.status === 'occurred' ? { ...r, postProbability: 1 } : r) ?? 0;
     }
-    return totalRowOf({ code: 'Total', title: 'Open risks, expected', _ev: ev, _evDelay: evDelay });
+    return totalRowOf({
+      code: 'Total',
+      title: 'Open risks, expected',
+      _ev: ev,
+      _evPost: evPost,
+      _evDelay: evDelay,
+    });
   }, [register.rows]);
   return (
     <RegisterTab
@@ -186,13 +357,40 @@ export function RiskEventsGrid({ projectId, currency, readOnly }: RegisterTabPro
       readOnly={readOnly}
       columns={columns}
       totalRow={total}
-      aside={
-        <ProbabilityImpactMatrix
-          risks={register.rows}
-          baseEstimate={base}
-          meanCost={(r) => impactMean(r, 'cost')}
-        />
-      }
+      note={<StatusRules rows={register.rows} correlations={correlations.data ?? []} />}
+      aside={<ProbabilityImpactMatrix risks={register.rows} baseEstimate={base} meanCost={threatCost} />}
     />
+  );
+}
+
+/** The matrix places threats: an opportunity's saving is not a small threat. */
+function threatCost(r: GridRow): number | null {
+  const m = impactMean(r, 'cost');
+  return m !== null && m < 0 ? null : m;
+}
+
+/** The status rules the model follows, stated above the grid, with what they leave out now. */
+function StatusRules({ rows, correlations }: { rows: GridRow[]; correlations: Record<string, unknown>[] }) {
+  const closed = new Set(rows.filter((r) => r.status === 'closed').map((r) => String(r.code)));
+  const pairs = correlations
+    .filter((c) => closed.has(String(c.aCode)) || closed.has(String(c.bCode)))
+    .map((c) => `${c.aCode}–${c.bCode}`);
+  const occurred = rows.filter((r) => r.status === 'occurred').map((r) => String(r.code));
+  return (
+    <div className="space-y-0.5 text-xs text-ink-soft" data-testid="risk-status-rules">
+      <p>
+        <strong className="font-medium text-ink">Status rules:</strong> {STATUS_RULES.occurred}{' '}
+        {STATUS_RULES.closed} Negative costs and delays are{' '}
+        <span className="font-medium text-opportunity">opportunities</span>, not errors.
+      </p>
+      {closed.size || occurred.length ? (
+        <p data-testid="risk-status-effect">
+          {closed.size
+            ? `Left out of the model now: ${[...closed].join(', ')}${pairs.length ? ` and the correlation${pairs.length > 1 ? 's' : ''} ${pairs.join(', ')}` : ''}. `
+            : ''}
+          {occurred.length ? `Counted as certain: ${occurred.join(', ')}.` : ''}
+        </p>
+      ) : null}
+    </div>
   );
 }

@@ -6,7 +6,10 @@
  *                            median (lognormal), value (fixed): the engine's Distribution.base
  *   base duration            max(0, base of the duration): a negative duration counts as 0 days
  *   base of a line           its base amount when given; otherwise the base of its distribution,
- *                            or for a rate per day: base of the rate × base duration of its activity
+ *                            or for a rate per day: base of the rate × base duration of its activity,
+ *                            or for a rate per project day: base of the rate × the project's base
+ *                            duration (the network's finish with every activity at its base, not
+ *                            the mean of the simulated durations)
  *   base estimate            Σ base of the lines (risk events are not in the base)
  *
  * The rule is the engine's (the compiler computes the run's base this way); it lives here once so
@@ -14,7 +17,7 @@
  * See docs/model-format.md.
  */
 import type { ModelActivity, ModelItem } from '@/lib/sim';
-import { baseDurationOf, baseOf } from './engine';
+import { baseDurationOf, baseFinishOf, baseOf } from './engine';
 
 export { baseOf };
 
@@ -28,14 +31,26 @@ export function baseDurations(
   return new Map(activities.map((a) => [a.id, baseDuration(a.duration)]));
 }
 
+/** The project's base duration in working days (null without a valid network). */
+export const baseProjectDuration = (activities: readonly ModelActivity[]) => baseFinishOf(activities);
+
 /**
- * The base of one line item; null when it is a rate per day whose activity has no base duration
- * (an activity not yet entered), so a grid can show the line as incomplete.
+ * The base of one line item; null when it is a rate per day whose activity (or, per project day,
+ * whose schedule) has no base duration yet, so a grid can show the line as incomplete.
  */
-export function itemBase(item: Omit<ModelItem, 'id'>, durations: ReadonlyMap<string, number>): number | null {
+export function itemBase(
+  item: Omit<ModelItem, 'id'>,
+  durations: ReadonlyMap<string, number>,
+  projectDays: number | null = null,
+): number | null {
   if (item.base !== undefined) return item.base;
   if (item.ratePerDay !== undefined) {
-    const days = item.activity === undefined ? undefined : durations.get(item.activity);
+    const days =
+      item.span === 'project'
+        ? (projectDays ?? undefined)
+        : item.activity === undefined
+          ? undefined
+          : durations.get(item.activity);
     if (days === undefined) return null;
     const rate = typeof item.ratePerDay === 'number' ? item.ratePerDay : baseOf(item.ratePerDay);
     return rate * days;
@@ -49,5 +64,6 @@ export function baseEstimate(model: {
   activities?: readonly ModelActivity[];
 }): number {
   const durations = baseDurations(model.activities ?? []);
-  return model.items.reduce((sum, item) => sum + (itemBase(item, durations) ?? 0), 0);
+  const projectDays = baseProjectDuration(model.activities ?? []);
+  return model.items.reduce((sum, item) => sum + (itemBase(item, durations, projectDays) ?? 0), 0);
 }

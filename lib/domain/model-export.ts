@@ -1,11 +1,17 @@
 /**
- * The registers of a project as the engine's model file: codes become ids, links by row become
- * links by code. The model file export and every run's input snapshot are built here and nowhere
- * else, so that what a user downloads is exactly what a run reads. See docs/model-format.md.
+ * The registers of a project as the engine's model file (version 2): codes become ids, links by
+ * row become links by code. The model file export and every run's input snapshot are built here
+ * and nowhere else, so that what a user downloads is exactly what a run reads. See
+ * docs/model-format.md.
  *
- * Rules:
- * - a closed risk event is left out (it can no longer occur);
- * - with `riskValues: 'post'` a risk uses its post-mitigation probability and impacts where given;
+ * Rules (each one a notice in words a user reads when it leaves something out or changes it):
+ * - a closed risk event is left out (it can no longer occur), and so is every correlation that
+ *   names it;
+ * - an occurred risk event counts as certain, probability 1 before and after its response, until
+ *   it is moved into the base estimate (then closed);
+ * - a risk's post-mitigation values and its response's cost travel as the risk's `post` block and
+ *   `mitigationCost`, so one run computes both scenarios from the same random numbers;
+ *   `riskValues` chooses which one is the headline (`settings.mitigation`);
  * - a correlation is kept only when both its inputs are in the model: one that names a closed
  *   risk (or any code the model does not hold) is left out with a notice, since the engine
  *   refuses a correlation of an unknown input and no run could start;
@@ -34,6 +40,8 @@ export type ItemRecord = {
   dist: DistSpec | null;
   ratePerDay: DistSpec | number | null;
   activityCode: string | null;
+  /** "project": the rate runs with the whole project's duration. */
+  span?: 'project' | null;
 };
 
 export type RiskRecord = {
@@ -46,7 +54,12 @@ export type RiskRecord = {
   postProbability: number | null;
   postCostImpact: DistSpec | null;
   postDelayImpact: DistSpec | null;
-  activityCode: string | null;
+  /** The activities its delay lengthens. */
+  activityCodes: string[];
+  /** The line items its cost belongs to (for the allocation of contingency). */
+  itemCodes?: string[];
+  sizes?: 'linked' | 'independent';
+  mitigationCost?: DistSpec | number | null;
 };
 
 export type ActivityRecord = {
@@ -79,9 +92,15 @@ export type RegisterRecords = {
 
 export type ModelExport = {
   model: Model;
-  /** What was left out of the model and why, in words a user reads. */
+  /** What was left out of the model or changed on its way in, and why, in words a user reads. */
   notices: string[];
 };
+
+/** The status rules, as the registers state them on screen. */
+export const STATUS_RULES = {
+  occurred: 'An occurred risk counts as certain (probability 100%) until it is moved into the base estimate.',
+  closed: 'A closed risk and its correlations are left out of the model.',
+} as const;
 
 function activityOf(a: ActivityRecord): ModelActivity {
   return {
@@ -98,19 +117,37 @@ function itemOf(i: ItemRecord): ModelItem {
   if (i.dist) item.dist = i.dist;
   if (i.ratePerDay !== null) {
     item.ratePerDay = i.ratePerDay;
-    if (i.activityCode !== null) item.activity = i.activityCode;
+    if (i.span === 'project') item.span = 'project';
+    else if (i.activityCode !== null) item.activity = i.activityCode;
   }
   return item;
 }
 
-function riskOf(r: RiskRecord, post: boolean): ModelRisk {
-  const probability = post && r.postProbability !== null ? r.postProbability : r.probability;
-  const cost = post && r.postCostImpact ? r.postCostImpact : r.costImpact;
-  const delay = post && r.postDelayImpact ? r.postDelayImpact : r.delayImpact;
-  const risk: ModelRisk = { id: r.code, name: r.title, probability };
-  if (cost) risk.cost = cost;
-  if (delay) risk.delay = delay;
-  if (delay && r.activityCode !== null) risk.activity = r.activityCode;
+/** The risk's block after its response, or undefined when it has no post value and no response cost. */
+function postOf(r: RiskRecord, certain: boolean): ModelRisk['post'] {
+  const hasMitigationCost = r.mitigationCost !== null && r.mitigationCost !== undefined;
+  if (r.postProbability === null && !r.postCostImpact && !r.postDelayImpact && !hasMitigationCost)
+    return undefined;
+  const post: NonNullable<ModelRisk['post']> = {};
+  if (r.postProbability !== null) post.probability = certain ? 1 : r.postProbability;
+  if (r.postCostImpact && r.costImpact) post.cost = r.postCostImpact;
+  if (r.postDelayImpact && r.delayImpact) post.delay = r.postDelayImpact;
+  return post;
+}
+
+function riskOf(r: RiskRecord): ModelRisk {
+  const certain = r.status === 'occurred';
+  const risk: ModelRisk = { id: r.code, name: r.title, probability: certain ? 1 : r.probability };
+  if (r.costImpact) risk.cost = r.costImpact;
+  if (r.delayImpact) {
+    risk.delay = r.delayImpact;
+    if (r.activityCodes.length) risk.activities = [...r.activityCodes];
+  }
+  if (r.costImpact && r.itemCodes?.length) risk.items = [...r.itemCodes];
+  if (r.sizes === 'independent' && r.costImpact && r.delayImpact) risk.sizes = 'independent';
+  const post = postOf(r, certain);
+  if (post) risk.post = post;
+  if (r.mitigationCost !== null && r.mitigationCost !== undefined) risk.mitigationCost = r.mitigationCost;
   return risk;
 }
 
@@ -142,16 +179,28 @@ function driversOf(records: RegisterRecords, notices: string[]): ModelDriver[] {
   return out;
 }
 
+/** The notices of the status rules: which risks were left out, which count as certain. */
+function statusNotices(risks: readonly RiskRecord[]): string[] {
+  const notices: string[] = [];
+  for (const r of risks) {
+    if (r.status === 'closed')
+      notices.push(`Risk ${r.code} (${r.title}) is closed: it is left out of the model.`);
+    else if (r.status === 'occurred' && (r.probability !== 1 || (r.postProbability ?? 1) !== 1))
+      notices.push(
+        `Risk ${r.code} (${r.title}) has occurred: it counts as certain (probability 100%) until it is moved into the base estimate.`,
+      );
+  }
+  return notices;
+}
+
 export function registersToModel(
   records: RegisterRecords,
   options: { riskValues?: RiskValues } = {},
 ): ModelExport {
-  const post = options.riskValues === 'post';
   const items = records.items.map(itemOf);
-  const openRisks = records.risks.filter((r) => r.status !== 'closed');
-  const risks = openRisks.map((r) => riskOf(r, post));
+  const risks = records.risks.filter((r) => r.status !== 'closed').map(riskOf);
   const activities = records.activities.map(activityOf);
-  const notices: string[] = [];
+  const notices = statusNotices(records.risks);
   const drivers = driversOf(records, notices);
 
   const inModel = new Set([...items, ...risks, ...activities, ...drivers].map((e) => e.id));
@@ -171,7 +220,7 @@ export function registersToModel(
 
   const model: Model = {
     format: 'outturn-model',
-    version: 1,
+    version: 2,
     name: records.project.name,
     currency: records.project.currency,
     items,
@@ -179,6 +228,8 @@ export function registersToModel(
     activities,
     correlations,
   };
-  if (drivers.length) Object.assign(model, { version: 2, drivers });
+  if (drivers.length) model.drivers = drivers;
+  // The headline scenario, when there is a second one to choose from.
+  if (risks.some((r) => r.post)) model.settings = { mitigation: options.riskValues ?? 'pre' };
   return { model, notices };
 }

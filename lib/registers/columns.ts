@@ -5,8 +5,9 @@
 import type { RegisterKind } from '@/lib/validation/registers';
 import { formatPredecessors, parsePredecessors, type PredecessorLink } from './predecessors';
 import { readNumber, readProbability } from './numbers';
+import { formatCodeList, readCodeList } from './risk-fields';
 
-export type ColumnKind = 'text' | 'number' | 'percent' | 'choice' | 'predecessors' | 'list';
+export type ColumnKind = 'text' | 'number' | 'percent' | 'choice' | 'predecessors' | 'list' | 'codes';
 
 export type FileColumn = { field: string; header: string; kind: ColumnKind; aliases?: string[] };
 
@@ -52,19 +53,32 @@ export const FILE_COLUMNS: Record<RegisterKind, FileColumn[]> = {
     c('costLow', 'Cost low', 'number'),
     c('costMode', 'Cost most likely', 'number', ['cost ml', 'cost mode']),
     c('costHigh', 'Cost high', 'number'),
+    c('costMean', 'Cost mean', 'number'),
+    c('costSd', 'Cost SD', 'number', ['cost standard deviation']),
     c('delayType', 'Delay distribution', 'choice', ['delay type']),
     c('delayLow', 'Delay low', 'number'),
     c('delayMode', 'Delay most likely', 'number', ['delay ml', 'delay mode']),
     c('delayHigh', 'Delay high', 'number'),
-    c('activityCode', 'Activity', 'text', ['delayed activity']),
-    c('mitigationCost', 'Mitigation cost', 'number'),
+    c('delayMean', 'Delay mean', 'number'),
+    c('delaySd', 'Delay SD', 'number', ['delay standard deviation']),
+    c('activityCodes', 'Activities', 'codes', ['activity', 'delayed activity', 'activity code', 'delays']),
+    c('itemCodes', 'Cost lines', 'codes', ['wbs lines', 'line items', 'items']),
+    c('sizes', 'Sizes', 'choice', ['cost and delay sizes']),
+    c('mitigationType', 'Mitigation cost distribution', 'choice', ['mitigation type']),
+    c('mitigationLow', 'Mitigation cost low', 'number'),
+    c('mitigationCost', 'Mitigation cost', 'number', ['mitigation cost most likely']),
+    c('mitigationHigh', 'Mitigation cost high', 'number'),
     c('postProbability', 'Post probability', 'percent', ['post-mitigation probability']),
     c('postCostLow', 'Post cost low', 'number'),
     c('postCostMode', 'Post cost most likely', 'number'),
     c('postCostHigh', 'Post cost high', 'number'),
+    c('postCostMean', 'Post cost mean', 'number'),
+    c('postCostSd', 'Post cost SD', 'number'),
     c('postDelayLow', 'Post delay low', 'number'),
     c('postDelayMode', 'Post delay most likely', 'number'),
     c('postDelayHigh', 'Post delay high', 'number'),
+    c('postDelayMean', 'Post delay mean', 'number'),
+    c('postDelaySd', 'Post delay SD', 'number'),
   ],
   activities: [
     c('code', 'Code', 'text', ['id', 'activity', 'activity code']),
@@ -125,8 +139,11 @@ const CHOICES: Record<string, Record<string, string>> = {
     lumpsum: 'lump-sum',
     lump: 'lump-sum',
     perday: 'per-day',
+    peractivityday: 'per-day',
     timedependent: 'per-day',
     rate: 'per-day',
+    perprojectday: 'per-project-day',
+    projectday: 'per-project-day',
   },
   range: { minmax: 'min-max', absolute: 'min-max', p10p90: 'p10-p90' },
   entry: { change: 'change', percent: 'change', percentagechange: 'change', factor: 'factor' },
@@ -135,7 +152,7 @@ const CHOICES: Record<string, Record<string, string>> = {
 /** A cell as the row schema wants it (numbers as numbers, choices normalised, empty as null). */
 export function readCell(col: FileColumn, raw: unknown): unknown {
   if (raw === undefined || raw === null || (typeof raw === 'string' && raw.trim() === '')) {
-    return col.kind === 'predecessors' ? [] : null;
+    return col.kind === 'predecessors' || col.kind === 'codes' ? [] : null;
   }
   switch (col.kind) {
     case 'number':
@@ -150,6 +167,8 @@ export function readCell(col: FileColumn, raw: unknown): unknown {
       const parsed = parsePredecessors(String(raw));
       return parsed.ok ? parsed.links : String(raw);
     }
+    case 'codes':
+      return readCodeList(raw);
     default:
       return String(raw).trim();
   }
@@ -160,6 +179,7 @@ export function writeCell(col: FileColumn, value: unknown): string | number | nu
   if (value === null || value === undefined) return null;
   if (col.kind === 'predecessors') return formatPredecessors(value as PredecessorLink[]);
   if (col.kind === 'list' && Array.isArray(value)) return value.join(', ');
+  if (col.kind === 'codes') return Array.isArray(value) && value.length === 0 ? null : formatCodeList(value);
   if (typeof value === 'number') return value;
   return String(value);
 }

@@ -56,6 +56,16 @@ export function partsUsed(type: DistType, parts?: Partial<DistParts>): DistPart[
   }
 }
 
+const given = (v: number | null | undefined) => v !== null && v !== undefined;
+const bothLognormalForms = (p: Partial<DistParts>) =>
+  (given(p.low) || given(p.high)) && (given(p.mean) || given(p.sd));
+
+/** Whether a cell takes a value under the type: a lognormal takes low/high or mean/SD, never a mode. */
+export function partApplies(type: DistType, part: DistPart): boolean {
+  if (type === 'lognormal') return part !== 'mode';
+  return partsUsed(type).includes(part);
+}
+
 export type PartIssue = { part: DistPart | 'type'; message: string };
 export type SpecResult = { ok: true; spec: DistSpec } | { ok: false; issues: PartIssue[] };
 
@@ -73,6 +83,17 @@ const ENGINE_TO_PART: Record<string, DistPart> = {
 
 /** DistSpec from cells, or the issues naming the cells at fault. */
 export function specFromParts(parts: DistParts): SpecResult {
+  if (parts.type === 'lognormal' && bothLognormalForms(parts))
+    return {
+      ok: false,
+      issues: [
+        {
+          part: 'mean',
+          message:
+            'A lognormal takes low and high (its P10 and P90) or mean and SD, not both: clear one pair.',
+        },
+      ],
+    };
   const missing = partsUsed(parts.type, parts)
     .filter((p) => parts[p] === null || parts[p] === undefined)
     .map((p) => ({ part: p, message: `Enter the ${PART_NAMES[p]} value.` }));

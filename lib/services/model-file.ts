@@ -3,10 +3,10 @@ import { Activity, CostItem, Correlation, Project, RiskDriver, RiskEvent, sequel
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
 import { badRequest, forbidden } from '@/lib/errors';
-import { validateModel, type Model } from '@/lib/sim';
+import { validateModel, type DistSpec, type Model } from '@/lib/sim';
 import { recordAudit } from './audit';
 import { findProject } from './projects';
-import { json } from './registers/rows';
+import { json, riskActivityCodes } from './registers/rows';
 import { assertWritable } from './write-access';
 import {
   registersToModel,
@@ -50,6 +50,7 @@ async function loadRecords(actor: Actor, projectId: number): Promise<RegisterRec
       dist: json(i.dist) ?? null,
       ratePerDay: json(i.ratePerDay) ?? null,
       activityCode: activityCode(i.activityId),
+      span: i.span === 'project' ? ('project' as const) : null,
     })),
     risks: risks.map((r) => ({
       code: r.code,
@@ -61,7 +62,10 @@ async function loadRecords(actor: Actor, projectId: number): Promise<RegisterRec
       postProbability: r.postProbability ?? null,
       postCostImpact: json(r.postCostImpact) ?? null,
       postDelayImpact: json(r.postDelayImpact) ?? null,
-      activityCode: activityCode(r.activityId),
+      activityCodes: riskActivityCodes(r, codeOf),
+      itemCodes: json<string[] | null>(r.itemCodes) ?? [],
+      sizes: r.sizes ?? 'linked',
+      mitigationCost: json<DistSpec | number | null>(r.mitigationCost) ?? null,
     })),
     correlations: correlations.map((c) => ({ aCode: c.aCode, bCode: c.bCode, rho: c.rho })),
     drivers: drivers.map((d) => ({
@@ -155,6 +159,7 @@ export async function importModel(
         dist: item.dist ?? null,
         ratePerDay: item.ratePerDay ?? null,
         activityId: item.activity ? (activityId.get(item.activity) ?? null) : null,
+        span: item.span ?? null,
         ownerName: null,
         notes: null,
       })),
@@ -172,11 +177,14 @@ export async function importModel(
         probability: r.probability,
         costImpact: r.cost ?? null,
         delayImpact: r.delay ?? null,
-        activityId: r.activity ? (activityId.get(r.activity) ?? null) : null,
-        postProbability: null,
-        postCostImpact: null,
-        postDelayImpact: null,
-        mitigationCost: null,
+        activityId: null,
+        activityCodes: r.activities ?? (r.activity !== undefined ? [r.activity] : []),
+        itemCodes: r.items ?? [],
+        sizes: r.sizes ?? 'linked',
+        postProbability: r.post?.probability ?? null,
+        postCostImpact: r.post?.cost ?? null,
+        postDelayImpact: r.post?.delay ?? null,
+        mitigationCost: r.mitigationCost ?? null,
       })),
       { transaction },
     );

@@ -7,7 +7,7 @@ import 'server-only';
 import type { FieldIssue } from '@/lib/errors';
 import { partsFromSpec } from '@/lib/registers/dist-fields';
 import type { DistSpec, Model, ModelActivity, ModelDriver, ModelItem, ModelRisk } from '@/lib/sim';
-import { parseRows, type RegisterKind } from '@/lib/validation/registers';
+import { parseRows, type ImpactPrefix, type RegisterKind } from '@/lib/validation/registers';
 import { MAX_FILE_ROWS } from './registers/files';
 
 /** Model array → register it fills. */
@@ -58,21 +58,29 @@ function itemRow(item: ModelItem) {
   return {
     code: item.id,
     description: item.name || item.id,
-    basis: perDay ? 'per-day' : 'lump-sum',
+    basis: !perDay ? 'lump-sum' : item.span === 'project' ? 'per-project-day' : 'per-day',
     activityCode: perDay ? (item.activity ?? null) : null,
     ...cells(spec),
     base: item.base ?? null,
   };
 }
 
-function impact(prefix: 'cost' | 'delay', spec: DistSpec | undefined) {
+function impact(prefix: ImpactPrefix, spec: DistSpec | undefined) {
   const c = cells(spec);
   return {
-    [`${prefix}Type`]: c.distType,
+    ...(prefix === 'cost' || prefix === 'delay' ? { [`${prefix}Type`]: c.distType } : {}),
     [`${prefix}Low`]: c.low,
     [`${prefix}Mode`]: c.mode,
     [`${prefix}High`]: c.high,
+    [`${prefix}Mean`]: c.mean,
+    [`${prefix}Sd`]: c.sd,
   };
+}
+
+function mitigation(cost: ModelRisk['mitigationCost']) {
+  if (cost === undefined) return {};
+  const c = cells(typeof cost === 'number' ? { type: 'fixed', value: cost } : cost);
+  return { mitigationType: c.distType, mitigationLow: c.low, mitigationCost: c.mode, mitigationHigh: c.high };
 }
 
 function riskRow(risk: ModelRisk) {
@@ -82,8 +90,49 @@ function riskRow(risk: ModelRisk) {
     probability: risk.probability,
     ...impact('cost', risk.cost),
     ...impact('delay', risk.delay),
-    activityCode: risk.activity ?? null,
+    activityCodes: risk.activities ?? (risk.activity !== undefined ? [risk.activity] : []),
+    itemCodes: risk.items ?? [],
+    sizes: risk.sizes ?? 'linked',
+    postProbability: risk.post?.probability ?? null,
+    ...impact('postCost', risk.post?.cost),
+    ...impact('postDelay', risk.post?.delay),
+    ...mitigation(risk.mitigationCost),
   };
+}
+
+/**
+ * What a risk register row cannot hold of a risk: a post impact of another type than the impact
+ * before it (the post cells share its type), and a P10–P90 range on an impact (its cells are
+ * bounds).
+ */
+function riskShapeIssues(risks: readonly ModelRisk[]): FieldIssue[] {
+  const issues: FieldIssue[] = [];
+  risks.forEach((r, i) => {
+    const at = `risks[${i}] (${r.id})`;
+    const specs: [string, DistSpec | undefined][] = [
+      ['cost', r.cost],
+      ['delay', r.delay],
+      ['post.cost', r.post?.cost],
+      ['post.delay', r.post?.delay],
+    ];
+    for (const [field, spec] of specs) {
+      if (spec && 'range' in spec && spec.range === 'p10-p90')
+        issues.push({
+          path: `risks[${i}].${field}`,
+          message: `${at}, ${field}: the risk register holds low and high as bounds; give a min–max range.`,
+        });
+    }
+    for (const what of ['cost', 'delay'] as const) {
+      const post = r.post?.[what];
+      const pre = r[what];
+      if (post && pre && post.type !== pre.type)
+        issues.push({
+          path: `risks[${i}].post.${what}`,
+          message: `${at}, post.${what}: the risk register gives the ${what} after mitigation the type of the ${what} before it (${pre.type}, got ${post.type}).`,
+        });
+    }
+  });
+  return issues;
 }
 
 function activityRow(activity: ModelActivity) {
@@ -111,6 +160,8 @@ function driverRow(driver: ModelDriver) {
 
 /** Issues of every entry that breaks a register rule, e.g. "items[3] (C4), code: Use letters…". */
 export function registerRuleIssues(model: Model): FieldIssue[] {
+  const shape = riskShapeIssues(model.risks ?? []);
+  if (shape.length) return shape;
   const registers: [keyof typeof REGISTERS, unknown[]][] = [
     ['items', model.items.map(itemRow)],
     ['risks', (model.risks ?? []).map(riskRow)],

@@ -48,6 +48,7 @@ export {
   type CorrelationGroup,
 } from './core/correlation/plan';
 export { checkNetwork, type NetworkProblem } from './core/schedule/network';
+export { baseFinishOf } from './core/schedule/base-finish';
 
 // The command line's printed summary.
 export { summaryText, type SummaryContext } from './core/report/summary-text';

@@ -10,6 +10,19 @@ import {
   type DistParts,
   type DistType,
 } from '@/lib/registers/dist-fields';
+import {
+  anyPostCell,
+  IMPACT_CELLS,
+  impactCell,
+  impactParts,
+  MITIGATION_TYPES,
+  mitigationCell,
+  mitigationParts,
+  readCodeList,
+  RISK_IMPACT_TYPES,
+  RISK_SIZES,
+  type ImpactPrefix,
+} from '@/lib/registers/risk-fields';
 import type { FieldIssue } from '@/lib/errors';
 import { splitApplies } from '@/lib/registers/driver-applies';
 import { FACTOR_ENTRIES, factorBelowZero, readFactor } from '@/lib/registers/driver-factor';
@@ -19,8 +32,7 @@ export type RegisterKind = (typeof REGISTER_KINDS)[number];
 
 export const RISK_STATUSES = ['open', 'mitigating', 'closed', 'occurred'] as const;
 export const RISK_RESPONSES = ['avoid', 'reduce', 'transfer', 'accept'] as const;
-export const RISK_IMPACT_TYPES = ['fixed', 'uniform', 'triangular', 'pert', 'lognormal'] as const;
-export const BASES = ['lump-sum', 'per-day'] as const;
+export const BASES = ['lump-sum', 'per-day', 'per-project-day'] as const;
 
 const describe = (input: unknown) => (typeof input === 'string' ? `"${input}"` : String(input));
 
@@ -104,7 +116,9 @@ function refineDist(
 const lineItemShape = {
   code: codeSchema,
   description: requiredText('description', 255),
-  basis: z.enum(BASES, { message: 'Choose lump sum or per day.' }).default('lump-sum'),
+  basis: z
+    .enum(BASES, { message: 'Choose lump sum, per day (of an activity) or per project day.' })
+    .default('lump-sum'),
   activityCode: optText(40, 'Activity'),
   distType: z.enum(DIST_TYPES, { message: `Choose a distribution: ${DIST_TYPES.join(', ')}.` }).nullable(),
   range: orNull(z.enum(RANGE_KINDS, { message: 'Range is min-max or p10-p90.' })),
@@ -124,19 +138,22 @@ function refineLineItem(row: LineItemShape, ctx: Ctx) {
   if (row.basis === 'per-day') {
     if (!row.activityCode)
       ctx.addIssue({ code: 'custom', path: ['activityCode'], message: 'A per-day line needs its activity.' });
-    if (!row.distType)
-      ctx.addIssue({
-        code: 'custom',
-        path: ['distType'],
-        message: 'Choose the distribution of the rate per day (Fixed for a set rate).',
-      });
   } else if (row.activityCode) {
     ctx.addIssue({
       code: 'custom',
       path: ['activityCode'],
-      message: 'Only per-day lines take an activity; clear it or set the basis to per day.',
+      message:
+        row.basis === 'per-project-day'
+          ? 'A per-project-day line runs with the whole project; clear its activity.'
+          : 'Only per-day lines take an activity; clear it or set the basis to per day.',
     });
   }
+  if (row.basis !== 'lump-sum' && !row.distType)
+    ctx.addIssue({
+      code: 'custom',
+      path: ['distType'],
+      message: 'Choose the distribution of the rate per day (Fixed for a set rate).',
+    });
   if (!row.distType) {
     if (row.base === null)
       ctx.addIssue({
@@ -157,8 +174,28 @@ export type LineItemData = z.output<typeof lineItemSchema>;
 
 const impactType = (label: string) =>
   orNull(
-    z.enum(RISK_IMPACT_TYPES, { message: `${label}: choose fixed, uniform, triangular, pert or lognormal.` }),
+    z.enum(RISK_IMPACT_TYPES, {
+      message: `${label}: choose ${RISK_IMPACT_TYPES.join(', ')}.`,
+    }),
   );
+
+/** A list of codes (the grid's multi-pick, a file's "A-10, A-20"); empty is an empty list. */
+const codeList = (label: string) =>
+  z.preprocess(
+    (v) => (v === null || v === undefined || v === '' ? [] : typeof v === 'string' ? readCodeList(v) : v),
+    z
+      .array(codeSchema, { error: `${label} must be a list of codes.` })
+      .max(200, { message: `${label}: at most 200 codes.` }),
+  );
+
+/** The five cells of one impact (low, most likely, high, mean, sd), bounded by `bound`. */
+const impactCells = (prefix: ImpactPrefix, label: string, bound: Bound) => ({
+  [`${prefix}Low`]: optNumber(`${label} low`, bound),
+  [`${prefix}Mode`]: optNumber(`${label} most likely`, bound),
+  [`${prefix}High`]: optNumber(`${label} high`, bound),
+  [`${prefix}Mean`]: optNumber(`${label} mean`, bound),
+  [`${prefix}Sd`]: optNumber(`${label} SD`, bound),
+});
 
 const riskShape = {
   code: codeSchema,
@@ -173,38 +210,73 @@ const riskShape = {
     .default('reduce'),
   probability: probability('Probability'),
   costType: impactType('Cost impact'),
-  costLow: optNumber('Cost low', MONEY),
-  costMode: optNumber('Cost most likely', MONEY),
-  costHigh: optNumber('Cost high', MONEY),
+  ...(impactCells('cost', 'Cost', MONEY) as Record<`cost${ImpactCell}`, NumberCell>),
   delayType: impactType('Delay'),
-  delayLow: optNumber('Delay low', DAYS),
-  delayMode: optNumber('Delay most likely', DAYS),
-  delayHigh: optNumber('Delay high', DAYS),
-  activityCode: optText(40, 'Activity'),
+  ...(impactCells('delay', 'Delay', DAYS) as Record<`delay${ImpactCell}`, NumberCell>),
+  activityCodes: codeList('Activities').default([]),
+  itemCodes: codeList('Cost lines').default([]),
+  sizes: z
+    .enum(RISK_SIZES, { message: 'Sizes are linked (one draw sizes cost and delay) or independent.' })
+    .default('linked'),
+  mitigationType: orNull(
+    z.enum(MITIGATION_TYPES, { message: `Mitigation cost: choose ${MITIGATION_TYPES.join(', ')}.` }),
+  ),
+  mitigationLow: optNumber('Mitigation cost low', MONEY),
   mitigationCost: optNumber('Mitigation cost', MONEY),
+  mitigationHigh: optNumber('Mitigation cost high', MONEY),
   postProbability: orNull(probability('Post-mitigation probability')),
-  postCostLow: optNumber('Post cost low', MONEY),
-  postCostMode: optNumber('Post cost most likely', MONEY),
-  postCostHigh: optNumber('Post cost high', MONEY),
-  postDelayLow: optNumber('Post delay low', DAYS),
-  postDelayMode: optNumber('Post delay most likely', DAYS),
-  postDelayHigh: optNumber('Post delay high', DAYS),
+  ...(impactCells('postCost', 'Post cost', MONEY) as Record<`postCost${ImpactCell}`, NumberCell>),
+  ...(impactCells('postDelay', 'Post delay', DAYS) as Record<`postDelay${ImpactCell}`, NumberCell>),
 };
 
+type ImpactCell = (typeof IMPACT_CELLS)[number];
+type NumberCell = ReturnType<typeof optNumber>;
 type RiskShape = z.infer<z.ZodObject<typeof riskShape>>;
-export type ImpactPrefix = 'cost' | 'delay' | 'postCost' | 'postDelay';
+export type { ImpactPrefix };
+export { impactParts, RISK_IMPACT_TYPES, RISK_SIZES, MITIGATION_TYPES };
 
-export function impactParts(row: Partial<Record<string, unknown>>, prefix: ImpactPrefix): DistParts | null {
-  const type = (
-    prefix.startsWith('post') ? row[prefix === 'postCost' ? 'costType' : 'delayType'] : row[`${prefix}Type`]
-  ) as DistType | null;
-  if (!type) return null;
-  const n = (k: string) => (row[`${prefix}${k}`] as number | null | undefined) ?? null;
-  return { type, low: n('Low'), mode: n('Mode'), high: n('High') };
+function refineImpacts(row: RiskShape, ctx: Ctx) {
+  for (const prefix of ['cost', 'delay', 'postCost', 'postDelay'] as const) {
+    const parts = impactParts(row, prefix);
+    const post = prefix === 'postCost' || prefix === 'postDelay';
+    const what = prefix === 'postCost' ? 'cost' : 'delay';
+    if (!parts) {
+      if (post && anyPostCell(row, prefix)) {
+        ctx.addIssue({
+          code: 'custom',
+          path: [`${prefix}Mode`],
+          message: `Post-mitigation ${what} needs a ${what} type before it.`,
+        });
+      }
+      continue;
+    }
+    if (post && !anyPostCell(row, prefix)) continue;
+    refineDist(ctx, parts.type, parts, (p) => impactCell(prefix, p));
+  }
 }
 
-const anyPost = (row: RiskShape, prefix: 'postCost' | 'postDelay') =>
-  [row[`${prefix}Low`], row[`${prefix}Mode`], row[`${prefix}High`]].some((v) => v !== null);
+function refineMitigation(row: RiskShape, ctx: Ctx) {
+  const parts = mitigationParts(row);
+  if (!parts) {
+    if (row.mitigationLow !== null || row.mitigationHigh !== null)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['mitigationType'],
+        message: 'Choose how the mitigation cost is given (fixed or a range).',
+      });
+    return;
+  }
+  refineDist(ctx, parts.type, parts, mitigationCell, (c) => {
+    for (const part of ['low', 'mode', 'high'] as const) {
+      if ((c[part] ?? 0) < 0)
+        ctx.addIssue({
+          code: 'custom',
+          path: [mitigationCell(part)],
+          message: 'Mitigation cost cannot be negative.',
+        });
+    }
+  });
+}
 
 function refineRisk(row: RiskShape, ctx: Ctx) {
   if (!row.costType && !row.delayType) {
@@ -214,46 +286,24 @@ function refineRisk(row: RiskShape, ctx: Ctx) {
       message: 'A risk needs a cost impact, a delay, or both.',
     });
   }
-  for (const prefix of ['cost', 'delay', 'postCost', 'postDelay'] as const) {
-    const parts = impactParts(row, prefix);
-    if (!parts) {
-      if (prefix.startsWith('post') && anyPost(row, prefix as 'postCost' | 'postDelay')) {
-        ctx.addIssue({
-          code: 'custom',
-          path: [`${prefix}Mode`],
-          message: `Post-mitigation ${prefix === 'postCost' ? 'cost' : 'delay'} needs a ${prefix === 'postCost' ? 'cost' : 'delay'} type before it.`,
-        });
-      }
-      continue;
-    }
-    if (prefix.startsWith('post') && !anyPost(row, prefix as 'postCost' | 'postDelay')) continue;
-    refineDist(
-      ctx,
-      parts.type,
-      parts,
-      (p) => (p === 'type' ? `${prefix}Type` : `${prefix}${p[0].toUpperCase()}${p.slice(1)}`),
-      (c) => {
-        if (
-          prefix.toLowerCase().includes('delay') &&
-          [c.low, c.mode, c.high].some((v) => v !== null && v !== undefined && v < 0)
-        ) {
-          ctx.addIssue({ code: 'custom', path: [`${prefix}Low`], message: 'A delay cannot be negative.' });
-        }
-      },
-    );
-  }
-  if (row.delayType && !row.activityCode) {
+  refineImpacts(row, ctx);
+  refineMitigation(row, ctx);
+  if (row.delayType && row.activityCodes.length === 0) {
     ctx.addIssue({
       code: 'custom',
-      path: ['activityCode'],
-      message: 'A delay needs the activity it lengthens.',
+      path: ['activityCodes'],
+      message: 'A delay needs the activities it lengthens.',
     });
   }
-  if (row.mitigationCost !== null && row.mitigationCost < 0) {
+  for (const field of ['activityCodes', 'itemCodes'] as const) {
+    const twice = row[field].find((code, i) => row[field].indexOf(code) !== i);
+    if (twice) ctx.addIssue({ code: 'custom', path: [field], message: `${twice} is listed twice.` });
+  }
+  if (row.itemCodes.length && !row.costType) {
     ctx.addIssue({
       code: 'custom',
-      path: ['mitigationCost'],
-      message: 'Mitigation cost cannot be negative.',
+      path: ['itemCodes'],
+      message: 'Only a risk with a cost impact belongs to cost lines; clear them or add a cost.',
     });
   }
 }

@@ -31,4 +31,6 @@ export type RunView = {
    * not started yet), and, when the current engine would compute other numbers for it, why.
    */
   engine: { version: string | null; blockSize: number | null; notice: string | null };
+  /** What the registers → model export left out of the run's model or changed (the status rules). */
+  modelNotices: string[];
 };

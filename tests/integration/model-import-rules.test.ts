@@ -64,21 +64,31 @@ describe('a model file import applies the register rules', () => {
       /activities\[0\] \(A1\), low: A duration cannot be negative/,
     );
   });
-  it('refuses a negative risk delay and an over-long risk id', async () => {
+  it('refuses an over-long risk id', async () => {
     await refused(
       {
         ...base,
+        risks: [{ id: 'R'.repeat(41), probability: 0.2, cost: { type: 'fixed', value: 5 } }],
+      },
+      /risks\[0\] \(R{41}\), code: Keep the code under 40/,
+    );
+  });
+  it('refuses what a risk row cannot hold: a post impact of another type, a P10–P90 impact', async () => {
+    await refused(
+      {
+        ...base,
+        version: 2,
         risks: [
           {
             id: 'R1',
             probability: 0.2,
-            delay: { type: 'uniform', low: -3, high: 2 },
-            activity: 'A1',
+            cost: { type: 'uniform', low: 10, high: 20 },
+            post: { cost: { type: 'fixed', value: 5 } },
           },
-          { id: 'R'.repeat(41), probability: 0.2, cost: { type: 'fixed', value: 5 } },
+          { id: 'R2', probability: 0.2, cost: { type: 'pert', low: 1, mode: 2, high: 5, range: 'p10-p90' } },
         ],
       },
-      /risks\[0\] \(R1\), delayLow: A delay cannot be negative[\s\S]*risks\[1\] \(R{41}\), code: Keep the code under 40/,
+      /risks\[0\] \(R1\), post\.cost: the risk register gives the cost after mitigation the type of the cost before it \(uniform, got fixed\)[\s\S]*risks\[1\] \(R2\), cost: the risk register holds low and high as bounds/,
     );
   });
   it('refuses more than 20,000 rows in one register', async () => {
@@ -97,9 +107,17 @@ describe('a model file import applies the register rules', () => {
           delay: { type: 'uniform', low: 1, high: 4 },
           activity: 'A1',
         },
+        // An opportunity: a negative delay (version 2) and a normal cost saving.
+        {
+          id: 'R2',
+          probability: 0.4,
+          cost: { type: 'normal', mean: -30, sd: 5 },
+          delay: { type: 'uniform', low: -3, high: -1 },
+          activities: ['A1'],
+        },
       ],
     });
     expect(res.status).toBe(200);
-    expect(res.json.imported).toEqual({ items: 2, risks: 1, activities: 1, correlations: 0, drivers: 0 });
+    expect(res.json.imported).toEqual({ items: 2, risks: 2, activities: 1, correlations: 0, drivers: 0 });
   });
 });

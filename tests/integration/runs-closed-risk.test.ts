@@ -42,6 +42,7 @@ describe('a closed risk that still has a correlation', () => {
     const started = await client.post(`/api/projects/${projectId}/runs`, { iterations: 2000, seed: 11 });
     expect(started.status).toBe(201);
     expect(started.json.run.notices).toEqual([
+      'Risk R1 (Rock in the trench) is closed: it is left out of the model.',
       'The correlation R1–C3 (ρ 0.4) is left out of the model: risk R1 is closed.',
     ]);
     const run = await waitForRun(client, projectId, started.json.run.id, (r) =>

@@ -159,8 +159,10 @@ describe('drivers in the model file', () => {
     expect(registersToModel(more).model.drivers?.[0].applies).toEqual(['3.1', '3.2', '3.3', 'A1']);
   });
 
-  it('stays a version 1 model when the project has no drivers', () => {
-    expect(registersToModel({ ...records, drivers: [], correlations: [] }).model.version).toBe(1);
+  it('writes no drivers entry when the project has no drivers', () => {
+    expect(registersToModel({ ...records, drivers: [], correlations: [] }).model).not.toHaveProperty(
+      'drivers',
+    );
   });
 });
 

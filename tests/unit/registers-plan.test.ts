@@ -73,15 +73,28 @@ const risk = (id: number, code: string, extra: Partial<RiskRow> = {}): RiskRow =
   delayLow: null,
   delayMode: null,
   delayHigh: null,
-  activityCode: null,
+  costMean: null,
+  costSd: null,
+  delayMean: null,
+  delaySd: null,
+  activityCodes: [],
+  itemCodes: [],
+  sizes: 'linked',
+  mitigationType: null,
+  mitigationLow: null,
   mitigationCost: null,
+  mitigationHigh: null,
   postProbability: null,
   postCostLow: null,
   postCostMode: null,
   postCostHigh: null,
+  postCostMean: null,
+  postCostSd: null,
   postDelayLow: null,
   postDelayMode: null,
   postDelayHigh: null,
+  postDelayMean: null,
+  postDelaySd: null,
   ...extra,
 });
 
@@ -333,11 +346,11 @@ describe('planning a rename', () => {
   const state = snapshot({
     activities: [activity(1, 'A1'), activity(2, 'A2', ['A1'])],
     items: [item(10, '1.1', { basis: 'per-day', activityCode: 'A1', distType: 'fixed', mode: 900 })],
-    risks: [risk(30, 'R1', { delayType: 'fixed', delayMode: 4, activityCode: 'A1' })],
+    risks: [risk(30, 'R1', { delayType: 'fixed', delayMode: 4, activityCodes: ['A1'], itemCodes: ['1.1'] })],
     correlations: [correlation(20, 'A1', 'A2'), correlation(21, '1.1', 'R1')],
   });
 
-  it('carries the new code into predecessors and correlations; per-day lines and risks keep their link', () => {
+  it('carries the new code into predecessors, correlations and risks; per-day lines keep their link', () => {
     const plan = planned(
       state,
       'activities',
@@ -355,10 +368,11 @@ describe('planning a rename', () => {
         values: expect.objectContaining({ aCode: 'A0', bCode: 'A2', organizationId: ORG }),
       },
     ]);
-    // Lines and risks link the activity by id: nothing of theirs changes, and the checks see the new code.
+    // Lines link the activity by id: nothing of theirs changes, and the checks see the new code.
     expect(nothingWritten(plan, 'items')).toBe(true);
-    expect(nothingWritten(plan, 'risks')).toBe(true);
-    expect(plan.cascaded).toEqual(['correlations']);
+    // Risks name their activities by code: the rename is written into them.
+    expect(plan.writes.risks.updates.map((u) => [u.id, u.values.activityCodes])).toEqual([[30, ['A0']]]);
+    expect(plan.cascaded).toEqual(['risks', 'correlations']);
     expect(plan.reply.map(({ row }) => [row.id, 'code' in row && row.code, row.version])).toEqual([
       [1, 'A0', 2],
       [2, 'A2', 2],
@@ -377,6 +391,19 @@ describe('planning a rename', () => {
     expect(plan.writes.items.updates.map((u) => [u.id, u.values.code, u.values.activityId])).toEqual([
       [10, '1.1a', 1],
     ]);
+    // The risk's cost line follows the rename.
+    expect(plan.writes.risks.updates.map((u) => [u.id, u.values.itemCodes])).toEqual([[30, ['1.1a']]]);
+  });
+
+  it('drops a removed line item from the cost lines of the risks that named it', () => {
+    const plan = planned(state, 'items', { upserts: [], deletes: [{ id: 10, version: 1 }] });
+    expect(plan.writes.risks.updates.map((u) => [u.id, u.values.itemCodes])).toEqual([[30, []]]);
+  });
+
+  it('refuses to remove an activity a risk delays, naming the risk', () => {
+    const r = refusal(state, 'activities', { upserts: [], deletes: [{ id: 1, version: 1 }] });
+    expect(r.reason).toBe('invalid');
+    expect(JSON.stringify(r)).toContain('risk R1');
   });
 });
 

@@ -59,10 +59,15 @@ describe('risk, activity and correlation rows', () => {
       delayMode: 2,
       delayHigh: 5,
     };
-    expect(rowIssues('risks', delay).activityCode).toContain('activity it lengthens');
-    expect(rowIssues('risks', { ...delay, activityCode: 'A1' })).toEqual({});
-    expect(rowIssues('risks', { ...delay, activityCode: 'A1', probability: 1.5 }).probability).toContain(
+    expect(rowIssues('risks', delay).activityCodes).toContain('activities it lengthens');
+    expect(rowIssues('risks', { ...delay, activityCodes: ['A1'] })).toEqual({});
+    expect(rowIssues('risks', { ...delay, activityCodes: ['A1'], probability: 1.5 }).probability).toContain(
       'above 100%',
+    );
+    // A typed list of codes reads as the list; a code twice is named.
+    expect(rowIssues('risks', { ...delay, activityCodes: 'A1, A2' })).toEqual({});
+    expect(rowIssues('risks', { ...delay, activityCodes: ['A1', 'A1'] }).activityCodes).toContain(
+      'A1 is listed twice',
     );
   });
   it('refuses negative durations and self-links', () => {
@@ -148,5 +153,80 @@ describe('figures shown as you type', () => {
         new Map([['A2', 60]]),
       ),
     ).toBe(90000);
+  });
+});
+
+describe('version 2 risk and line cells', () => {
+  const base = { code: 'R1', title: 'Ground', probability: 0.3 };
+
+  it('takes a normal cost and a lognormal delay by mean and SD', () => {
+    const row = {
+      ...base,
+      costType: 'normal',
+      costMean: 40_000,
+      costSd: 8_000,
+      delayType: 'lognormal',
+      delayMean: 10,
+      delaySd: 4,
+      activityCodes: ['A1', 'A2'],
+    };
+    expect(rowIssues('risks', row)).toEqual({});
+    // A normal needs its SD, on the SD cell (the engine's own message).
+    expect(rowIssues('risks', { ...row, costSd: null }).costSd).toContain('standard deviation');
+    // A lognormal given both ways is ambiguous.
+    expect(rowIssues('risks', { ...row, delayLow: 5, delayHigh: 20 }).delayMean).toContain('not both');
+  });
+
+  it('accepts negative costs and delays as an opportunity, not an error', () => {
+    const opportunity = {
+      ...base,
+      costType: 'triangular',
+      costLow: -90_000,
+      costMode: -60_000,
+      costHigh: -20_000,
+      delayType: 'uniform',
+      delayLow: -8,
+      delayHigh: -2,
+      activityCodes: ['A3'],
+    };
+    expect(rowIssues('risks', opportunity)).toEqual({});
+  });
+
+  it('reads a mitigation cost as one amount or a range, never below zero', () => {
+    expect(rowIssues('risks', { ...base, costType: 'fixed', costMode: 10, mitigationCost: 500 })).toEqual({});
+    const range = {
+      ...base,
+      costType: 'fixed',
+      costMode: 10,
+      mitigationType: 'triangular',
+      mitigationLow: 400,
+      mitigationCost: 500,
+      mitigationHigh: 900,
+    };
+    expect(rowIssues('risks', range)).toEqual({});
+    expect(rowIssues('risks', { ...range, mitigationHigh: null }).mitigationHigh).toBeDefined();
+    expect(rowIssues('risks', { ...range, mitigationLow: -5 }).mitigationLow).toContain('cannot be negative');
+    expect(
+      rowIssues('risks', { ...range, mitigationType: null, mitigationCost: null }).mitigationType,
+    ).toContain('fixed or a range');
+  });
+
+  it('checks post-mitigation mean and SD with the type before the response', () => {
+    const row = { ...base, costType: 'normal', costMean: 100, costSd: 20, postCostMean: 60, postCostSd: 10 };
+    expect(rowIssues('risks', row)).toEqual({});
+    expect(rowIssues('risks', { ...row, postCostSd: -1 }).postCostSd).toBeDefined();
+  });
+
+  it('takes a per-project-day line without an activity', () => {
+    const line = {
+      code: '9.1',
+      description: 'Site overheads',
+      basis: 'per-project-day',
+      distType: 'fixed',
+      mode: 800,
+    };
+    expect(rowIssues('items', line)).toEqual({});
+    expect(rowIssues('items', { ...line, activityCode: 'A1' }).activityCode).toContain('whole project');
+    expect(rowIssues('items', { ...line, distType: null, base: 5 }).distType).toContain('rate per day');
   });
 });

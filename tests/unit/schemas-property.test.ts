@@ -71,7 +71,7 @@ const rowOf: Record<RegisterKind, fc.Arbitrary<Record<string, unknown>>> = {
     delayLow: anyValue,
     delayMode: anyValue,
     delayHigh: anyValue,
-    activityCode: fc.constantFrom('A1', null),
+    activityCodes: fc.constantFrom(['A1'], [], null),
     mitigationCost: anyValue,
   }),
   activities: fc.record({

@@ -59,11 +59,13 @@ export function crossCheck(
       }
     }
   }
-  if (touched.has('risks') || touched.has('activities')) {
+  if (touched.has('risks') || touched.has('activities') || touched.has('items')) {
+    const itemCodes = new Set(next.items.map((i) => i.code));
     for (const row of next.risks) {
-      if (row.activityCode && !activityCodes.has(row.activityCode)) {
-        add('risks', row, 'activityCode', `unknown activity "${row.activityCode}".`);
-      }
+      const unknownActivity = row.activityCodes.find((c) => !activityCodes.has(c));
+      if (unknownActivity) add('risks', row, 'activityCodes', `unknown activity "${unknownActivity}".`);
+      const unknownItem = row.itemCodes.find((c) => !itemCodes.has(c));
+      if (unknownItem) add('risks', row, 'itemCodes', `unknown line item "${unknownItem}".`);
     }
   }
   if (touched.has('drivers') || touched.has('items') || touched.has('activities')) {

@@ -1,8 +1,9 @@
 import 'server-only';
 // Codes that a batch renames or removes are carried into the rows that name them: activity
-// predecessors, correlation inputs, and (for the checks only) the activity codes shown on line
-// items and risks, which are stored as links by id. An activity still used by a line item or a
-// risk cannot be removed.
+// predecessors, correlation inputs, a risk's activities and cost lines (stored by code), and (for
+// the checks only) the activity codes shown on line items, which are stored as links by id. An
+// activity still used by a line item or a risk cannot be removed; a removed line item leaves the
+// cost lines of the risks that named it.
 
 import type { FieldIssue } from '@/lib/errors';
 import type { RegisterKind } from '@/lib/validation/registers';
@@ -29,7 +30,14 @@ export function carryCodes(kind: RegisterKind, next: NextState, changes: CodeCha
       i.activityCode && renamed.has(i.activityCode) ? { ...i, activityCode: code(i.activityCode) } : i,
     );
     risks = risks.map((r) =>
-      r.activityCode && renamed.has(r.activityCode) ? { ...r, activityCode: code(r.activityCode) } : r,
+      r.activityCodes.some((c) => renamed.has(c)) ? { ...r, activityCodes: r.activityCodes.map(code) } : r,
+    );
+  }
+  if (kind === 'items') {
+    risks = risks.map((r) =>
+      r.itemCodes.some((c) => renamed.has(c) || removed.has(c))
+        ? { ...r, itemCodes: r.itemCodes.filter((c) => !removed.has(c)).map(code) }
+        : r,
     );
   }
   const correlations = next.correlations
@@ -62,7 +70,7 @@ export function activityInUse(
   for (const code of removed) {
     const users = [
       ...state.items.filter((i) => i.activityCode === code).map((i) => `line ${i.code}`),
-      ...state.risks.filter((r) => r.activityCode === code).map((r) => `risk ${r.code}`),
+      ...state.risks.filter((r) => r.activityCodes.includes(code)).map((r) => `risk ${r.code}`),
     ];
     if (users.length) {
       issues.push({

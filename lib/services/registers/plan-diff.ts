@@ -34,7 +34,7 @@ const scopeOf = (s: RegisterSnapshot) => ({ projectId: s.projectId, organization
 
 const VALUES: ValuesOf = {
   items: (r, s) => ({ ...itemAttributes(r, s.activityIdByCode), sortOrder: r.sortOrder, ...scopeOf(s) }),
-  risks: (r, s) => ({ ...riskAttributes(r, s.activityIdByCode), sortOrder: r.sortOrder, ...scopeOf(s) }),
+  risks: (r, s) => ({ ...riskAttributes(r), sortOrder: r.sortOrder, ...scopeOf(s) }),
   activities: (r, s) => ({ ...activityAttributes(r), sortOrder: r.sortOrder, ...scopeOf(s) }),
   correlations: (r, s) => ({ ...correlationAttributes(r), ...scopeOf(s) }),
   drivers: (r, s) => ({ ...driverAttributes(r), sortOrder: r.sortOrder, ...scopeOf(s) }),
@@ -78,10 +78,14 @@ export function planWrites(
     created: 0,
     updated: 0,
   };
-  // Line items and risks link activities by id: a renamed activity changes none of their columns.
-  const written: RegisterKind[] = kind === 'correlations' ? [kind] : [kind, 'correlations'];
-  // Drivers name line items and activities by code: renames and removals reach them too.
-  if (kind === 'items' || kind === 'activities') written.push('drivers');
+  // Line items link activities by id: a renamed activity changes none of their columns. Risks and
+  // drivers name their activities and cost lines by code, so a rename or removal there rewrites them.
+  const written: RegisterKind[] =
+    kind === 'correlations'
+      ? [kind]
+      : kind === 'activities' || kind === 'items'
+        ? [kind, 'risks', 'correlations', 'drivers']
+        : [kind, 'correlations'];
   for (const k of written) {
     const diff = diffRegister(k, state, next, writes, options, k === kind ? batchIndex : new Map());
     plan.audit.push(...diff.audit);

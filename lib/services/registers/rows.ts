@@ -1,12 +1,19 @@
 import 'server-only';
 // Records of the register tables ↔ the flat rows the grids, files and API speak.
-// Distributions are stored as the engine's DistSpec JSON; rows carry them as cells.
+// Distributions are stored as the engine's DistSpec JSON; rows carry them as cells. A risk names
+// its activities and cost lines by code, as an activity names its predecessors.
 
 import type { Activity, Correlation, CostItem, RiskDriver, RiskEvent } from '@/models';
 import { partsFromSpec, specFromParts, type DistParts } from '@/lib/registers/dist-fields';
 import type { DistSpec } from '@/lib/sim';
 import {
+  anyPostCell,
+  IMPACT_CELLS,
   impactParts,
+  mitigationParts,
+  type ImpactPrefix,
+} from '@/lib/registers/risk-fields';
+import {
   type ActivityData,
   type CorrelationData,
   type DriverData,
@@ -57,22 +64,25 @@ export function specOf(parts: DistParts): DistSpec {
   return r.spec;
 }
 
+/** The basis a line item is read as: a lump sum, or a rate per day of an activity or of the project. */
+function basisOf(r: CostItem, perDay: boolean): LineItemData['basis'] {
+  if (!perDay) return 'lump-sum';
+  return r.span === 'project' ? 'per-project-day' : 'per-day';
+}
+
 export function itemRow(r: CostItem, activityCode: Map<number, string>): LineItemRow {
   const rate = json<DistSpec | number | null>(r.ratePerDay);
   const perDay = rate !== null && rate !== undefined;
-  const spec: DistSpec | null = perDay
-    ? typeof rate === 'number'
-      ? { type: 'fixed', value: rate }
-      : rate
-    : json<DistSpec | null>(r.dist);
+  const spec: DistSpec | null = perDay ? numberOrSpec(rate) : json<DistSpec | null>(r.dist);
+  const basis = basisOf(r, perDay);
   return {
     id: r.id,
     version: r.version,
     sortOrder: r.sortOrder,
     code: r.code,
     description: r.description,
-    basis: perDay ? 'per-day' : 'lump-sum',
-    activityCode: perDay && r.activityId ? (activityCode.get(r.activityId) ?? null) : null,
+    basis,
+    activityCode: basis === 'per-day' && r.activityId ? (activityCode.get(r.activityId) ?? null) : null,
     ...cells(spec),
     base: r.base ?? null,
     ownerName: r.ownerName ?? null,
@@ -82,28 +92,53 @@ export function itemRow(r: CostItem, activityCode: Map<number, string>): LineIte
 
 export function itemAttributes(d: LineItemData, activityId: ReadonlyMap<string, number>) {
   const spec = d.distType ? specOf({ ...d, type: d.distType }) : null;
-  const perDay = d.basis === 'per-day';
+  const perDay = d.basis !== 'lump-sum';
   return {
     code: d.code,
     description: d.description,
     base: d.base,
     dist: perDay ? null : spec,
     ratePerDay: perDay && spec ? (spec.type === 'fixed' ? spec.value : spec) : null,
-    activityId: perDay && d.activityCode ? (activityId.get(d.activityCode) ?? null) : null,
+    activityId: d.basis === 'per-day' && d.activityCode ? (activityId.get(d.activityCode) ?? null) : null,
+    span: d.basis === 'per-project-day' ? ('project' as const) : null,
     ownerName: d.ownerName,
     notes: d.notes,
   };
 }
 
-function impactCells(spec: DistSpec | null, prefix: 'cost' | 'delay' | 'postCost' | 'postDelay') {
+/** A stored number-or-distribution (a rate, a response's cost) as a distribution. */
+const numberOrSpec = (v: DistSpec | number): DistSpec =>
+  typeof v === 'number' ? { type: 'fixed', value: v } : v;
+
+function impactCells(spec: DistSpec | null, prefix: ImpactPrefix) {
   const p = spec ? partsFromSpec(spec) : null;
-  const out: Record<string, unknown> = {
-    [`${prefix}Low`]: p?.low ?? null,
-    [`${prefix}Mode`]: p?.mode ?? null,
-    [`${prefix}High`]: p?.high ?? null,
-  };
-  if (!prefix.startsWith('post')) out[`${prefix}Type`] = p?.type ?? null;
+  const out: Record<string, unknown> = {};
+  for (const cell of IMPACT_CELLS) {
+    const part = cell === 'Mode' ? 'mode' : (cell.toLowerCase() as 'low' | 'high' | 'mean' | 'sd');
+    out[`${prefix}${cell}`] = p?.[part] ?? null;
+  }
+  if (prefix === 'cost' || prefix === 'delay') out[`${prefix}Type`] = p?.type ?? null;
   return out;
+}
+
+function mitigationCells(stored: DistSpec | number | null) {
+  if (stored === null || stored === undefined)
+    return { mitigationType: null, mitigationLow: null, mitigationCost: null, mitigationHigh: null };
+  const p = partsFromSpec(numberOrSpec(stored));
+  return {
+    mitigationType: p.type,
+    mitigationLow: p.low ?? null,
+    mitigationCost: p.mode ?? null,
+    mitigationHigh: p.high ?? null,
+  };
+}
+
+/** The activities a risk delays: its codes, or the single link of a row written before them. */
+export function riskActivityCodes(r: RiskEvent, activityCode: ReadonlyMap<number, string>): string[] {
+  const codes = json<string[] | null>(r.activityCodes);
+  if (codes) return codes;
+  const single = r.activityId ? activityCode.get(r.activityId) : undefined;
+  return single ? [single] : [];
 }
 
 export function riskRow(r: RiskEvent, activityCode: Map<number, string>): RiskRow {
@@ -122,23 +157,25 @@ export function riskRow(r: RiskEvent, activityCode: Map<number, string>): RiskRo
     probability: r.probability,
     ...impactCells(json(r.costImpact), 'cost'),
     ...impactCells(json(r.delayImpact), 'delay'),
-    activityCode: r.activityId ? (activityCode.get(r.activityId) ?? null) : null,
-    mitigationCost: r.mitigationCost ?? null,
+    activityCodes: riskActivityCodes(r, activityCode),
+    itemCodes: json<string[] | null>(r.itemCodes) ?? [],
+    sizes: r.sizes ?? 'linked',
+    ...mitigationCells(json(r.mitigationCost)),
     postProbability: r.postProbability ?? null,
     ...impactCells(json(r.postCostImpact), 'postCost'),
     ...impactCells(json(r.postDelayImpact), 'postDelay'),
   } as RiskRow;
 }
 
-const anySet = (d: RiskData, prefix: string) =>
-  ['Low', 'Mode', 'High'].some((k) => (d as Record<string, unknown>)[`${prefix}${k}`] !== null);
-
-export function riskAttributes(d: RiskData, activityId: ReadonlyMap<string, number>) {
-  const spec = (prefix: 'cost' | 'delay' | 'postCost' | 'postDelay') => {
+export function riskAttributes(d: RiskData) {
+  const spec = (prefix: ImpactPrefix) => {
     const parts = impactParts(d, prefix);
-    if (!parts || (prefix.startsWith('post') && !anySet(d, prefix))) return null;
+    const post = prefix === 'postCost' || prefix === 'postDelay';
+    if (!parts || (post && !anyPostCell(d, prefix))) return null;
     return specOf(parts);
   };
+  const mitigation = mitigationParts(d);
+  const mitigationSpec = mitigation ? specOf(mitigation) : null;
   return {
     code: d.code,
     title: d.title,
@@ -151,11 +188,16 @@ export function riskAttributes(d: RiskData, activityId: ReadonlyMap<string, numb
     probability: d.probability,
     costImpact: spec('cost'),
     delayImpact: spec('delay'),
-    activityId: d.activityCode ? (activityId.get(d.activityCode) ?? null) : null,
+    // Links by code (carried on rename by the register save); the single id link is retired.
+    activityId: null,
+    activityCodes: d.activityCodes,
+    itemCodes: d.itemCodes,
+    sizes: d.sizes,
     postProbability: d.postProbability,
     postCostImpact: spec('postCost'),
     postDelayImpact: spec('postDelay'),
-    mitigationCost: d.mitigationCost,
+    // A fixed amount is stored as a number, as before ranges were possible.
+    mitigationCost: mitigationSpec?.type === 'fixed' ? mitigationSpec.value : mitigationSpec,
   };
 }
 

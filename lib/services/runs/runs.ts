@@ -39,6 +39,7 @@ const LIST_ATTRIBUTES = [
   'inputHash',
   'summary',
   'engineVersion',
+  'modelNotices',
   'blockSize',
   'startedAt',
   'finishedAt',
@@ -109,7 +110,9 @@ function snapshotOf(model: Model, settings: RunSettings): Model {
   return {
     ...model,
     ...(Object.keys(targets).length ? { targets } : {}),
+    // The model's own settings (the headline mitigation scenario) stay; the run's override the rest.
     settings: {
+      ...model.settings,
       iterations: settings.iterations,
       seed: settings.seed,
       sampling: settings.sampling,
@@ -149,6 +152,7 @@ export async function startRun(
         settings,
         inputSnapshot: JSON.stringify(snapshot),
         inputHash: snapshotHash(snapshot),
+        modelNotices: notices,
       },
       { transaction },
     );

@@ -34,7 +34,14 @@ export function toRunView(run: Row, queuePosition: number | null = null, now = D
     msLeft,
     summary: run.summary ?? null,
     engine: engineOf(run),
+    modelNotices: jsonList(run.modelNotices),
   };
+}
+
+/** MariaDB may hand a JSON column back as text. */
+function jsonList(value: unknown): string[] {
+  const list = typeof value === 'string' ? JSON.parse(value) : value;
+  return Array.isArray(list) ? list.map(String) : [];
 }
 
 function engineOf(run: Row): RunView['engine'] {

@@ -9,7 +9,7 @@ import { planCorrelations, type CorrelationGroup } from './correlation/plan';
 import { createDistribution, type Distribution } from './distributions';
 import { baseDurationOf, baseOf } from './distributions/base';
 import { createFixed } from './distributions/fixed';
-import { allocateForwardPass, forwardPass } from './schedule/forward-pass';
+import { finishOf } from './schedule/base-finish';
 import { buildNetwork, type Network } from './schedule/network';
 import { streamIdsFor } from './random/stream-ids';
 import type { DistSpec, InputKind, Model } from './formats';
@@ -178,18 +178,7 @@ export function compileModel(model: Model): Plan {
   const baseDurations = new Float64Array(activities.map((a) => baseDurationOf(a.dist)));
   const network = activitiesIn.length ? buildNetwork(activitiesIn) : null;
   let durationBase: number | null = null;
-  if (network) {
-    const total = new Float64Array(1);
-    forwardPass(
-      network,
-      baseDurations,
-      1,
-      allocateForwardPass(network.size, 1),
-      total,
-      new Int32Array(network.size),
-    );
-    durationBase = total[0];
-  }
+  if (network) durationBase = finishOf(network, baseDurations);
 
   const costItems: CostItemPlan[] = [];
   const rateItems: RateItemPlan[] = [];

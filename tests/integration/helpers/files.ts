@@ -1,13 +1,12 @@
-// Uploading and downloading register files with a signed-in client's session (the JSON client
-// sends no multipart bodies and reads every reply as text).
+// Files through the app with a signed-in client's session: a multipart upload (the JSON client
+// cannot send files) and a download of the raw bytes.
 import { APP_URL, type Client } from './http';
 
-const cookieOf = (client: Client) => {
-  const cookies = (client as unknown as { cookies: Map<string, string> }).cookies;
-  return [...cookies].map(([k, v]) => `${k}=${v}`).join('; ');
-};
+const cookieOf = (client: Client) =>
+  [...((client as unknown as { cookies: Map<string, string> }).cookies ?? new Map())]
+    .map(([k, v]) => `${k}=${v}`)
+    .join('; ');
 
-/** A multipart upload of one file and some fields. */
 export async function upload(
   client: Client,
   path: string,
@@ -32,7 +31,6 @@ export async function upload(
   return { status: res.status, json, text };
 }
 
-/** A download as bytes, with its headers. */
 export async function download(client: Client, path: string) {
   const res = await fetch(APP_URL + path, { headers: { cookie: cookieOf(client) } });
   return { status: res.status, bytes: new Uint8Array(await res.arrayBuffer()), headers: res.headers };

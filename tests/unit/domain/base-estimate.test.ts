@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { baseDuration, baseEstimate, baseOf, itemBase } from '@/lib/domain/base-estimate';
-import { activityBaseDurations, lineBase } from '@/lib/registers/base-estimate';
+import { activityBaseDurations, lineBase, projectBaseDuration } from '@/lib/registers/base-estimate';
 import { createDistribution, simulateSync, type Model } from '@/lib/sim';
 
 describe('the base of a distribution', () => {
@@ -84,5 +84,50 @@ describe('the base estimate', () => {
     expect(lineBase({ ...perDay, activityCode: 'A1' }, durations)).toBe(150);
     expect(lineBase({ ...perDay, activityCode: 'A9' }, durations)).toBeNull();
     expect(lineBase({ ...perDay, base: 42, activityCode: 'A2' }, durations)).toBe(42);
+  });
+});
+
+describe('a line paid per project day', () => {
+  // A1 (mode 30) then A2 (20, after a lag of 5), A3 (uniform 40–60, midpoint 50) in parallel:
+  // the network's finish at base durations is max(30 + 5 + 20, 50) = 55 days (forward pass,
+  // arithmetic of the rule in the header).
+  const activities = [
+    { id: 'A1', duration: { type: 'triangular' as const, low: 20, mode: 30, high: 50 } },
+    { id: 'A2', duration: { type: 'fixed' as const, value: 20 }, predecessors: [{ id: 'A1', lag: 5 }] },
+    { id: 'A3', duration: { type: 'uniform' as const, low: 40, high: 60 } },
+  ];
+
+  it('costs its rate’s base × the project’s base duration', () => {
+    const model: Model = {
+      format: 'outturn-model',
+      version: 2,
+      items: [
+        { id: 'C9', ratePerDay: { type: 'triangular', low: 700, mode: 800, high: 1000 }, span: 'project' },
+      ],
+      activities,
+    };
+    // 800 (mode) × 55 days = 44,000.
+    expect(baseEstimate(model)).toBe(44_000);
+    // The engine's own base agrees (plumbing: the same rule on both sides).
+    expect(simulateSync(model, { iterations: 200, seed: 3 }).cost.base).toBe(44_000);
+  });
+
+  it('gives the grid rows the same base from the schedule rows', () => {
+    const rows = [
+      { code: 'A1', distType: 'triangular' as const, low: 20, mode: 30, high: 50, predecessors: [] },
+      { code: 'A2', distType: 'fixed' as const, mode: 20, predecessors: [{ code: 'A1', lag: 5 }] },
+      { code: 'A3', distType: 'uniform' as const, low: 40, high: 60, predecessors: [] },
+    ];
+    const line = {
+      basis: 'per-project-day' as const,
+      distType: 'fixed' as const,
+      mode: 800,
+      base: null,
+      activityCode: null,
+    };
+    expect(projectBaseDuration(rows)).toBe(55);
+    expect(lineBase(line, activityBaseDurations(rows), projectBaseDuration(rows))).toBe(44_000);
+    // Without a schedule there is no project duration: the line is incomplete, not 0.
+    expect(lineBase(line, new Map(), projectBaseDuration([]))).toBeNull();
   });
 });

@@ -15,7 +15,7 @@ function risk(code: string, over: Partial<RiskRecord> = {}): RiskRecord {
     postProbability: null,
     postCostImpact: null,
     postDelayImpact: null,
-    activityCode: null,
+    activityCodes: [],
     ...over,
   };
 }
@@ -36,7 +36,7 @@ const records: RegisterRecords = {
   risks: [
     risk('R1', { postProbability: 0.1, postCostImpact: tri(5, 10, 20) }),
     risk('R2', { status: 'closed' }),
-    risk('R3', { delayImpact: tri(2, 5, 10), activityCode: 'A1' }),
+    risk('R3', { delayImpact: tri(2, 5, 10), activityCodes: ['A1'] }),
   ],
   activities: [
     { code: 'A1', name: 'Build', duration: tri(20, 30, 50), predecessors: [] },
@@ -60,7 +60,10 @@ describe('registers → model file', () => {
       { id: 'A1', name: 'Build', duration: tri(20, 30, 50), predecessors: [] },
       { id: 'A2', name: 'Fit out', duration: tri(5, 8, 12), predecessors: [{ id: 'A1', lag: 2 }] },
     ]);
-    expect(model.risks?.find((r) => r.id === 'R3')).toMatchObject({ delay: tri(2, 5, 10), activity: 'A1' });
+    expect(model.risks?.find((r) => r.id === 'R3')).toMatchObject({
+      delay: tri(2, 5, 10),
+      activities: ['A1'],
+    });
   });
 
   it('leaves out a closed risk and every correlation that names it, with a notice', () => {
@@ -70,7 +73,10 @@ describe('registers → model file', () => {
       { a: 'C1', b: 'R1', rho: 0.4 },
       { a: 'A1', b: 'A2', rho: 0.3 },
     ]);
-    expect(notices).toEqual(['The correlation R2–C1 (ρ 0.6) is left out of the model: risk R2 is closed.']);
+    expect(notices).toEqual([
+      'Risk R2 (Risk R2) is closed: it is left out of the model.',
+      'The correlation R2–C1 (ρ 0.6) is left out of the model: risk R2 is closed.',
+    ]);
     // The engine accepts the result: no correlation names an input it does not hold.
     expect(validateModel(model).ok).toBe(true);
   });
@@ -89,13 +95,85 @@ describe('registers → model file', () => {
       correlations: [{ aCode: 'C1', bCode: 'X9', rho: 0.2 }],
     });
     expect(model.correlations).toEqual([]);
-    expect(notices[0]).toContain('no line item, risk, activity or driver has the code X9');
+    expect(notices.at(-1)).toContain('no line item, risk, activity or driver has the code X9');
   });
 
-  it('uses post-mitigation values where given when asked', () => {
-    const { model } = registersToModel(records, { riskValues: 'post' });
-    expect(model.risks?.[0]).toEqual({ id: 'R1', name: 'Risk R1', probability: 0.1, cost: tri(5, 10, 20) });
-    // R3 has no post values: it keeps its own.
-    expect(model.risks?.[1]).toMatchObject({ probability: 0.3, cost: tri(10, 20, 40) });
+  it('carries post-mitigation values as the post block and names the headline scenario', () => {
+    const pre = registersToModel(records).model;
+    expect(pre.risks?.[0]).toEqual({
+      id: 'R1',
+      name: 'Risk R1',
+      probability: 0.3,
+      cost: tri(10, 20, 40),
+      post: { probability: 0.1, cost: tri(5, 10, 20) },
+    });
+    // R3 has no post values and no response cost: no post block, its values stand for both.
+    expect(pre.risks?.[1]).not.toHaveProperty('post');
+    expect(pre.settings).toEqual({ mitigation: 'pre' });
+    expect(registersToModel(records, { riskValues: 'post' }).model.settings).toEqual({ mitigation: 'post' });
+    expect(validateModel(pre).ok).toBe(true);
+  });
+});
+
+describe('registers → model file, version 2 fields', () => {
+  const v2: RegisterRecords = {
+    ...records,
+    items: [
+      ...records.items,
+      {
+        code: 'C3',
+        description: 'Site overheads',
+        base: null,
+        dist: null,
+        ratePerDay: 120,
+        activityCode: null,
+        span: 'project',
+      },
+    ],
+    risks: [
+      risk('R4', {
+        costImpact: { type: 'normal', mean: -50, sd: 10 },
+        delayImpact: { type: 'lognormal', mean: 6, sd: 2 },
+        activityCodes: ['A1', 'A2'],
+        itemCodes: ['C1', 'C2'],
+        sizes: 'independent',
+        mitigationCost: { type: 'uniform', low: 5, high: 9 },
+      }),
+      risk('R5', { status: 'occurred', probability: 0.4, postProbability: 0.2, mitigationCost: 12 }),
+    ],
+    correlations: [],
+  };
+
+  it('writes several activities, cost lines, sizes, a response cost and a per-project-day line', () => {
+    const { model } = registersToModel(v2);
+    expect(model.version).toBe(2);
+    expect(model.items[2]).toEqual({ id: 'C3', name: 'Site overheads', ratePerDay: 120, span: 'project' });
+    expect(model.risks?.[0]).toEqual({
+      id: 'R4',
+      name: 'Risk R4',
+      probability: 0.3,
+      cost: { type: 'normal', mean: -50, sd: 10 },
+      delay: { type: 'lognormal', mean: 6, sd: 2 },
+      activities: ['A1', 'A2'],
+      items: ['C1', 'C2'],
+      sizes: 'independent',
+      // A response cost alone still needs the post scenario, where the engine counts it.
+      post: {},
+      mitigationCost: { type: 'uniform', low: 5, high: 9 },
+    });
+    expect(validateModel(model).ok).toBe(true);
+  });
+
+  it('counts an occurred risk as certain before and after its response, with a notice', () => {
+    const { model, notices } = registersToModel(v2);
+    expect(model.risks?.[1]).toMatchObject({
+      id: 'R5',
+      probability: 1,
+      post: { probability: 1 },
+      mitigationCost: 12,
+    });
+    expect(notices).toEqual([
+      'Risk R5 (Risk R5) has occurred: it counts as certain (probability 100%) until it is moved into the base estimate.',
+    ]);
   });
 });

@@ -6,6 +6,7 @@ import { buttonClass } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { OutcomeView } from '@/components/runs/outcome-view';
 import { RunProgress } from '@/components/runs/run-progress';
+import { ModelNotices } from '@/components/runs/model-notices';
 import { RunStatusBadge } from '@/components/runs/run-status';
 import { settingsText } from '@/components/runs/settings-text';
 import { loadRunPage, type RunParams } from './run-page';
@@ -65,6 +66,7 @@ export default async function RunPage({ params }: { params: RunParams }) {
           {run.engine.notice} The figures below are the ones stored when the run finished.
         </Notice>
       ) : null}
+      <ModelNotices notices={run.modelNotices} title="The status rules changed this run's model" />
       {outcome ? (
         <OutcomeView
           project={project}
