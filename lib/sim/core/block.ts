@@ -128,6 +128,8 @@ interface Workspace {
   gradeRowOfVariable: Int32Array;
   /** Each allocation slot's cost per iteration (slot s at s·stride), made when first needed. */
   inputCost: Float64Array | null;
+  /** Activities that some risk's delay acts on (the others need no second cut at zero). */
+  delayed: Int32Array;
 }
 
 const workspaces = new WeakMap<Plan, Workspace>();
@@ -158,6 +160,8 @@ function workspaceFor(plan: Plan, n: number): Workspace {
   const gradeRowOfVariable = new Int32Array(plan.variables).fill(-1);
   plan.sensitivity.forEach((s, row) => (gradeRowOfVariable[s.v] = row));
   const column = () => new Float64Array(stride);
+  const delayed = new Set<number>();
+  for (const r of plan.risks) if (r.pre.delay || r.post?.delay) for (const a of r.activities) delayed.add(a);
   const ws: Workspace = {
     stride,
     groupedColumn,
@@ -182,6 +186,7 @@ function workspaceFor(plan: Plan, n: number): Workspace {
     schedule: acts ? allocateForwardPass(acts, stride) : null,
     gradeRowOfVariable,
     inputCost: null,
+    delayed: Int32Array.from([...delayed].sort((a, b) => a - b)),
   };
   workspaces.set(plan, ws);
   return ws;
@@ -293,16 +298,32 @@ function storeGrades(
   row: number,
   n: number,
 ) {
-  // Integer sums (exact in double precision for any block size used here), scaled once.
+  // Integer sums (exact in double precision for any block size used here), scaled once; the sum
+  // of squares in two halves, so that consecutive additions do not wait on each other (exact
+  // integers, so the split does not change the sum).
   let s1 = 0;
-  let s2 = 0;
-  for (let i = 0; i < n; i++) {
+  let s2a = 0;
+  let s2b = 0;
+  let i = 0;
+  for (; i + 1 < n; i += 2) {
+    const x = g[i] * 65536;
+    const k = x >= 65535 ? 65535 : x | 0;
+    const y = g[i + 1] * 65536;
+    const m = y >= 65535 ? 65535 : y | 0;
+    grades[off + i] = k;
+    grades[off + i + 1] = m;
+    s1 += k + m;
+    s2a += k * k;
+    s2b += m * m;
+  }
+  if (i < n) {
     const x = g[i] * 65536;
     const k = x >= 65535 ? 65535 : x | 0;
     grades[off + i] = k;
     s1 += k;
-    s2 += k * k;
+    s2a += k * k;
   }
+  const s2 = s2a + s2b;
   // Σ(k + ½) = Σk + n/2 and Σ(k + ½)² = Σk² + Σk + n/4.
   sums[2 * row] = (s1 + n / 2) * GRADE_UNIT;
   sums[2 * row + 1] = (s2 + s1 + n / 4) * GRADE_UNIT * GRADE_UNIT;
@@ -359,17 +380,31 @@ function swingInto(
   let nh = 0;
   let ch = 0;
   let dh = 0;
-  const hasDuration = duration.length > 0;
-  for (let i = 0; i < n; i++) {
-    const k = grades[off + i];
-    if (k <= SWING_LOW_MAX) {
-      nl++;
-      cl += cost[i];
-      if (hasDuration) dl += duration[i];
-    } else if (k >= SWING_HIGH_MIN) {
-      nh++;
-      ch += cost[i];
-      if (hasDuration) dh += duration[i];
+  // Without branches (which grade band an iteration falls in is a coin toss): 1 or 0 per band,
+  // and the sums add the total times it; adding 0 leaves a sum unchanged to the bit.
+  if (duration.length > 0) {
+    for (let i = 0; i < n; i++) {
+      const k = grades[off + i];
+      const low = (k - SWING_LOW_MAX - 1) >>> 31;
+      const high = (SWING_HIGH_MIN - 1 - k) >>> 31;
+      const c = cost[i];
+      const d = duration[i];
+      nl += low;
+      cl += low * c;
+      dl += low * d;
+      nh += high;
+      ch += high * c;
+      dh += high * d;
+    }
+  } else {
+    for (let i = 0; i < n; i++) {
+      const k = grades[off + i];
+      const low = (k - SWING_LOW_MAX - 1) >>> 31;
+      const high = (SWING_HIGH_MIN - 1 - k) >>> 31;
+      nl += low;
+      cl += low * cost[i];
+      nh += high;
+      ch += high * cost[i];
     }
   }
   out[at] = nl;
@@ -544,9 +579,10 @@ export function simulateBlock(
       }
     }
   }
-  // Opportunities shorten activities, never below zero days.
+  // Opportunities shorten activities, never below zero days (an activity no delay acts on is
+  // as cut at step 3).
   if (plan.version !== 1) {
-    for (let a = 0; a < acts; a++) {
+    for (const a of ws.delayed) {
       clampAtZero(ws.durationColumn[a], n);
       if (hasPost) clampAtZero(ws.postDurationColumn[a], n);
     }
