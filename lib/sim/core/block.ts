@@ -31,7 +31,7 @@ import { Sfc32, streamFor } from './random/sfc32';
 import type { RiskImpact } from './compile';
 import { allocateForwardPass, type ForwardPassBuffers, forwardPass } from './schedule/forward-pass';
 import type { Sampling } from './formats';
-import { type AllocationBand, bandOf } from './stats/allocation-band';
+import { type AllocationBand, type BandRoom, bandOf } from './stats/allocation-band';
 
 /** Iterations per block; fixed, so that the split does not depend on the thread count. */
 export const BLOCK_SIZE = 2000;
@@ -53,8 +53,8 @@ export interface BlockSink {
   altDuration?: Float64Array;
   /** Tornado grades: input s, iteration i at s·n + i, as ⌊grade·2¹⁶⌋. */
   grades: Uint16Array;
-  /** When set, the P-level (0–1) around which the block keeps its allocation band. */
-  band?: number;
+  /** When set, the P-level (0–1) around which the block keeps its allocation band, and where. */
+  band?: { level: number; room: BandRoom };
 }
 
 /**
@@ -649,6 +649,8 @@ export function simulateBlock(
     if (c.va >= 0) pairSumsInto(ws.groupedColumn[c.va]!, ws.groupedColumn[c.vb]!, n, pairSums, 5 * k);
   });
 
-  const band = keep ? bandOf(sink.cost, n, sink.band!, keep, ws.stride, slots) : undefined;
+  const band = keep
+    ? bandOf(sink.cost, n, sink.band!.level, keep, ws.stride, slots, sink.band!.room)
+    : undefined;
   return { block, n, critical, gradeSums, pairSums, durationSums, swingSums, ...(band ? { band } : {}) };
 }
