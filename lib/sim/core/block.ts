@@ -329,6 +329,17 @@ function storeGrades(
   sums[2 * row + 1] = (s2 + s1 + n / 4) * GRADE_UNIT * GRADE_UNIT;
 }
 
+/** Whether every activity's duration is the same before and after mitigation over the block. */
+function sameDurations(ws: Workspace, n: number): boolean {
+  // The post columns start as copies of the pre ones; only risk delays make them differ.
+  for (const a of ws.delayed) {
+    const pre = ws.durationColumn[a];
+    const post = ws.postDurationColumn[a];
+    for (let i = 0; i < n; i++) if (pre[i] !== post[i]) return false;
+  }
+  return true;
+}
+
 /** Σa, Σb, Σa², Σb², Σab into out[at…at+4]. */
 function pairSumsInto(a: Float64Array, b: Float64Array, n: number, out: Float64Array, at: number): void {
   let sa = 0;
@@ -593,9 +604,22 @@ export function simulateBlock(
   if (plan.network && ws.schedule) {
     // The other scenario needs its project duration only; the allocation pass neither count.
     const counts = tap ? null : critical;
-    forwardPass(plan.network, ws.durations, n, ws.schedule, ws.preTotal, postHeadline ? null : counts);
-    if (hasPost)
-      forwardPass(plan.network, ws.postDurations, n, ws.schedule, ws.postTotal, postHeadline ? counts : null);
+    if (hasPost && sameDurations(ws, n)) {
+      // No delay differs between the scenarios in this block: one pass serves both.
+      forwardPass(plan.network, ws.durations, n, ws.schedule, ws.preTotal, counts);
+      ws.postTotal.set(ws.preTotal.subarray(0, n));
+    } else {
+      forwardPass(plan.network, ws.durations, n, ws.schedule, ws.preTotal, postHeadline ? null : counts);
+      if (hasPost)
+        forwardPass(
+          plan.network,
+          ws.postDurations,
+          n,
+          ws.schedule,
+          ws.postTotal,
+          postHeadline ? counts : null,
+        );
+    }
   }
 
   // 7. Time-dependent items: an activity's duration, or the project's.
