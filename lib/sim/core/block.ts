@@ -31,7 +31,7 @@ import { Sfc32, streamFor } from './random/sfc32';
 import type { RiskImpact } from './compile';
 import { allocateForwardPass, type ForwardPassBuffers, forwardPass } from './schedule/forward-pass';
 import type { Sampling } from './formats';
-import { type AllocationBand, bandOf } from './stats/allocation-band';
+import { type AllocationBand, type BandRoom, bandOf } from './stats/allocation-band';
 
 /** Iterations per block; fixed, so that the split does not depend on the thread count. */
 export const BLOCK_SIZE = 2000;
@@ -53,8 +53,8 @@ export interface BlockSink {
   altDuration?: Float64Array;
   /** Tornado grades: input s, iteration i at s·n + i, as ⌊grade·2¹⁶⌋. */
   grades: Uint16Array;
-  /** When set, the P-level (0–1) around which the block keeps its allocation band. */
-  band?: number;
+  /** When set, the P-level (0–1) around which the block keeps its allocation band, and where. */
+  band?: { level: number; room: BandRoom };
 }
 
 /**
@@ -128,6 +128,8 @@ interface Workspace {
   gradeRowOfVariable: Int32Array;
   /** Each allocation slot's cost per iteration (slot s at s·stride), made when first needed. */
   inputCost: Float64Array | null;
+  /** Activities that some risk's delay acts on (the others need no second cut at zero). */
+  delayed: Int32Array;
 }
 
 const workspaces = new WeakMap<Plan, Workspace>();
@@ -158,6 +160,8 @@ function workspaceFor(plan: Plan, n: number): Workspace {
   const gradeRowOfVariable = new Int32Array(plan.variables).fill(-1);
   plan.sensitivity.forEach((s, row) => (gradeRowOfVariable[s.v] = row));
   const column = () => new Float64Array(stride);
+  const delayed = new Set<number>();
+  for (const r of plan.risks) if (r.pre.delay || r.post?.delay) for (const a of r.activities) delayed.add(a);
   const ws: Workspace = {
     stride,
     groupedColumn,
@@ -182,6 +186,7 @@ function workspaceFor(plan: Plan, n: number): Workspace {
     schedule: acts ? allocateForwardPass(acts, stride) : null,
     gradeRowOfVariable,
     inputCost: null,
+    delayed: Int32Array.from([...delayed].sort((a, b) => a - b)),
   };
   workspaces.set(plan, ws);
   return ws;
@@ -293,19 +298,46 @@ function storeGrades(
   row: number,
   n: number,
 ) {
-  // Integer sums (exact in double precision for any block size used here), scaled once.
+  // Integer sums (exact in double precision for any block size used here), scaled once; the sum
+  // of squares in two halves, so that consecutive additions do not wait on each other (exact
+  // integers, so the split does not change the sum).
   let s1 = 0;
-  let s2 = 0;
-  for (let i = 0; i < n; i++) {
+  let s2a = 0;
+  let s2b = 0;
+  let i = 0;
+  for (; i + 1 < n; i += 2) {
+    const x = g[i] * 65536;
+    const k = x >= 65535 ? 65535 : x | 0;
+    const y = g[i + 1] * 65536;
+    const m = y >= 65535 ? 65535 : y | 0;
+    grades[off + i] = k;
+    grades[off + i + 1] = m;
+    s1 += k + m;
+    s2a += k * k;
+    s2b += m * m;
+  }
+  if (i < n) {
     const x = g[i] * 65536;
     const k = x >= 65535 ? 65535 : x | 0;
     grades[off + i] = k;
     s1 += k;
-    s2 += k * k;
+    s2a += k * k;
   }
+  const s2 = s2a + s2b;
   // Σ(k + ½) = Σk + n/2 and Σ(k + ½)² = Σk² + Σk + n/4.
   sums[2 * row] = (s1 + n / 2) * GRADE_UNIT;
   sums[2 * row + 1] = (s2 + s1 + n / 4) * GRADE_UNIT * GRADE_UNIT;
+}
+
+/** Whether every activity's duration is the same before and after mitigation over the block. */
+function sameDurations(ws: Workspace, n: number): boolean {
+  // The post columns start as copies of the pre ones; only risk delays make them differ.
+  for (const a of ws.delayed) {
+    const pre = ws.durationColumn[a];
+    const post = ws.postDurationColumn[a];
+    for (let i = 0; i < n; i++) if (pre[i] !== post[i]) return false;
+  }
+  return true;
 }
 
 /** Σa, Σb, Σa², Σb², Σab into out[at…at+4]. */
@@ -359,17 +391,31 @@ function swingInto(
   let nh = 0;
   let ch = 0;
   let dh = 0;
-  const hasDuration = duration.length > 0;
-  for (let i = 0; i < n; i++) {
-    const k = grades[off + i];
-    if (k <= SWING_LOW_MAX) {
-      nl++;
-      cl += cost[i];
-      if (hasDuration) dl += duration[i];
-    } else if (k >= SWING_HIGH_MIN) {
-      nh++;
-      ch += cost[i];
-      if (hasDuration) dh += duration[i];
+  // Without branches (which grade band an iteration falls in is a coin toss): 1 or 0 per band,
+  // and the sums add the total times it; adding 0 leaves a sum unchanged to the bit.
+  if (duration.length > 0) {
+    for (let i = 0; i < n; i++) {
+      const k = grades[off + i];
+      const low = (k - SWING_LOW_MAX - 1) >>> 31;
+      const high = (SWING_HIGH_MIN - 1 - k) >>> 31;
+      const c = cost[i];
+      const d = duration[i];
+      nl += low;
+      cl += low * c;
+      dl += low * d;
+      nh += high;
+      ch += high * c;
+      dh += high * d;
+    }
+  } else {
+    for (let i = 0; i < n; i++) {
+      const k = grades[off + i];
+      const low = (k - SWING_LOW_MAX - 1) >>> 31;
+      const high = (SWING_HIGH_MIN - 1 - k) >>> 31;
+      nl += low;
+      cl += low * cost[i];
+      nh += high;
+      ch += high * cost[i];
     }
   }
   out[at] = nl;
@@ -544,9 +590,10 @@ export function simulateBlock(
       }
     }
   }
-  // Opportunities shorten activities, never below zero days.
+  // Opportunities shorten activities, never below zero days (an activity no delay acts on is
+  // as cut at step 3).
   if (plan.version !== 1) {
-    for (let a = 0; a < acts; a++) {
+    for (const a of ws.delayed) {
       clampAtZero(ws.durationColumn[a], n);
       if (hasPost) clampAtZero(ws.postDurationColumn[a], n);
     }
@@ -557,9 +604,22 @@ export function simulateBlock(
   if (plan.network && ws.schedule) {
     // The other scenario needs its project duration only; the allocation pass neither count.
     const counts = tap ? null : critical;
-    forwardPass(plan.network, ws.durations, n, ws.schedule, ws.preTotal, postHeadline ? null : counts);
-    if (hasPost)
-      forwardPass(plan.network, ws.postDurations, n, ws.schedule, ws.postTotal, postHeadline ? counts : null);
+    if (hasPost && sameDurations(ws, n)) {
+      // No delay differs between the scenarios in this block: one pass serves both.
+      forwardPass(plan.network, ws.durations, n, ws.schedule, ws.preTotal, counts);
+      ws.postTotal.set(ws.preTotal.subarray(0, n));
+    } else {
+      forwardPass(plan.network, ws.durations, n, ws.schedule, ws.preTotal, postHeadline ? null : counts);
+      if (hasPost)
+        forwardPass(
+          plan.network,
+          ws.postDurations,
+          n,
+          ws.schedule,
+          ws.postTotal,
+          postHeadline ? counts : null,
+        );
+    }
   }
 
   // 7. Time-dependent items: an activity's duration, or the project's.
@@ -613,6 +673,8 @@ export function simulateBlock(
     if (c.va >= 0) pairSumsInto(ws.groupedColumn[c.va]!, ws.groupedColumn[c.vb]!, n, pairSums, 5 * k);
   });
 
-  const band = keep ? bandOf(sink.cost, n, sink.band!, keep, ws.stride, slots) : undefined;
+  const band = keep
+    ? bandOf(sink.cost, n, sink.band!.level, keep, ws.stride, slots, sink.band!.room)
+    : undefined;
   return { block, n, critical, gradeSums, pairSums, durationSums, swingSums, ...(band ? { band } : {}) };
 }

@@ -5,7 +5,7 @@
 
 import type { BlockSummary } from './block';
 import type { Plan } from './compile';
-import { midRanks, sortedPositions } from './math/ranks';
+import { midRanksOf, type SortOrder, sortOrder } from './math/ranks';
 import { checkpointsFor, convergenceSeries } from './stats/convergence';
 import { rankCorrelations, tornado } from './stats/sensitivity';
 import { jointAtPLevels, jointFrontier } from './stats/joint';
@@ -36,9 +36,12 @@ export interface RankedTotals {
   cost: Float64Array;
   costSorted: Float64Array;
   costRanks: Float64Array;
+  /** The cost's sort order (positions of the iterations in costSorted, and the inverse). */
+  costOrder: SortOrder;
   duration: Float64Array | null;
   durationSorted: Float64Array | null;
   durationRanks: Float64Array | null;
+  durationOrder: SortOrder | null;
   /** The other mitigation scenario's totals, in iteration order (when some risk has a post block). */
   altCost?: Float64Array | null;
   altDuration?: Float64Array | null;
@@ -48,16 +51,17 @@ export interface RankedTotals {
 export function rankTotals(cost: Float64Array, duration: Float64Array | null, shared = false): RankedTotals {
   const ranksArray = (n: number) =>
     new Float64Array(shared ? new SharedArrayBuffer(8 * n) : new ArrayBuffer(8 * n));
-  const costSorted = cost.slice().sort();
-  const durationSorted = duration ? duration.slice().sort() : null;
+  const costOrder = sortOrder(cost);
+  const durationOrder = duration ? sortOrder(duration) : null;
   return {
     cost,
-    costSorted,
-    costRanks: midRanks(cost, costSorted, ranksArray(cost.length)),
+    costSorted: costOrder.sorted,
+    costRanks: midRanksOf(costOrder, ranksArray(cost.length)),
+    costOrder,
     duration,
-    durationSorted,
-    durationRanks:
-      duration && durationSorted ? midRanks(duration, durationSorted, ranksArray(duration.length)) : null,
+    durationSorted: durationOrder?.sorted ?? null,
+    durationRanks: durationOrder ? midRanksOf(durationOrder, ranksArray(duration!.length)) : null,
+    durationOrder,
   };
 }
 
@@ -102,7 +106,7 @@ export function rollUp(
   second: BlockSecondPass[],
   info: RunInfo,
 ): SimulationResult {
-  const { cost, costSorted, duration, durationSorted } = totals;
+  const { cost, costSorted, duration, durationSorted, costOrder, durationOrder } = totals;
   const n = cost.length;
   const costSummary = summarizeTotal(cost, costSorted, plan.base.cost, plan.targets.cost);
   const durationSummary =
@@ -111,7 +115,13 @@ export function rollUp(
       : undefined;
 
   let joint: SimulationResult['joint'];
-  if (duration && durationSorted && plan.targets.cost !== undefined && plan.targets.duration !== undefined) {
+  if (
+    duration &&
+    durationSorted &&
+    durationOrder &&
+    plan.targets.cost !== undefined &&
+    plan.targets.duration !== undefined
+  ) {
     let both = 0;
     const tc = plan.targets.cost;
     const td = plan.targets.duration;
@@ -120,7 +130,7 @@ export function rollUp(
       probability: both / n,
       ci95: wilsonInterval(both, n),
       atPLevels: jointAtPLevels(cost, costSorted, duration, durationSorted),
-      frontier: jointFrontier(cost, duration, durationSorted, plan.settings.jointConfidence),
+      frontier: jointFrontier(costOrder, durationOrder, plan.settings.jointConfidence),
     };
   }
 
@@ -154,15 +164,10 @@ export function rollUp(
   const checkpoints = checkpointsFor(n);
   const convergence: SimulationResult['convergence'] = {
     iterations: checkpoints,
-    cost: convergenceSeries(sortedPositions(cost, costSorted), costSorted, checkpoints),
+    cost: convergenceSeries(costOrder.positions, costSorted, checkpoints),
   };
-  if (duration && durationSorted) {
-    convergence.duration = convergenceSeries(
-      sortedPositions(duration, durationSorted),
-      durationSorted,
-      checkpoints,
-    );
-  }
+  if (durationOrder)
+    convergence.duration = convergenceSeries(durationOrder.positions, durationOrder.sorted, checkpoints);
 
   // Keys in the order docs/result-format.md lists them (JSON keeps insertion order).
   return {

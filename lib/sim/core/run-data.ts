@@ -12,7 +12,7 @@ import {
   allocationSlots,
   blockAllocationSums,
 } from './stats/allocation';
-import { keepsBands } from './stats/allocation-band';
+import { bandCapacity, type BandRoom, keepsBands } from './stats/allocation-band';
 
 export interface RoundStore {
   /** First iteration of the round (a multiple of BLOCK_SIZE) and the end of the round. */
@@ -29,6 +29,9 @@ export interface RoundStore {
   grades: Uint16Array;
   /** The P-level around which blocks keep their allocation band, when the run keeps bands. */
   band?: number;
+  /** Room for the bands, block after block (empty when the run keeps none): see bandRoom. */
+  bandIndex: Int32Array;
+  bandCosts: Float64Array;
 }
 
 export function allocateRound(plan: Plan, start: number, total: number, shared: boolean): RoundStore {
@@ -37,6 +40,9 @@ export function allocateRound(plan: Plan, start: number, total: number, shared: 
   const blocks = Math.ceil(n / BLOCK_SIZE);
   const buffer = (bytes: number) => (shared ? new SharedArrayBuffer(bytes) : new ArrayBuffer(bytes));
   const durationLength = plan.network ? n : 0;
+  const slots = allocationSlots(plan);
+  const bands = keepsBands(blocks, BLOCK_SIZE, slots);
+  const capacity = bands ? bandCapacity(BLOCK_SIZE) : 0;
   return {
     start,
     total,
@@ -46,7 +52,20 @@ export function allocateRound(plan: Plan, start: number, total: number, shared: 
     altCost: new Float64Array(buffer(plan.hasPost ? 8 * n : 0)),
     altDuration: new Float64Array(buffer(plan.hasPost ? 8 * durationLength : 0)),
     grades: new Uint16Array(buffer(2 * rows * blocks * BLOCK_SIZE)),
-    ...(keepsBands(total, allocationSlots(plan)) ? { band: allocationLevel(plan) } : {}),
+    bandIndex: new Int32Array(buffer(4 * blocks * capacity)),
+    bandCosts: new Float64Array(buffer(8 * blocks * capacity * slots)),
+    ...(bands ? { band: allocationLevel(plan) } : {}),
+  };
+}
+
+/** Block b's room for its band in the store (empty views when the run keeps no bands). */
+export function bandRoom(store: RoundStore, block: number): BandRoom {
+  const k = block - store.start / BLOCK_SIZE;
+  const capacity = store.bandIndex.length / Math.ceil((store.total - store.start) / BLOCK_SIZE);
+  const slots = store.bandCosts.length / (store.bandIndex.length || 1);
+  return {
+    index: store.bandIndex.subarray(k * capacity, (k + 1) * capacity),
+    costs: store.bandCosts.subarray(k * capacity * slots, (k + 1) * capacity * slots),
   };
 }
 
@@ -59,7 +78,7 @@ export function blockSink(store: RoundStore, block: number, n: number): BlockSin
     altCost: store.altCost.length ? store.altCost.subarray(local, local + n) : store.altCost,
     altDuration: store.altDuration.length ? store.altDuration.subarray(local, local + n) : store.altDuration,
     grades: store.grades.subarray(g, g + store.rows * n),
-    ...(store.band !== undefined ? { band: store.band } : {}),
+    ...(store.band !== undefined ? { band: { level: store.band, room: bandRoom(store, block) } } : {}),
   };
 }
 

@@ -78,3 +78,37 @@ describe('schedule sensitivity index', () => {
     expect(ssi.A2).toBeCloseTo(20 / Math.sqrt(500), 2);
   });
 });
+
+describe('the schedule before and after mitigation', () => {
+  // Two parallel paths, A1 (4–10 days) and A2 (fixed 7), both ahead of A3 (fixed 1): in each
+  // iteration the longer one is critical (critical path method, Kelley & Walker 1959), so A1's
+  // criticality is P(A1 > 7) = 3/6 = 0.5 for a uniform duration, A2's the rest and A3's 1.
+  const withRisk = (post: NonNullable<Model['risks']>[number]['post']): Model => ({
+    ...v2([
+      { id: 'A1', duration: uniform(4, 10) },
+      { id: 'A2', duration: fixed(7) },
+      { id: 'A3', duration: fixed(1), predecessors: ['A1', 'A2'] },
+    ]),
+    risks: [{ id: 'R1', probability: 0.4, cost: uniform(100, 200), delay: fixed(2), activity: 'A3', post }],
+  });
+
+  it('is the same in both scenarios when the mitigation changes only the cost', () => {
+    const res = simulateSync(withRisk({ cost: uniform(10, 20) }), { iterations: 20_000, seed: 5 });
+    const { pre, post } = res.mitigation!;
+    expect(post.duration).toEqual(pre.duration);
+    // A fixed 2-day delay in 40% of the iterations: the mean rises by 0.8 day over the paths'
+    // mean max(A1, 7) + 1 = 0.5·7 + 0.5·8.5 + 1 = 8.75 (uniform: E[A1 | A1 > 7] = 8.5).
+    expect(pre.duration!.mean).toBeCloseTo(8.75 + 0.8, 1);
+    expect(res.criticality.A1).toBeCloseTo(0.5, 2);
+    expect(res.criticality.A2).toBeCloseTo(0.5, 2);
+    expect(res.criticality.A3).toBe(1);
+  });
+
+  it('differs by the mitigated delay when the mitigation changes the delay', () => {
+    const res = simulateSync(withRisk({ delay: fixed(1) }), { iterations: 20_000, seed: 5 });
+    const { pre, post } = res.mitigation!;
+    // The same iterations with the risk (common random numbers): 0.4 × (2 − 1) = 0.4 day less.
+    expect(pre.duration!.mean - post.duration!.mean).toBeCloseTo(0.4, 6);
+    expect(res.criticality.A3).toBe(1);
+  });
+});

@@ -46,7 +46,24 @@ const X_NODES = Float64Array.from({ length: K + 1 }, (_, k) =>
   k === K ? 1 : 0.5 * (1 - Math.cos((Math.PI * k) / K)),
 );
 
-function xSpaceInverse(alpha: number, beta: number, density: (x: number) => number): XSpaceInverse {
+// What every table evaluates at the same points, computed once: log sin and log cos of the
+// quadrature's half-angles (interval k, node q at 3k + q), and log x, log(1 − x) at the nodes.
+const QUADRATURE_STEP = Math.PI / K;
+const HALF_ANGLES = Float64Array.from({ length: 3 * (K - 2) }, (_, i) => {
+  const k = 1 + Math.floor(i / 3);
+  return 0.5 * QUADRATURE_STEP * (k + 0.5 * (GL_NODES[i % 3] + 1));
+});
+const LOG_SIN = HALF_ANGLES.map((a) => Math.log(Math.sin(a)));
+const LOG_COS = HALF_ANGLES.map((a) => Math.log(Math.cos(a)));
+const LOG_X = X_NODES.map((x) => Math.log(x));
+const LOG_1M_X = X_NODES.map((x) => Math.log1p(-x));
+
+/** The beta density from log x and log(1 − x); 0 where it under- or overflows to NaN. */
+function densityOfLogs(alpha: number, beta: number, lnB: number, logX: number, log1mX: number): number {
+  return Math.exp((alpha - 1) * logX + (beta - 1) * log1mX - lnB) || 0;
+}
+
+function xSpaceInverse(alpha: number, beta: number, lnB: number): XSpaceInverse {
   const x = X_NODES;
   const F = new Float64Array(K + 1);
   const coef = new Float64Array(4 * K);
@@ -56,7 +73,6 @@ function xSpaceInverse(alpha: number, beta: number, density: (x: number) => numb
   // sums are then scaled to join the two exact values.
   const F1 = jStat.ibeta(x[1], alpha, beta);
   const FK1 = 1 - jStat.ibeta(1 - x[K - 1], beta, alpha);
-  const h = Math.PI / K;
   const ea = 2 * alpha - 1;
   const eb = 2 * beta - 1;
   F[0] = 0;
@@ -64,18 +80,19 @@ function xSpaceInverse(alpha: number, beta: number, density: (x: number) => numb
   for (let k = 1; k < K - 1; k++) {
     let mass = 0;
     for (let q = 0; q < GL_NODES.length; q++) {
-      const half = 0.5 * h * (k + 0.5 * (GL_NODES[q] + 1));
-      mass += GL_WEIGHTS[q] * Math.exp(ea * Math.log(Math.sin(half)) + eb * Math.log(Math.cos(half)));
+      const i = 3 * (k - 1) + q;
+      mass += GL_WEIGHTS[q] * Math.exp(ea * LOG_SIN[i] + eb * LOG_COS[i]);
     }
     F[k + 1] = F[k] + mass;
   }
   const scale = (FK1 - F1) / F[K - 1];
   for (let k = 1; k < K; k++) F[k] = F1 + F[k] * scale;
   F[K] = 1;
+  const density = X_NODES.map((_, k) => densityOfLogs(alpha, beta, lnB, LOG_X[k], LOG_1M_X[k]));
   for (let k = 0; k < K; k++) {
     const h = x[k + 1] - x[k];
-    const m0 = density(x[k]) * h;
-    const m1 = density(x[k + 1]) * h;
+    const m0 = density[k] * h;
+    const m1 = density[k + 1] * h;
     const d = F[k + 1] - F[k];
     coef[4 * k] = F[k];
     coef[4 * k + 1] = m0;
@@ -245,8 +262,8 @@ export function createBetaQuantileTable(alpha: number, beta: number): BetaQuanti
 
 function buildTable(alpha: number, beta: number): QuantileTable {
   const lnB = jStat.betaln(alpha, beta);
-  const density = (t: number) => Math.exp((alpha - 1) * Math.log(t) + (beta - 1) * Math.log1p(-t) - lnB) || 0;
-  const inverse = xSpaceInverse(alpha, beta, density);
+  const density = (t: number) => densityOfLogs(alpha, beta, lnB, Math.log(t), Math.log1p(-t));
+  const inverse = xSpaceInverse(alpha, beta, lnB);
   const slow = (u: number) => inverse.invert(u);
 
   // Table 2: cubic Hermite cells of x(u) on u = g/G, slope h/f(x) per cell.

@@ -15,12 +15,22 @@ function totalBlock(
   f: Intl.NumberFormat,
   target: number | undefined,
 ): string[] {
-  const col = (s: string) => s.padStart(14);
+  const keys = ['P50', 'P80', 'P90'] as const;
+  const rows: [string, string[]][] = [
+    [title, ['base', ...keys]],
+    ['  value', [f.format(t.base), ...keys.map((k) => f.format(t.percentiles[k]))]],
+    ['  contingency', ['', ...keys.map((k) => signed(f.format(t.contingency[k]), t.contingency[k]))]],
+    [
+      '  95% interval',
+      ['', ...keys.map((k) => `${f.format(t.percentileCI95[k][0])}–${f.format(t.percentileCI95[k][1])}`)],
+    ],
+  ];
+  // Each column as wide as its widest cell (an interval of large sums is wider than a value).
+  const widths = rows[0][1].map((_, c) => Math.max(14, ...rows.map(([, cells]) => cells[c].length + 2)));
   const lines = [
-    `${title.padEnd(18)}${col('base')}${col('P50')}${col('P80')}${col('P90')}`,
-    `${'  value'.padEnd(18)}${col(f.format(t.base))}${col(f.format(t.percentiles.P50))}${col(f.format(t.percentiles.P80))}${col(f.format(t.percentiles.P90))}`,
-    `${'  contingency'.padEnd(18)}${col('')}${col(signed(f.format(t.contingency.P50), t.contingency.P50))}${col(signed(f.format(t.contingency.P80), t.contingency.P80))}${col(signed(f.format(t.contingency.P90), t.contingency.P90))}`,
-    `${'  95% interval'.padEnd(18)}${col('')}${(['P50', 'P80', 'P90'] as const).map((k) => col(`${f.format(t.percentileCI95[k][0])}–${f.format(t.percentileCI95[k][1])}`)).join('')}`,
+    ...rows.map(
+      ([label, cells]) => `${label.padEnd(18)}${cells.map((x, c) => x.padStart(widths[c])).join('')}`,
+    ),
     `  mean ${f.format(t.mean)}, sd ${f.format(t.sd)}, range ${f.format(t.min)} – ${f.format(t.max)}`,
   ];
   if (t.probabilityWithinTarget && target !== undefined) {

@@ -7,6 +7,11 @@
  * holds every iteration of the block that falls in the window, and the second pass reads them here
  * instead of recomputing the block. When a band does not cover the window, that block is
  * recomputed; either way what is summed depends only on the block and the window.
+ *
+ * The bands live in the round's store (../run-data), each block's in its own slice of room for
+ * bandCapacity iterations, on shared memory when threads fill it: nothing large is allocated per
+ * block or sent between threads. A band that would need more room (ties at its ends) is not kept,
+ * and its block is recomputed.
  */
 
 import { percentileRank } from './order-statistics';
@@ -20,19 +25,31 @@ export interface AllocationBand {
   /** Totals [lo, hi] of the band: every iteration of the block with its total in it is kept. */
   lo: number;
   hi: number;
-  /** Kept iterations of the block (0-based, ascending). */
+  /** Kept iterations: the first m of the block's BandRoom. */
+  m: number;
+}
+
+/** A block's room for its band (views into the round's store). */
+export interface BandRoom {
+  /** Kept iterations of the block (0-based, ascending), the first m used. */
   index: Int32Array;
-  /** Slot-major: costs[s·m + j], slot s, kept iteration j (m = index.length). */
+  /** Slot-major: costs[s·m + j], slot s, kept iteration j. */
   costs: Float64Array;
 }
 
-/** Whether bands are kept for a run of `total` iterations and `slots` inputs. */
-export function keepsBands(total: number, slots: number): boolean {
-  return 2 * BAND_HALF_WIDTH * total * slots * 8 <= MAX_BAND_BYTES;
+/** Iterations a band of a block of n can hold: the 2⌈h·n⌉ + 1 nearest the P-value, and ties. */
+export function bandCapacity(n: number): number {
+  return 2 * Math.ceil(BAND_HALF_WIDTH * n) + 1 + Math.ceil(n / 64);
+}
+
+/** Whether bands are kept for `blocks` blocks of up to `blockSize` iterations and `slots` inputs. */
+export function keepsBands(blocks: number, blockSize: number, slots: number): boolean {
+  return blocks * bandCapacity(blockSize) * slots * 8 <= MAX_BAND_BYTES;
 }
 
 /**
- * The band of a block from its totals and its inputs' costs (slot s at inputCost[s·stride + i]).
+ * The band of a block from its totals and its inputs' costs (slot s at inputCost[s·stride + i]),
+ * written into `room`; undefined when it does not fit there.
  */
 export function bandOf(
   cost: Float64Array,
@@ -41,20 +58,26 @@ export function bandOf(
   inputCost: Float64Array,
   stride: number,
   slots: number,
-): AllocationBand {
+  room: BandRoom,
+): AllocationBand | undefined {
   const sorted = cost.slice(0, n).sort();
   const r = percentileRank(n, level) - 1;
   const d = Math.ceil(BAND_HALF_WIDTH * n);
   const lo = sorted[Math.max(0, r - d)];
   const hi = sorted[Math.min(n - 1, r + d)];
-  const kept: number[] = [];
-  for (let i = 0; i < n; i++) if (cost[i] >= lo && cost[i] <= hi) kept.push(i);
-  const index = Int32Array.from(kept);
-  const m = index.length;
-  const costs = new Float64Array(slots * m);
+  const { index, costs } = room;
+  const capacity = index.length;
+  let m = 0;
+  for (let i = 0; i < n; i++) {
+    if (cost[i] >= lo && cost[i] <= hi) {
+      if (m === capacity) return undefined;
+      index[m++] = i;
+    }
+  }
   for (let s = 0; s < slots; s++) {
     const off = s * stride;
-    for (let j = 0; j < m; j++) costs[s * m + j] = inputCost[off + index[j]];
+    const at = s * m;
+    for (let j = 0; j < m; j++) costs[at + j] = inputCost[off + index[j]];
   }
-  return { lo, hi, index, costs };
+  return { lo, hi, m };
 }

@@ -24,7 +24,7 @@
 import { type AllocationTap, BLOCK_SIZE, simulateBlock } from '../block';
 import type { Plan } from '../compile';
 import type { AllocationResult, ContingencyLevel, Sampling } from '../formats';
-import type { RoundStore } from '../run-data';
+import { bandRoom, type RoundStore } from '../run-data';
 import type { AllocationBand } from './allocation-band';
 import { percentileRank } from './order-statistics';
 
@@ -108,15 +108,16 @@ export function allocationFromBand(
   const slots = allocationSlots(plan);
   const sums = new Float64Array(slots + 1);
   const local = block * BLOCK_SIZE - store.start;
-  const m = band.index.length;
+  const { m } = band;
+  const { index, costs } = bandRoom(store, block);
   const inWindow: number[] = [];
   for (let j = 0; j < m; j++) {
-    const c = store.cost[local + band.index[j]];
+    const c = store.cost[local + index[j]];
     if (c >= window.lo && c <= window.hi) inWindow.push(j);
   }
   for (let s = 0; s < slots; s++) {
     let acc = 0;
-    for (const j of inWindow) acc += band.costs[s * m + j];
+    for (const j of inWindow) acc += costs[s * m + j];
     sums[s] = acc;
   }
   sums[slots] = inWindow.length;

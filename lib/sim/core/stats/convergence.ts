@@ -3,12 +3,12 @@
  * at about 50 checkpoints, for the convergence chart.
  *
  * Instead of sorting every prefix, each iteration's position in the full sorted order is inserted
- * into a Fenwick tree (Fenwick 1994, "A new data structure for cumulative frequency tables",
- * Software – Practice and Experience 24(3):327–336); the k-th smallest of the prefix is then found
- * by descending the tree, O(log n) per query and O(n log n) in all.
+ * into a Fenwick tree (../math/fenwick); the k-th smallest of the prefix is then found by
+ * descending the tree, O(log n) per query and O(n log n) in all.
  */
 
 import type { ConvergenceSeries } from '../formats';
+import { PositionTree } from '../math/fenwick';
 import { percentileRank, quantileIntervalRanks } from './order-statistics';
 
 export const CHECKPOINTS = 50;
@@ -31,26 +31,12 @@ export function convergenceSeries(
   sorted: Float64Array,
   checkpoints: number[],
 ): ConvergenceSeries {
-  const n = positions.length;
-  const tree = new Int32Array(n + 1);
-  let top = 1;
-  while (top * 2 <= n) top *= 2;
-  const kth = (k: number): number => {
-    // Smallest position with k inserted positions at or below it (1-based tree).
-    let pos = 0;
-    for (let step = top; step > 0; step >>= 1) {
-      const next = pos + step;
-      if (next <= n && tree[next] < k) {
-        pos = next;
-        k -= tree[next];
-      }
-    }
-    return sorted[pos];
-  };
+  const tree = new PositionTree(positions.length);
+  const kth = (k: number): number => sorted[tree.kth(k)];
   const series: ConvergenceSeries = { P50: [], P50ci95: [], P80: [], P80ci95: [] };
   let inserted = 0;
   for (const m of checkpoints) {
-    for (; inserted < m; inserted++) for (let j = positions[inserted] + 1; j <= n; j += j & -j) tree[j]++;
+    for (; inserted < m; inserted++) tree.insert(positions[inserted]);
     for (const [p, est, ci] of [
       [0.5, series.P50, series.P50ci95],
       [0.8, series.P80, series.P80ci95],

@@ -6,9 +6,14 @@
  *  - frontier at level L: for durations d from the duration's P(L) to its P99, the smallest cost
  *    c with #{i : cost_i ≤ c and duration_i ≤ d} ≥ ⌈L·n⌉, i.e. P(cost ≤ c and duration ≤ d) = L
  *    (an empirical joint-confidence contour; for d at P99 and beyond it tends to the cost's P(L)).
+ *    The iterations are taken in order of duration, each one's cost position inserted into a
+ *    Fenwick tree (../math/fenwick), so each point is an order statistic of a prefix: O(n log n)
+ *    for all points.
  */
 
-import { percentileOfSorted } from './summary';
+import { PositionTree } from '../math/fenwick';
+import type { SortOrder } from '../math/ranks';
+import { countAtMost, percentileOfSorted } from './summary';
 
 const LEVELS = [
   ['P50', 0.5],
@@ -39,57 +44,29 @@ export function jointAtPLevels(
 }
 
 export function jointFrontier(
-  cost: Float64Array,
-  duration: Float64Array,
-  durationSorted: Float64Array,
+  cost: SortOrder,
+  duration: SortOrder,
   level: number,
 ): { level: number; points: { duration: number; cost: number }[] } {
-  const n = cost.length;
+  const durationSorted = duration.sorted;
+  const n = durationSorted.length;
   const need = Math.ceil(level * n);
   const from = percentileOfSorted(durationSorted, level);
   const to = percentileOfSorted(durationSorted, 0.99);
-  const points: { duration: number; cost: number }[] = [];
-  const within = new Float64Array(n);
-  for (let k = 0; k < FRONTIER_POINTS; k++) {
-    const d = from + ((to - from) * k) / (FRONTIER_POINTS - 1);
-    let m = 0;
-    for (let i = 0; i < n; i++) if (duration[i] <= d) within[m++] = cost[i];
-    if (m < need) continue;
-    points.push({ duration: d, cost: kthSmallest(within, m, need - 1) });
+  const wanted = Array.from(
+    { length: FRONTIER_POINTS },
+    (_, k) => from + ((to - from) * k) / (FRONTIER_POINTS - 1),
+  );
+  // The points by duration, each a prefix of the iterations in duration order.
+  const byDuration = wanted
+    .map((d, k) => ({ d, k, m: countAtMost(durationSorted, d) }))
+    .sort((a, b) => a.m - b.m);
+  const found: ({ duration: number; cost: number } | null)[] = new Array(FRONTIER_POINTS).fill(null);
+  const tree = new PositionTree(n);
+  let inserted = 0;
+  for (const { d, k, m } of byDuration) {
+    for (; inserted < m; inserted++) tree.insert(cost.positions[duration.order[inserted]]);
+    if (m >= need) found[k] = { duration: d, cost: cost.sorted[tree.kth(need)] };
   }
-  return { level, points };
-}
-
-/**
- * The k-th smallest (0-based) of x[0…m), reordering x in place: quickselect with a
- * median-of-three pivot (Hoare 1961, "Algorithm 65: FIND", CACM 4(7):321–322), the same value
- * as sorting and indexing, in linear expected time.
- */
-export function kthSmallest(x: Float64Array, m: number, k: number): number {
-  let lo = 0;
-  let hi = m - 1;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    const a = x[lo];
-    const b = x[mid];
-    const c = x[hi];
-    const pivot = a < b ? (b < c ? b : a < c ? c : a) : a < c ? a : b < c ? c : b;
-    let i = lo;
-    let j = hi;
-    while (i <= j) {
-      while (x[i] < pivot) i++;
-      while (x[j] > pivot) j--;
-      if (i <= j) {
-        const t = x[i];
-        x[i] = x[j];
-        x[j] = t;
-        i++;
-        j--;
-      }
-    }
-    if (k <= j) hi = j;
-    else if (k >= i) lo = i;
-    else return x[k];
-  }
-  return x[k];
+  return { level, points: found.filter((p) => p !== null) };
 }
