@@ -10,6 +10,7 @@
  *   risk (or any code the model does not hold) is left out with a notice, since the engine
  *   refuses a correlation of an unknown input and no run could start.
  */
+import { linkToModel, type PredecessorLink } from '@/lib/registers/predecessors';
 import type { DistSpec, Model, ModelActivity, ModelCorrelation, ModelItem, ModelRisk } from '@/lib/sim';
 
 export type RiskValues = 'pre' | 'post';
@@ -41,7 +42,9 @@ export type ActivityRecord = {
   code: string;
   name: string;
   duration: DistSpec;
-  predecessors: { code: string; lag: number }[] | null;
+  predecessors: PredecessorLink[] | null;
+  /** Probability that it happens; null or absent: always. */
+  existence?: number | null;
 };
 
 export type CorrelationRecord = { aCode: string; bCode: string; rho: number };
@@ -65,7 +68,8 @@ function activityOf(a: ActivityRecord): ModelActivity {
     id: a.code,
     name: a.name,
     duration: a.duration,
-    predecessors: (a.predecessors ?? []).map((p) => (p.lag ? { id: p.code, lag: p.lag } : p.code)),
+    predecessors: (a.predecessors ?? []).map(linkToModel),
+    ...(a.existence !== null && a.existence !== undefined ? { existence: a.existence } : {}),
   };
 }
 

@@ -69,7 +69,7 @@ export function crossCheck(
       next.activities.map((a) => ({
         id: a.code,
         duration: { type: 'fixed', value: 0 },
-        predecessors: a.predecessors.map((p) => ({ id: p.code, lag: p.lag })),
+        predecessors: a.predecessors.map((p) => ({ id: p.code, type: p.type, lag: p.lag })),
       })),
     );
     for (const p of problems) {
