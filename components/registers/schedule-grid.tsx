@@ -5,6 +5,9 @@
 import { useCallback, useMemo } from 'react';
 import type { RegisterColumn } from '@/components/grid/columns';
 import type { GridRow } from '@/components/grid/use-register-rows';
+import { HealthFindings } from '@/components/schedule/health-findings';
+import { activitiesOfRows } from '@/components/schedule/network-rows';
+import { scheduleHealth } from '@/lib/domain/schedule-health';
 import { specFromParts, summarise, type DistType } from '@/lib/registers/dist-fields';
 import { formatNumber } from '@/lib/registers/numbers';
 import { parsePredecessors, PREDECESSOR_HELP, type PredecessorLink } from '@/lib/registers/predecessors';
@@ -105,5 +108,16 @@ export function ScheduleGrid({ projectId, readOnly }: { projectId: number; readO
     [],
   );
 
-  return <RegisterTab page={page} readOnly={readOnly} columns={columns} rows={rows} />;
+  // The health check follows the grid as it is edited.
+  const activities = useMemo(() => activitiesOfRows(register.rows), [register.rows]);
+  const findings = useMemo(() => scheduleHealth(activities), [activities]);
+
+  return (
+    <div className="space-y-3">
+      <RegisterTab page={page} readOnly={readOnly} columns={columns} rows={rows} />
+      {register.query.isSuccess ? (
+        <HealthFindings findings={findings} activityCount={activities.length} context="schedule" />
+      ) : null}
+    </div>
+  );
 }

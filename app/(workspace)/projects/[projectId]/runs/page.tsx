@@ -1,6 +1,7 @@
 import { randomInt } from 'node:crypto';
 import { can } from '@/lib/auth/roles';
 import { listRuns } from '@/lib/services/runs';
+import { scheduleHealthOf } from '@/lib/services/schedule-health';
 import { MAX_SEED } from '@/lib/validation/runs';
 import { Card } from '@/components/ui/card';
 import { RunSettingsForm } from '@/components/runs/run-settings-form';
@@ -13,6 +14,7 @@ export default async function RunsPage({ params }: { params: Promise<{ projectId
   const { actor, project } = await loadProjectPage(params, 'runs', 'run:read');
   const runs = await listRuns(actor, project.id);
   const mayStart = can(actor.role, 'run:start');
+  const health = mayStart ? await scheduleHealthOf(actor, project.id) : null;
   return (
     <div className="space-y-5">
       <h1 className="text-xl font-semibold">Runs</h1>
@@ -23,6 +25,7 @@ export default async function RunsPage({ params }: { params: Promise<{ projectId
             initialSeed={randomInt(1, MAX_SEED + 1)}
             baseDate={project.baseDate}
             currency={project.currency}
+            health={health}
           />
         </Card>
       ) : (
