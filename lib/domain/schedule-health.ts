@@ -175,7 +175,7 @@ export function scheduleHealth(activities: readonly ModelActivity[]): HealthFind
   const share = flat.length / activities.length;
   add(
     'no-uncertainty',
-    `${flat.length} of ${activities.length} activities (${Math.round(share * 100)}%) have no uncertainty in their duration: ${listed(flat)}.`,
+    `${flat.length} of ${activities.length} activities (${Math.round(share * 100)}%) ${plural(flat.length, 'has', 'have')} no uncertainty in ${plural(flat.length, 'its', 'their')} duration: ${listed(flat)}.`,
     flat,
   );
   return findings;

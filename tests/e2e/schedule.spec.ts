@@ -1,0 +1,93 @@
+import { expect, test } from '@playwright/test';
+import { AuthPages, DEMO_PASSWORD, demoEmail } from './pages/auth';
+import { RegisterPages } from './pages/registers';
+
+// A deck pour with typed links, a lead and a branch: the health check names the lead and the
+// open ends; a link typed in the grid is checked as it is entered.
+const model = {
+  format: 'outturn-model',
+  version: 1,
+  name: 'Deck',
+  currency: 'EUR',
+  items: [{ id: 'C1', name: 'Coring crew', ratePerDay: 1500, activity: 'A3' }],
+  activities: [
+    { id: 'A1', name: 'Pour deck', duration: { type: 'triangular', low: 8, mode: 10, high: 15 } },
+    {
+      id: 'A2',
+      name: 'Cure and test',
+      duration: { type: 'fixed', value: 7 },
+      predecessors: [
+        { id: 'A1', type: 'SS', lag: 2 },
+        { id: 'A1', type: 'FF', lag: 7 },
+      ],
+    },
+    {
+      id: 'A3',
+      name: 'Retest after a failed core',
+      duration: { type: 'uniform', low: 5, high: 10 },
+      predecessors: ['A2'],
+      existence: 0.25,
+    },
+    {
+      id: 'A4',
+      name: 'Surfacing',
+      duration: { type: 'pert', low: 4, mode: 5, high: 8 },
+      predecessors: ['A3', { id: 'A2', lag: -1 }],
+    },
+    { id: 'A5', name: 'Handrails', duration: { type: 'triangular', low: 3, mode: 4, high: 6 } },
+  ],
+};
+
+test('a planner types links in the notation and reads the health check on the schedule and run form', async ({
+  page,
+}) => {
+  await new AuthPages(page).signIn(demoEmail('estimator'), DEMO_PASSWORD);
+  await expect(page).toHaveURL(/\/projects$/);
+  const created = await page.request.post('/api/projects', {
+    data: {
+      name: 'E2E deck links',
+      code: `E2E-${Date.now().toString(36).toUpperCase()}`,
+      currency: 'EUR',
+      estimateClass: 4,
+      stage: 'Concept',
+      baseDate: '2027-01-04',
+    },
+  });
+  const projectId = (await created.json()).project.id as number;
+  expect((await page.request.post(`/api/projects/${projectId}/import`, { data: model })).status()).toBe(200);
+
+  const grid = new RegisterPages(page);
+  await grid.open(projectId, 'schedule');
+  const cell = (row: number, field: string) => grid.cell(row, field, 'Schedule');
+  await expect(cell(1, 'predecessors')).toHaveText('A1 SS+2, A1 FF+7');
+  await expect(cell(2, 'existence')).toHaveText('25%');
+
+  const health = page.getByRole('region', { name: 'Health check of the network' });
+  await expect(health).toContainText('A2 → A4 (FS−1)');
+  await expect(health).toContainText('A5 has no predecessor');
+  await page.screenshot({ path: 'test-results/schedule-1280.png', fullPage: true });
+
+  // A link type that is not one of the four: the cell says how to write it.
+  await cell(4, 'predecessors').dblclick();
+  const editor = grid.grid('Schedule').locator('.ag-cell-inline-editing input');
+  await editor.fill('A1 XS+2');
+  await editor.press('Enter');
+  await cell(4, 'predecessors').click();
+  await expect(page.getByTestId('cell-status')).toContainText('e.g. A2, A3 SS+2, A4 FF-1');
+
+  // A valid one: saved, and the open start is gone from the health check.
+  await cell(4, 'predecessors').dblclick();
+  await editor.fill('A1 SS+3');
+  await editor.press('Enter');
+  await grid.waitSaved();
+  await expect(health).not.toContainText('A5 has no predecessor');
+
+  await page.setViewportSize({ width: 1440, height: 900 });
+  await page.screenshot({ path: 'test-results/schedule-1440.png', fullPage: true });
+
+  await page.goto(`/projects/${projectId}/runs`);
+  const runHealth = page.getByRole('region', { name: "The schedule's health check before this run" });
+  await expect(runHealth).toContainText('The run can go ahead');
+  await expect(runHealth).toContainText('A2 → A4 (FS−1)');
+  await page.screenshot({ path: 'test-results/runs-form-1440.png', fullPage: true });
+});
