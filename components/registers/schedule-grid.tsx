@@ -6,6 +6,7 @@ import { useCallback, useMemo } from 'react';
 import type { RegisterColumn } from '@/components/grid/columns';
 import type { GridRow } from '@/components/grid/use-register-rows';
 import { HealthFindings } from '@/components/schedule/health-findings';
+import { NetworkDiagram } from '@/components/schedule/network-diagram';
 import { activitiesOfRows } from '@/components/schedule/network-rows';
 import { scheduleHealth } from '@/lib/domain/schedule-health';
 import { specFromParts, summarise, type DistType } from '@/lib/registers/dist-fields';
@@ -52,7 +53,16 @@ function durationSummary(row: GridRow) {
   return r.ok ? summarise(r.spec) : null;
 }
 
-export function ScheduleGrid({ projectId, readOnly }: { projectId: number; readOnly: boolean }) {
+export function ScheduleGrid({
+  projectId,
+  readOnly,
+  latestRun = null,
+}: {
+  projectId: number;
+  readOnly: boolean;
+  /** Criticality from the latest successful run, for the diagram's highlight. */
+  latestRun?: { runId: number; criticality: Record<string, number> } | null;
+}) {
   const extraIssues = useCallback((v: Record<string, unknown>, all: Record<string, unknown>[]) => {
     const out: Record<string, string> = {};
     const issue = networkIssue(v, all);
@@ -116,7 +126,16 @@ export function ScheduleGrid({ projectId, readOnly }: { projectId: number; readO
     <div className="space-y-3">
       <RegisterTab page={page} readOnly={readOnly} columns={columns} rows={rows} />
       {register.query.isSuccess ? (
-        <HealthFindings findings={findings} activityCount={activities.length} context="schedule" />
+        <>
+          <HealthFindings findings={findings} activityCount={activities.length} context="schedule" />
+          {activities.length ? (
+            <NetworkDiagram
+              activities={activities}
+              criticality={latestRun?.criticality ?? null}
+              runLabel={latestRun ? `run ${latestRun.runId}` : null}
+            />
+          ) : null}
+        </>
       ) : null}
     </div>
   );

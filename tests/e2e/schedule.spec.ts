@@ -90,4 +90,26 @@ test('a planner types links in the notation and reads the health check on the sc
   await expect(runHealth).toContainText('The run can go ahead');
   await expect(runHealth).toContainText('A2 → A4 (FS−1)');
   await page.screenshot({ path: 'test-results/runs-form-1440.png', fullPage: true });
+
+  // The diagram: the base critical path before a run, the run's most critical path after it.
+  await page.goto(`/projects/${projectId}/schedule`);
+  const diagram = page.getByRole('region', { name: 'Network diagram' });
+  await expect(diagram).toContainText('the critical path of the base schedule');
+  const started = await page.request.post(`/api/projects/${projectId}/runs`, {
+    data: { iterations: 2000, seed: 3, sampling: 'lhs' },
+  });
+  expect(started.status()).toBe(201);
+  const runId = (await started.json()).run.id as number;
+  await expect
+    .poll(
+      async () =>
+        (await (await page.request.get(`/api/projects/${projectId}/runs/${runId}`)).json()).run.status,
+    )
+    .toBe('succeeded');
+  await page.reload();
+  await expect(diagram).toContainText(`most often critical in run ${runId}`);
+  await diagram.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: 'test-results/schedule-diagram-1440.png', fullPage: true });
+  await page.setViewportSize({ width: 1280, height: 860 });
+  await page.screenshot({ path: 'test-results/schedule-diagram-1280.png', fullPage: true });
 });

@@ -13,6 +13,7 @@ export {
   type LatestRunSummary,
 } from './runs';
 export { compareRuns, type RunComparison } from './compare';
+export { latestCriticality, type LatestCriticality } from './latest-criticality';
 export { recoverInterruptedRuns, INTERRUPTED_REASON } from './recover';
 export type { RunView } from './view';
 export type { RunSample } from './sample';

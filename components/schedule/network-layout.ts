@@ -1,0 +1,148 @@
+// Where the network diagram puts each activity and link: columns by the number of links on the
+// longest chain of predecessors before it (so every link points right), rows in the schedule's
+// order within a column; and the path to highlight, from a run's criticality (the finish that
+// was most often critical, then back through the predecessor most often critical) or, before
+// any run, the base schedule's zero-float activities.
+import { baseDurationOf, checkNetwork, scheduleDates, type ModelActivity } from '@/lib/sim';
+
+export const BOX = { width: 156, height: 50, columnGap: 64, rowGap: 16, margin: 12 };
+
+export type DiagramBox = {
+  id: string;
+  name: string;
+  days: number;
+  existence: number;
+  criticality: number | null;
+  x: number;
+  y: number;
+  highlighted: boolean;
+};
+
+export type DiagramLink = {
+  from: string;
+  to: string;
+  label: string;
+  highlighted: boolean;
+  path: string;
+  /** Where its label goes: the middle of the curve. */
+  labelX: number;
+  labelY: number;
+};
+
+export type DiagramLayout =
+  | { ok: true; boxes: DiagramBox[]; links: DiagramLink[]; width: number; height: number }
+  | { ok: false; reason: string };
+
+const lagText = (lag: number) => (lag > 0 ? `+${lag}` : lag < 0 ? `−${-lag}` : '');
+
+function baseDays(a: ModelActivity): number {
+  try {
+    return baseDurationOf(a.duration);
+  } catch {
+    return 0;
+  }
+}
+
+export function layoutNetwork(
+  activities: readonly ModelActivity[],
+  criticality: Record<string, number> | null,
+): DiagramLayout {
+  if (activities.length === 0) return { ok: false, reason: 'No activities yet.' };
+  const problems = checkNetwork([...activities]);
+  if (problems.length)
+    return { ok: false, reason: `The diagram waits for a sound network: ${problems[0].message}.` };
+  const links = activities.flatMap((a) =>
+    (a.predecessors ?? []).map((p) =>
+      typeof p === 'string'
+        ? { from: p, to: a.id, type: 'FS', lag: 0 }
+        : { from: p.id, to: a.id, type: p.type ?? 'FS', lag: p.lag ?? 0 },
+    ),
+  );
+  const durations = activities.map(baseDays);
+  const dates = scheduleDates([...activities], durations);
+  const preds = new Map(activities.map((a) => [a.id, links.filter((l) => l.to === a.id).map((l) => l.from)]));
+
+  // Columns: 1 + the deepest predecessor's column (a topological order exists: no cycle).
+  const column = new Map<string, number>();
+  const columnOf = (id: string): number => {
+    const known = column.get(id);
+    if (known !== undefined) return known;
+    const c = Math.max(-1, ...preds.get(id)!.map(columnOf)) + 1;
+    column.set(id, c);
+    return c;
+  };
+  activities.forEach((a) => columnOf(a.id));
+  const rowsUsed: number[] = [];
+  const place = new Map<string, { x: number; y: number }>();
+  for (const a of activities) {
+    const c = column.get(a.id)!;
+    const r = (rowsUsed[c] = (rowsUsed[c] ?? 0) + 1) - 1;
+    place.set(a.id, {
+      x: BOX.margin + c * (BOX.width + BOX.columnGap),
+      y: BOX.margin + r * (BOX.height + BOX.rowGap),
+    });
+  }
+
+  const onPath = highlightedActivities(activities, links, criticality, (id) => dates.activities[id].critical);
+  const boxes: DiagramBox[] = activities.map((a, i) => ({
+    id: a.id,
+    name: a.name ?? '',
+    days: durations[i],
+    existence: a.existence ?? 1,
+    criticality: criticality ? (criticality[a.id] ?? 0) : null,
+    ...place.get(a.id)!,
+    highlighted: onPath.has(a.id),
+  }));
+  const diagramLinks: DiagramLink[] = links.map((l) => {
+    const from = place.get(l.from)!;
+    const to = place.get(l.to)!;
+    const x1 = from.x + BOX.width;
+    const y1 = from.y + BOX.height / 2;
+    const x2 = to.x - 2;
+    const y2 = to.y + BOX.height / 2;
+    const bend = Math.max(24, (x2 - x1) / 2);
+    return {
+      from: l.from,
+      to: l.to,
+      label: l.type === 'FS' && l.lag === 0 ? '' : `${l.type}${lagText(l.lag)}`,
+      highlighted: onPath.has(l.from) && onPath.has(l.to),
+      path: `M ${x1} ${y1} C ${x1 + bend} ${y1}, ${x2 - bend} ${y2}, ${x2} ${y2}`,
+      labelX: (x1 + x2) / 2,
+      labelY: (y1 + y2) / 2 - 4,
+    };
+  });
+  const columns = Math.max(...column.values()) + 1;
+  const rows = Math.max(...rowsUsed);
+  return {
+    ok: true,
+    boxes,
+    links: diagramLinks,
+    width: 2 * BOX.margin + columns * BOX.width + (columns - 1) * BOX.columnGap,
+    height: 2 * BOX.margin + rows * BOX.height + (rows - 1) * BOX.rowGap,
+  };
+}
+
+/**
+ * With a run: the finish most often critical, then back through the predecessor most often
+ * critical (the first listed of a tie), to a start. Before a run: the base schedule's critical
+ * activities.
+ */
+function highlightedActivities(
+  activities: readonly ModelActivity[],
+  links: { from: string; to: string }[],
+  criticality: Record<string, number> | null,
+  baseCritical: (id: string) => boolean,
+): Set<string> {
+  if (!criticality) return new Set(activities.filter((a) => baseCritical(a.id)).map((a) => a.id));
+  const c = (id: string) => criticality[id] ?? 0;
+  const hasSucc = new Set(links.map((l) => l.from));
+  const finishes = activities.filter((a) => !hasSucc.has(a.id)).map((a) => a.id);
+  let at: string | undefined = finishes.reduce((best, id) => (c(id) > c(best) ? id : best), finishes[0]);
+  const path = new Set<string>();
+  while (at !== undefined && !path.has(at) && c(at) > 0) {
+    path.add(at);
+    const preds = links.filter((l) => l.to === at).map((l) => l.from);
+    at = preds.length ? preds.reduce((best, id) => (c(id) > c(best) ? id : best), preds[0]) : undefined;
+  }
+  return path;
+}
