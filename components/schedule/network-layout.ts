@@ -6,6 +6,8 @@
 import { baseDurationOf, checkNetwork, scheduleDates, type ModelActivity } from '@/lib/sim';
 
 export const BOX = { width: 156, height: 50, columnGap: 64, rowGap: 16, margin: 12 };
+/** Room above the boxes for links that skip a column (they arc over the boxes between). */
+const ARC_LANE = 34;
 
 export type DiagramBox = {
   id: string;
@@ -79,7 +81,7 @@ export function layoutNetwork(
     const r = (rowsUsed[c] = (rowsUsed[c] ?? 0) + 1) - 1;
     place.set(a.id, {
       x: BOX.margin + c * (BOX.width + BOX.columnGap),
-      y: BOX.margin + r * (BOX.height + BOX.rowGap),
+      y: BOX.margin + ARC_LANE + r * (BOX.height + BOX.rowGap),
     });
   }
 
@@ -93,22 +95,36 @@ export function layoutNetwork(
     ...place.get(a.id)!,
     highlighted: onPath.has(a.id),
   }));
-  const diagramLinks: DiagramLink[] = links.map((l) => {
+  // Two links between the same activities (an SS and an FF pair) share one arrow and one label.
+  const pairs = new Map<string, { from: string; to: string; labels: string[] }>();
+  for (const l of links) {
+    const key = `${l.from}\u0000${l.to}`;
+    const pair = pairs.get(key) ?? { from: l.from, to: l.to, labels: [] };
+    if (l.type !== 'FS' || l.lag !== 0) pair.labels.push(`${l.type}${lagText(l.lag)}`);
+    pairs.set(key, pair);
+  }
+  const diagramLinks: DiagramLink[] = [...pairs.values()].map((l) => {
     const from = place.get(l.from)!;
     const to = place.get(l.to)!;
     const x1 = from.x + BOX.width;
     const y1 = from.y + BOX.height / 2;
     const x2 = to.x - 2;
     const y2 = to.y + BOX.height / 2;
+    const skips = column.get(l.to)! - column.get(l.from)! > 1;
     const bend = Math.max(24, (x2 - x1) / 2);
+    // A link over a column arcs above the boxes between, so that no box hides it.
+    const top = Math.min(y1, y2) - BOX.height / 2 - ARC_LANE * 0.9;
+    const path = skips
+      ? `M ${x1} ${y1} C ${x1 + 40} ${top}, ${x2 - 40} ${top}, ${x2} ${y2}`
+      : `M ${x1} ${y1} C ${x1 + bend} ${y1}, ${x2 - bend} ${y2}, ${x2} ${y2}`;
     return {
       from: l.from,
       to: l.to,
-      label: l.type === 'FS' && l.lag === 0 ? '' : `${l.type}${lagText(l.lag)}`,
+      label: l.labels.join(' · '),
       highlighted: onPath.has(l.from) && onPath.has(l.to),
-      path: `M ${x1} ${y1} C ${x1 + bend} ${y1}, ${x2 - bend} ${y2}, ${x2} ${y2}`,
+      path,
       labelX: (x1 + x2) / 2,
-      labelY: (y1 + y2) / 2 - 4,
+      labelY: skips ? 0.125 * (y1 + y2) + 0.75 * top - 3 : (y1 + y2) / 2 - 4,
     };
   });
   const columns = Math.max(...column.values()) + 1;
@@ -118,7 +134,7 @@ export function layoutNetwork(
     boxes,
     links: diagramLinks,
     width: 2 * BOX.margin + columns * BOX.width + (columns - 1) * BOX.columnGap,
-    height: 2 * BOX.margin + rows * BOX.height + (rows - 1) * BOX.rowGap,
+    height: 2 * BOX.margin + ARC_LANE + rows * BOX.height + (rows - 1) * BOX.rowGap,
   };
 }
 
