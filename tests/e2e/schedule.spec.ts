@@ -1,42 +1,11 @@
 import { expect, test } from '@playwright/test';
 import { AuthPages, DEMO_PASSWORD, demoEmail } from './pages/auth';
 import { RegisterPages } from './pages/registers';
+import { deckModel } from '../fixtures/deck-links-model';
 
-// A deck pour with typed links, a lead and a branch: the health check names the lead and the
-// open ends; a link typed in the grid is checked as it is entered.
-const model = {
-  format: 'outturn-model',
-  version: 1,
-  name: 'Deck',
-  currency: 'EUR',
-  items: [{ id: 'C1', name: 'Coring crew', ratePerDay: 1500, activity: 'A3' }],
-  activities: [
-    { id: 'A1', name: 'Pour deck', duration: { type: 'triangular', low: 8, mode: 10, high: 15 } },
-    {
-      id: 'A2',
-      name: 'Cure and test',
-      duration: { type: 'fixed', value: 7 },
-      predecessors: [
-        { id: 'A1', type: 'SS', lag: 2 },
-        { id: 'A1', type: 'FF', lag: 7 },
-      ],
-    },
-    {
-      id: 'A3',
-      name: 'Retest after a failed core',
-      duration: { type: 'uniform', low: 5, high: 10 },
-      predecessors: ['A2'],
-      existence: 0.25,
-    },
-    {
-      id: 'A4',
-      name: 'Surfacing',
-      duration: { type: 'pert', low: 4, mode: 5, high: 8 },
-      predecessors: ['A3', { id: 'A2', lag: -1 }],
-    },
-    { id: 'A5', name: 'Handrails', duration: { type: 'triangular', low: 3, mode: 4, high: 6 } },
-  ],
-};
+// The deck pour (typed links, a lead, a branch, A5 with open ends): the health check names the
+// lead and the open ends; a link typed in the grid is checked as it is entered.
+const model = deckModel;
 
 test('a planner types links in the notation and reads the health check on the schedule and run form', async ({
   page,
@@ -60,6 +29,7 @@ test('a planner types links in the notation and reads the health check on the sc
   await grid.open(projectId, 'schedule');
   const cell = (row: number, field: string) => grid.cell(row, field, 'Schedule');
   await expect(cell(1, 'predecessors')).toHaveText('A1 SS+2, A1 FF+7');
+  await expect(cell(3, 'predecessors')).toHaveText('A3, A2-1, A1 SF+20');
   await expect(cell(2, 'existence')).toHaveText('25%');
 
   const health = page.getByRole('region', { name: 'Health check of the network' });

@@ -5,46 +5,10 @@ import ExcelJS from 'exceljs';
 import { APP_URL, newOrganisation, type Client } from './helpers/http';
 import { rows } from './helpers/db';
 import { projectWithRegisters, waitForRun } from './runs-fixtures';
+import { deckActivities, deckModel } from '../fixtures/deck-links-model';
 
-const activities = [
-  {
-    id: 'A1',
-    name: 'Pour deck',
-    duration: { type: 'triangular', low: 8, mode: 10, high: 15 },
-    predecessors: [],
-  },
-  {
-    id: 'A2',
-    name: 'Cure and test',
-    duration: { type: 'fixed', value: 7 },
-    predecessors: [
-      { id: 'A1', type: 'SS', lag: 2 },
-      { id: 'A1', type: 'FF', lag: 7 },
-    ],
-  },
-  {
-    id: 'A3',
-    name: 'Retest after a failed core',
-    duration: { type: 'uniform', low: 5, high: 10 },
-    predecessors: ['A2'],
-    existence: 0.25,
-  },
-  {
-    id: 'A4',
-    name: 'Surfacing',
-    duration: { type: 'pert', low: 4, mode: 5, high: 8 },
-    predecessors: ['A3', { id: 'A2', lag: -1 }, { id: 'A1', type: 'SF', lag: 20 }],
-  },
-];
-
-const model = {
-  format: 'outturn-model',
-  version: 1,
-  name: 'Deck links',
-  currency: 'EUR',
-  items: [{ id: 'C1', name: 'Coring crew', ratePerDay: 1_500, activity: 'A3' }],
-  activities,
-};
+const activities = deckActivities;
+const model = deckModel;
 
 async function upload(
   client: Client,
