@@ -11,7 +11,15 @@
  *   refuses a correlation of an unknown input and no run could start.
  */
 import { linkToModel, type PredecessorLink } from '@/lib/registers/predecessors';
-import type { DistSpec, Model, ModelActivity, ModelCorrelation, ModelItem, ModelRisk } from '@/lib/sim';
+import {
+  existenceInput,
+  type DistSpec,
+  type Model,
+  type ModelActivity,
+  type ModelCorrelation,
+  type ModelItem,
+  type ModelRisk,
+} from '@/lib/sim';
 
 export type RiskValues = 'pre' | 'post';
 
@@ -111,6 +119,7 @@ export function registersToModel(
   const activities = records.activities.map(activityOf);
 
   const inModel = new Set([...items, ...risks, ...activities].map((e) => e.id));
+  for (const a of activities) if (a.existence !== undefined) inModel.add(existenceInput(a.id));
   const closed = new Set(records.risks.filter((r) => r.status === 'closed').map((r) => r.code));
   const notices: string[] = [];
   const correlations: ModelCorrelation[] = [];

@@ -325,9 +325,14 @@ export type ActivityData = z.output<typeof activitySchema>;
 
 // ---- Correlations ----
 
+/** A correlated input: a code, or a branch's existence, "A5 (existence)". */
+const inputCodeSchema = requiredText('code', 40).regex(/^[A-Za-z0-9][A-Za-z0-9._\-/]*( \(existence\))?$/, {
+  message: 'Use an input\'s code, or a branch\'s code followed by " (existence)".',
+});
+
 const correlationShape = {
-  aCode: codeSchema,
-  bCode: codeSchema,
+  aCode: inputCodeSchema,
+  bCode: inputCodeSchema,
   rho: z
     .number({
       error: (iss) => `The coefficient must be a number between −1 and 1 (got ${describe(iss.input)}).`,

@@ -73,6 +73,7 @@ describe('link types and branches in the product', () => {
     const exported = await client.get(`/api/projects/${projectId}/export?format=model`);
     expect(exported.status).toBe(200);
     expect(exported.json.activities).toEqual(activities);
+    expect(exported.json.correlations).toEqual([{ a: 'A1', b: 'A3 (existence)', rho: 0.5 }]);
   });
 
   it('writes the notation to CSV and reads it back into another project unchanged', async () => {
@@ -82,7 +83,12 @@ describe('link types and branches in the product', () => {
     expect(csv.text).toContain('"A3, A2-1, A1 SF+20"');
     const before = (await client.get(`/api/projects/${projectId}/activities`)).json.rows.map(strip);
 
-    const other = await projectWithRegisters(client, { ...model, items: [], activities: [] });
+    const other = await projectWithRegisters(client, {
+      ...model,
+      items: [],
+      activities: [],
+      correlations: [],
+    });
     const back = await upload(
       client,
       `/api/projects/${other}/import`,
@@ -103,10 +109,17 @@ describe('link types and branches in the product', () => {
     expect(headers).toContain('Existence');
     const before = (await client.get(`/api/projects/${projectId}/activities`)).json.rows.map(strip);
 
-    const other = await projectWithRegisters(client, { ...model, items: [], activities: [] });
+    const other = await projectWithRegisters(client, {
+      ...model,
+      items: [],
+      activities: [],
+      correlations: [],
+    });
     const back = await upload(client, `/api/projects/${other}/import`, 'all.xlsx', bytes, 'all');
     expect(back.status).toBe(200);
     expect((await client.get(`/api/projects/${other}/activities`)).json.rows.map(strip)).toEqual(before);
+    const correlations = (await client.get(`/api/projects/${other}/correlations`)).json.rows;
+    expect(correlations.map((r: any) => [r.aCode, r.bCode, r.rho])).toEqual([['A1', 'A3 (existence)', 0.5]]);
   });
 
   it("freezes the links and the branch into the run's input snapshot", async () => {
@@ -120,6 +133,7 @@ describe('link types and branches in the product', () => {
     await waitForRun(client, projectId, runId, (r) => r.status === 'succeeded');
     const snapshot = await client.get(`/api/projects/${projectId}/runs/${runId}/snapshot`);
     expect(JSON.parse(snapshot.text).activities).toEqual(activities);
+    expect(JSON.parse(snapshot.text).correlations).toEqual(model.correlations);
     const [stored] = await rows<{ result: string | object }>(
       'SELECT result FROM SimulationRuns WHERE id = ?',
       [runId],

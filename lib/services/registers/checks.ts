@@ -3,7 +3,7 @@ import 'server-only';
 // registers, since codes are the model file's ids), links to activities, the activity network
 // (no unknown predecessor, no cycle) and correlations between known inputs.
 
-import { checkNetwork } from '@/lib/sim';
+import { checkNetwork, existenceInput } from '@/lib/sim';
 import type { FieldIssue } from '@/lib/errors';
 import type { RegisterKind } from '@/lib/validation/registers';
 import type { ActivityRow, CorrelationRow, LineItemRow, RiskRow } from './rows';
@@ -49,6 +49,8 @@ export function crossCheck(
     }
   }
   const activityCodes = new Set(next.activities.map((a) => a.code));
+  // A branch's existence can be correlated like a risk.
+  for (const a of next.activities) if (a.existence !== null) owner.set(existenceInput(a.code), 'activities');
 
   if (touched.has('items') || touched.has('activities')) {
     for (const row of next.items) {
