@@ -85,7 +85,18 @@ export function layoutNetwork(
     });
   }
 
-  const onPath = highlightedActivities(activities, links, criticality, (id) => dates.activities[id].critical);
+  // A link drives its successor in the base schedule when its bound is the successor's early start.
+  const dateOf = (id: string) => dates.activities[id];
+  const driving = links.map((l) => {
+    const p = dateOf(l.from);
+    const a = dateOf(l.to);
+    const fromStart = l.type === 'SS' || l.type === 'SF';
+    const onFinish = l.type === 'FF' || l.type === 'SF';
+    const bound =
+      (fromStart ? p.earlyStart : p.earlyFinish) + l.lag - (onFinish ? a.earlyFinish - a.earlyStart : 0);
+    return { from: l.from, to: l.to, driving: Math.abs(bound - a.earlyStart) < 1e-9 };
+  });
+  const onPath = highlightedActivities(activities, driving, criticality, (id) => dateOf(id).critical);
   const boxes: DiagramBox[] = activities.map((a, i) => ({
     id: a.id,
     name: a.name ?? '',
@@ -93,7 +104,7 @@ export function layoutNetwork(
     existence: a.existence ?? 1,
     criticality: criticality ? (criticality[a.id] ?? 0) : null,
     ...place.get(a.id)!,
-    highlighted: onPath.has(a.id),
+    highlighted: onPath.nodes.has(a.id),
   }));
   // Two links between the same activities (an SS and an FF pair) share one arrow and one label.
   const pairs = new Map<string, { from: string; to: string; labels: string[] }>();
@@ -121,7 +132,7 @@ export function layoutNetwork(
       from: l.from,
       to: l.to,
       label: l.labels.join(' · '),
-      highlighted: onPath.has(l.from) && onPath.has(l.to),
+      highlighted: onPath.edges.has(edgeKey(l.from, l.to)),
       path,
       labelX: (x1 + x2) / 2,
       labelY: skips ? 0.125 * (y1 + y2) + 0.75 * top - 3 : (y1 + y2) / 2 - 4,
@@ -138,27 +149,43 @@ export function layoutNetwork(
   };
 }
 
+const edgeKey = (from: string, to: string) => `${from}\u0000${to}`;
+
+/** Two criticalities this close count as a tie (Monte Carlo noise of a few iterations). */
+const TIE = 0.01;
+
 /**
  * With a run: the finish most often critical, then back through the predecessor most often
- * critical (the first listed of a tie), to a start. Before a run: the base schedule's critical
- * activities.
+ * critical, to a start. Among predecessors tied within TIE, the one whose link drives the
+ * successor's start in the base schedule wins (then the first listed): so a chain that is always
+ * critical is followed link by link rather than cut short by a link that merely ties. Before a
+ * run: the base schedule's critical activities.
  */
 function highlightedActivities(
   activities: readonly ModelActivity[],
-  links: { from: string; to: string }[],
+  links: { from: string; to: string; driving: boolean }[],
   criticality: Record<string, number> | null,
   baseCritical: (id: string) => boolean,
-): Set<string> {
-  if (!criticality) return new Set(activities.filter((a) => baseCritical(a.id)).map((a) => a.id));
+): { nodes: Set<string>; edges: Set<string> } {
+  if (!criticality) {
+    const nodes = new Set(activities.filter((a) => baseCritical(a.id)).map((a) => a.id));
+    const edges = links.filter((l) => l.driving && nodes.has(l.from) && nodes.has(l.to));
+    return { nodes, edges: new Set(edges.map((l) => edgeKey(l.from, l.to))) };
+  }
   const c = (id: string) => criticality[id] ?? 0;
   const hasSucc = new Set(links.map((l) => l.from));
   const finishes = activities.filter((a) => !hasSucc.has(a.id)).map((a) => a.id);
   let at: string | undefined = finishes.reduce((best, id) => (c(id) > c(best) ? id : best), finishes[0]);
-  const path = new Set<string>();
-  while (at !== undefined && !path.has(at) && c(at) > 0) {
-    path.add(at);
-    const preds = links.filter((l) => l.to === at).map((l) => l.from);
-    at = preds.length ? preds.reduce((best, id) => (c(id) > c(best) ? id : best), preds[0]) : undefined;
+  const nodes = new Set<string>();
+  const edges = new Set<string>();
+  while (at !== undefined && !nodes.has(at) && c(at) > 0) {
+    nodes.add(at);
+    const into = links.filter((l) => l.to === at);
+    const top = Math.max(...into.map((l) => c(l.from)));
+    const tied = into.filter((l) => c(l.from) >= top - TIE);
+    const next = tied.find((l) => l.driving) ?? tied[0];
+    if (next && c(next.from) > 0) edges.add(edgeKey(next.from, at));
+    at = next?.from;
   }
-  return path;
+  return { nodes, edges };
 }

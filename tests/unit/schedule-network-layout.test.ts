@@ -39,6 +39,22 @@ describe('network diagram layout', () => {
     ]);
   });
 
+  it('follows the driving link among predecessors tied in criticality, not a shortcut', () => {
+    // A1 → A2 → A4 and a lagged A1 → A4 (SS+1) that never drives: all three always critical
+    // (to within noise), so the path runs A1 → A2 → A4, not straight from A1.
+    const tied: ModelActivity[] = [
+      { id: 'A1', duration: tri(5) },
+      { id: 'A2', duration: tri(10), predecessors: ['A1'] },
+      { id: 'A4', duration: tri(3), predecessors: [{ id: 'A1', type: 'SS', lag: 1 }, 'A2'] },
+    ];
+    const layout = layoutNetwork(tied, { A1: 1, A2: 0.998, A4: 1 });
+    if (!layout.ok) throw new Error(layout.reason);
+    expect(layout.links.filter((l) => l.highlighted).map((l) => `${l.from}-${l.to}`)).toEqual([
+      'A1-A2',
+      'A2-A4',
+    ]);
+  });
+
   it('waits for a sound network, saying why', () => {
     const layout = layoutNetwork([{ id: 'A1', duration: tri(2), predecessors: ['A1'] }], null);
     expect(layout).toEqual({
