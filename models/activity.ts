@@ -12,9 +12,12 @@ import type { DistSpec } from '@/lib/sim';
 import type { Organization } from './organization';
 import type { Project } from './project';
 
-export type PredecessorLink = { code: string; lag: number };
+export type PredecessorLink = { code: string; type?: 'FS' | 'SS' | 'FF' | 'SF'; lag: number };
 
-/** A schedule activity: duration range in working days and finish-to-start predecessors. */
+/**
+ * A schedule activity: duration range in working days, predecessors with their link type (none
+ * stored: finish-to-start) and lag, and the probability that it happens (null: always).
+ */
 export class Activity extends Model<InferAttributes<Activity>, InferCreationAttributes<Activity>> {
   declare id: CreationOptional<number>;
   declare organizationId: ForeignKey<Organization['id']>;
@@ -23,6 +26,7 @@ export class Activity extends Model<InferAttributes<Activity>, InferCreationAttr
   declare name: string;
   declare duration: DistSpec;
   declare predecessors: PredecessorLink[];
+  declare existence: number | null;
   declare sortOrder: CreationOptional<number>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
@@ -38,6 +42,7 @@ Activity.init(
     name: { type: DataTypes.STRING(255), allowNull: false },
     duration: { type: DataTypes.JSON, allowNull: false },
     predecessors: { type: DataTypes.JSON, allowNull: false, defaultValue: [] },
+    existence: { type: DataTypes.DOUBLE, allowNull: true },
     sortOrder: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
     createdAt: DataTypes.DATE,

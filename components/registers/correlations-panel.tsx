@@ -21,6 +21,7 @@ import { rowIssues } from '@/lib/validation/registers';
 import { ImportExport } from './import-export';
 import { RegisterNotice } from './register-notice';
 import { TableHead } from '@/components/ui/table';
+import { existenceInput } from '@/lib/sim';
 
 type Input = { code: string; label: string; group: string };
 
@@ -47,6 +48,14 @@ function useInputs(projectId: number): Input[] {
         group: 'Activity',
       })),
       ...(drivers.data ?? []).map((r) => ({ code: String(r.code), label: String(r.name), group: 'Driver' })),
+      // A branch's existence is correlated like a risk (whether it happens), by its own name.
+      ...(activities.data ?? [])
+        .filter((r) => typeof r.existence === 'number')
+        .map((r) => ({
+          code: existenceInput(String(r.code)),
+          label: `whether ${String(r.name)} happens`,
+          group: 'Branch',
+        })),
     ],
     [items.data, risks.data, activities.data, drivers.data],
   );

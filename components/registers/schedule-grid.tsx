@@ -1,25 +1,29 @@
 'use client';
-// The schedule: activities with duration ranges (working days) and predecessors typed as text,
-// "A1, A3+5". An unknown code or a cycle is shown in the cell, naming the activities.
+// The schedule: activities with duration ranges (working days), predecessors typed as text in
+// our notation ("A1, A3 SS+2, A4 FF-1", lib/registers/predecessors) and the probability that a
+// branch happens. A bad link, an unknown code or a cycle is shown in the cell, naming the activities.
 import { useCallback, useMemo } from 'react';
 import type { RegisterColumn } from '@/components/grid/columns';
 import type { GridRow } from '@/components/grid/use-register-rows';
+import { HealthFindings } from '@/components/schedule/health-findings';
+import { NetworkDiagram } from '@/components/schedule/network-diagram';
+import { activitiesOfRows } from '@/components/schedule/network-rows';
+import { scheduleHealth } from '@/lib/domain/schedule-health';
 import { specFromParts, summarise, type DistType } from '@/lib/registers/dist-fields';
 import { formatNumber } from '@/lib/registers/numbers';
+import { parsePredecessors, PREDECESSOR_HELP, type PredecessorLink } from '@/lib/registers/predecessors';
 import { checkNetwork } from '@/lib/sim';
 import { distColumns } from './dist-columns';
 import { RegisterTab } from './register-tab';
 import { summaryColumns } from './summary-columns';
 import { duplicateCodeIssue, useRegisterPage } from './use-register-page';
 
-type Link = { code: string; lag: number };
-
 /** Network problems of the activities as they would be with `values` in place, for one row. */
 function networkIssue(values: Record<string, unknown>, all: Record<string, unknown>[]): string | null {
   if (!Array.isArray(values.predecessors)) {
-    return typeof values.predecessors === 'string'
-      ? `"${values.predecessors}" is not a list of activities (write e.g. A1, A3+5 for a 5-day lag).`
-      : null;
+    if (typeof values.predecessors !== 'string') return null;
+    const parsed = parsePredecessors(values.predecessors);
+    return parsed.ok ? null : parsed.error;
   }
   const list = all
     .filter((a) => a.code)
@@ -27,7 +31,7 @@ function networkIssue(values: Record<string, unknown>, all: Record<string, unkno
       id: String(a.code),
       duration: { type: 'fixed' as const, value: 0 },
       predecessors: Array.isArray(a.predecessors)
-        ? (a.predecessors as Link[]).map((p) => ({ id: p.code, lag: p.lag }))
+        ? (a.predecessors as PredecessorLink[]).map((p) => ({ id: p.code, type: p.type, lag: p.lag }))
         : [],
     }));
   const mineAt = list.findIndex((a) => a.id === values.code);
@@ -49,7 +53,16 @@ function durationSummary(row: GridRow) {
   return r.ok ? summarise(r.spec) : null;
 }
 
-export function ScheduleGrid({ projectId, readOnly }: { projectId: number; readOnly: boolean }) {
+export function ScheduleGrid({
+  projectId,
+  readOnly,
+  latestRun = null,
+}: {
+  projectId: number;
+  readOnly: boolean;
+  /** Criticality from the latest successful run, for the diagram's highlight. */
+  latestRun?: { runId: number; criticality: Record<string, number> } | null;
+}) {
   const extraIssues = useCallback((v: Record<string, unknown>, all: Record<string, unknown>[]) => {
     const out: Record<string, string> = {};
     const issue = networkIssue(v, all);
@@ -84,8 +97,16 @@ export function ScheduleGrid({ projectId, readOnly }: { projectId: number; readO
         field: 'predecessors',
         header: 'Predecessors',
         kind: 'predecessors',
-        width: 170,
-        headerTooltip: 'Finish-to-start links: A1, A3+5 (5 working days of lag), A4-2 (2 days of lead)',
+        width: 190,
+        headerTooltip: PREDECESSOR_HELP,
+      },
+      {
+        field: 'existence',
+        header: 'Existence',
+        kind: 'percent',
+        width: 96,
+        headerTooltip:
+          'Probability that the activity happens at all (a branch such as a retest); empty: it always happens.',
       },
       ...summaryColumns(durationSummary, {
         meanHeader: 'Mean (days)',
@@ -97,5 +118,25 @@ export function ScheduleGrid({ projectId, readOnly }: { projectId: number; readO
     [],
   );
 
-  return <RegisterTab page={page} readOnly={readOnly} columns={columns} rows={rows} />;
+  // The health check follows the grid as it is edited.
+  const activities = useMemo(() => activitiesOfRows(register.rows), [register.rows]);
+  const findings = useMemo(() => scheduleHealth(activities), [activities]);
+
+  return (
+    <div className="space-y-3">
+      <RegisterTab page={page} readOnly={readOnly} columns={columns} rows={rows} />
+      {register.query.isSuccess ? (
+        <>
+          <HealthFindings findings={findings} activityCount={activities.length} context="schedule" />
+          {activities.length ? (
+            <NetworkDiagram
+              activities={activities}
+              criticality={latestRun?.criticality ?? null}
+              runLabel={latestRun ? `run ${latestRun.runId}` : null}
+            />
+          ) : null}
+        </>
+      ) : null}
+    </div>
+  );
 }

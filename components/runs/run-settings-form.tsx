@@ -7,6 +7,8 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { Button } from '@/components/ui/button';
 import { Field, Select, TextInput } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
+import { HealthFindings } from '@/components/schedule/health-findings';
+import type { HealthFinding } from '@/lib/domain/schedule-health';
 import { ApiError, callApi } from '@/components/forms/api';
 import {
   CONFIDENCE_LEVELS,
@@ -73,11 +75,14 @@ export function RunSettingsForm({
   initialSeed,
   baseDate,
   currency,
+  health = null,
 }: {
   projectId: number;
   initialSeed: number;
   baseDate: string;
   currency: string;
+  /** The schedule's health check; a run may start whatever it finds. */
+  health?: { findings: HealthFinding[]; activityCount: number } | null;
 }) {
   const router = useRouter();
   const [failure, setFailure] = useState<string | null>(null);
@@ -236,6 +241,9 @@ export function RunSettingsForm({
         <div />
         {textFields.slice(3).map(textField)}
       </div>
+      {health ? (
+        <HealthFindings findings={health.findings} activityCount={health.activityCount} context="run" />
+      ) : null}
       {failure ? (
         <Notice tone="invalid" title="The run was not started">
           {failure}

@@ -20,14 +20,16 @@
  *   covers nothing at all. A model with drivers is a version 2 model.
  */
 import { resolveApplies } from '@/lib/registers/driver-applies';
-import type {
-  DistSpec,
-  Model,
-  ModelActivity,
-  ModelCorrelation,
-  ModelDriver,
-  ModelItem,
-  ModelRisk,
+import { linkToModel, type PredecessorLink } from '@/lib/registers/predecessors';
+import {
+  existenceInput,
+  type DistSpec,
+  type Model,
+  type ModelActivity,
+  type ModelCorrelation,
+  type ModelDriver,
+  type ModelItem,
+  type ModelRisk,
 } from '@/lib/sim';
 
 export type RiskValues = 'pre' | 'post';
@@ -66,7 +68,9 @@ export type ActivityRecord = {
   code: string;
   name: string;
   duration: DistSpec;
-  predecessors: { code: string; lag: number }[] | null;
+  predecessors: PredecessorLink[] | null;
+  /** Probability that it happens; null or absent: always. */
+  existence?: number | null;
 };
 
 export type CorrelationRecord = { aCode: string; bCode: string; rho: number };
@@ -107,7 +111,8 @@ function activityOf(a: ActivityRecord): ModelActivity {
     id: a.code,
     name: a.name,
     duration: a.duration,
-    predecessors: (a.predecessors ?? []).map((p) => (p.lag ? { id: p.code, lag: p.lag } : p.code)),
+    predecessors: (a.predecessors ?? []).map(linkToModel),
+    ...(a.existence !== null && a.existence !== undefined ? { existence: a.existence } : {}),
   };
 }
 
@@ -204,6 +209,7 @@ export function registersToModel(
   const drivers = driversOf(records, notices);
 
   const inModel = new Set([...items, ...risks, ...activities, ...drivers].map((e) => e.id));
+  for (const a of activities) if (a.existence !== undefined) inModel.add(existenceInput(a.id));
   const closed = new Set(records.risks.filter((r) => r.status === 'closed').map((r) => r.code));
   const correlations: ModelCorrelation[] = [];
   for (const c of records.correlations) {

@@ -85,6 +85,7 @@ export const FILE_COLUMNS: Record<RegisterKind, FileColumn[]> = {
     c('name', 'Name', 'text', ['activity name', 'description']),
     ...DIST_COLUMNS,
     c('predecessors', 'Predecessors', 'predecessors', ['preds', 'depends on']),
+    c('existence', 'Existence', 'percent', ['existence probability', 'branch probability']),
   ],
   correlations: [
     c('aCode', 'Input A', 'text', ['a', 'first']),

@@ -3,6 +3,7 @@ import { Activity, CostItem, Correlation, Project, RiskDriver, RiskEvent, sequel
 import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
 import { badRequest, forbidden } from '@/lib/errors';
+import { linkFromModel } from '@/lib/registers/predecessors';
 import { validateModel, type DistSpec, type Model } from '@/lib/sim';
 import { recordAudit } from './audit';
 import { findProject } from './projects';
@@ -42,6 +43,7 @@ async function loadRecords(actor: Actor, projectId: number): Promise<RegisterRec
       name: a.name,
       duration: json(a.duration),
       predecessors: json(a.predecessors),
+      existence: a.existence ?? null,
     })),
     items: items.map((i) => ({
       code: i.code,
@@ -144,9 +146,8 @@ export async function importModel(
       placed(model.activities ?? [], (a) => ({
         name: a.name || a.id,
         duration: a.duration,
-        predecessors: (a.predecessors ?? []).map((p) =>
-          typeof p === 'string' ? { code: p, lag: 0 } : { code: p.id, lag: p.lag ?? 0 },
-        ),
+        predecessors: (a.predecessors ?? []).map(linkFromModel),
+        existence: a.existence ?? null,
       })),
       { transaction },
     );

@@ -6,6 +6,7 @@ import 'server-only';
 
 import type { FieldIssue } from '@/lib/errors';
 import { partsFromSpec } from '@/lib/registers/dist-fields';
+import { linkFromModel } from '@/lib/registers/predecessors';
 import type { DistSpec, Model, ModelActivity, ModelDriver, ModelItem, ModelRisk } from '@/lib/sim';
 import { parseRows, type ImpactPrefix, type RegisterKind } from '@/lib/validation/registers';
 import { MAX_FILE_ROWS } from './registers/files';
@@ -140,9 +141,8 @@ function activityRow(activity: ModelActivity) {
     code: activity.id,
     name: activity.name || activity.id,
     ...cells(activity.duration),
-    predecessors: (activity.predecessors ?? []).map((p) =>
-      typeof p === 'string' ? { code: p, lag: 0 } : { code: p.id, lag: p.lag ?? 0 },
-    ),
+    predecessors: (activity.predecessors ?? []).map(linkFromModel),
+    existence: activity.existence ?? null,
   };
 }
 

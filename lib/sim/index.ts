@@ -27,6 +27,12 @@ export { firstIterationBlocks, type IterationBlock } from './core/first-iteratio
 export { BLOCK_SIZE } from './core/block';
 export { ENGINE_VERSION } from './core/version';
 
+// The schedule network outside a run: checks, one deterministic pass, and the passes themselves.
+export { buildNetwork, type Network } from './core/schedule/network';
+export { scheduleDates, type ScheduleDates, type ActivityDates } from './core/schedule/dates';
+export { allocateForwardPass, forwardPass } from './core/schedule/forward-pass';
+export { existenceInput } from './core/schedule/branches';
+
 // Distributions and the base estimate.
 export {
   createDistribution,

@@ -316,6 +316,7 @@ export type RiskData = z.output<typeof riskSchema>;
 
 export const predecessorLinkSchema = z.object({
   code: codeSchema,
+  type: z.enum(['FS', 'SS', 'FF', 'SF'], { message: 'A link type is FS, SS, FF or SF.' }).optional(),
   lag: z
     .number({ error: 'A lag must be a number of working days.' })
     .finite()
@@ -337,6 +338,8 @@ const activityShape = {
     .array(predecessorLinkSchema, { error: 'Predecessors must be a list.' })
     .max(100)
     .default([]),
+  /** A probabilistic branch: the probability that the activity happens; empty: it always does. */
+  existence: orNull(probability('Existence')),
 };
 
 type ActivityShape = z.infer<z.ZodObject<typeof activityShape>>;
@@ -361,9 +364,10 @@ function refineActivity(row: ActivityShape, ctx: Ctx) {
   for (const p of row.predecessors) {
     if (p.code === row.code)
       ctx.addIssue({ code: 'custom', path: ['predecessors'], message: `${row.code} cannot precede itself.` });
-    if (seen.has(p.code))
+    const key = `${p.code} ${p.type ?? 'FS'}`;
+    if (seen.has(key))
       ctx.addIssue({ code: 'custom', path: ['predecessors'], message: `${p.code} is listed twice.` });
-    seen.add(p.code);
+    seen.add(key);
   }
 }
 
@@ -373,9 +377,14 @@ export type ActivityData = z.output<typeof activitySchema>;
 
 // ---- Correlations ----
 
+/** A correlated input: a code, or a branch's existence, "A5 (existence)". */
+const inputCodeSchema = requiredText('code', 40).regex(/^[A-Za-z0-9][A-Za-z0-9._\-/]*( \(existence\))?$/, {
+  message: 'Use an input\'s code, or a branch\'s code followed by " (existence)".',
+});
+
 const correlationShape = {
-  aCode: codeSchema,
-  bCode: codeSchema,
+  aCode: inputCodeSchema,
+  bCode: inputCodeSchema,
   rho: z
     .number({
       error: (iss) => `The coefficient must be a number between −1 and 1 (got ${describe(iss.input)}).`,

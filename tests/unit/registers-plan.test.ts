@@ -50,6 +50,7 @@ const activity = (id: number, code: string, predecessors: string[] = []): Activi
   mean: null,
   sd: null,
   predecessors: predecessors.map((p) => ({ code: p, lag: 0 })),
+  existence: null,
 });
 
 const risk = (id: number, code: string, extra: Partial<RiskRow> = {}): RiskRow => ({

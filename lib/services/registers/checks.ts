@@ -3,7 +3,7 @@ import 'server-only';
 // since codes are the model file's ids), links to activities, the activity network (no unknown
 // predecessor, no cycle), what drivers apply to, and correlations between known inputs.
 
-import { checkNetwork } from '@/lib/sim';
+import { checkNetwork, existenceInput } from '@/lib/sim';
 import type { FieldIssue } from '@/lib/errors';
 import type { RegisterKind } from '@/lib/validation/registers';
 import { resolveApplies } from '@/lib/registers/driver-applies';
@@ -51,6 +51,8 @@ export function crossCheck(
     }
   }
   const activityCodes = new Set(next.activities.map((a) => a.code));
+  // A branch's existence can be correlated like a risk.
+  for (const a of next.activities) if (a.existence !== null) owner.set(existenceInput(a.code), 'activities');
 
   if (touched.has('items') || touched.has('activities')) {
     for (const row of next.items) {
@@ -76,7 +78,7 @@ export function crossCheck(
       next.activities.map((a) => ({
         id: a.code,
         duration: { type: 'fixed', value: 0 },
-        predecessors: a.predecessors.map((p) => ({ id: p.code, lag: p.lag })),
+        predecessors: a.predecessors.map((p) => ({ id: p.code, type: p.type, lag: p.lag })),
       })),
     );
     for (const p of problems) {

@@ -4,6 +4,7 @@ import 'server-only';
 // its activities and cost lines by code, as an activity names its predecessors.
 
 import type { Activity, Correlation, CostItem, RiskDriver, RiskEvent } from '@/models';
+import type { PredecessorLink } from '@/lib/registers/predecessors';
 import { partsFromSpec, specFromParts, type DistParts } from '@/lib/registers/dist-fields';
 import type { DistSpec } from '@/lib/sim';
 import {
@@ -209,10 +210,12 @@ export function activityRow(r: Activity): ActivityRow {
     code: r.code,
     name: r.name,
     ...cells(json(r.duration)),
-    predecessors: (json<{ code: string; lag?: number }[] | null>(r.predecessors) ?? []).map((p) => ({
-      code: p.code,
-      lag: p.lag ?? 0,
-    })),
+    predecessors: (json<PredecessorLink[] | null>(r.predecessors) ?? []).map((p) =>
+      p.type && p.type !== 'FS'
+        ? { code: p.code, type: p.type, lag: p.lag ?? 0 }
+        : { code: p.code, lag: p.lag ?? 0 },
+    ),
+    existence: r.existence ?? null,
   } as ActivityRow;
 }
 
@@ -221,7 +224,10 @@ export function activityAttributes(d: ActivityData) {
     code: d.code,
     name: d.name,
     duration: specOf({ ...d, type: d.distType }),
-    predecessors: d.predecessors.map((p) => ({ code: p.code, lag: p.lag })),
+    predecessors: d.predecessors.map((p) =>
+      p.type && p.type !== 'FS' ? { code: p.code, type: p.type, lag: p.lag } : { code: p.code, lag: p.lag },
+    ),
+    existence: d.existence,
   };
 }
 

@@ -14,6 +14,7 @@ export {
 } from './runs';
 export { compareRuns, type RunComparison } from './compare';
 export { allocationFile } from './allocation-file';
+export { latestCriticality, type LatestCriticality } from './latest-criticality';
 export { recoverInterruptedRuns, INTERRUPTED_REASON } from './recover';
 export type { RunView } from './view';
 export type { RunSample } from './sample';

@@ -11,7 +11,8 @@
  *   4. line items × their drivers' factors, added to the cost;
  *   5. risks, from one uniform u each: occurrence u > 1 − p, size F⁻¹((u − (1 − p))/p); cost
  *      added, delay lengthening (or, negative, shortening) each of its activities; before and
- *      after mitigation from the same u, the response's cost in the post total;
+ *      after mitigation from the same u, the response's cost in the post total; then the
+ *      probabilistic branches, each from its own uniform as a risk: 0 days where it is absent;
  *   6. schedule passes: project duration and criticality counts (headline scenario);
  *   7. time-dependent items: rate × sampled duration of the activity, or of the project;
  *   8. tornado grades (16-bit) as each input passes, the swing sums, and the sums behind the
@@ -282,6 +283,11 @@ function occurrenceGrades(u: Float64Array, p: number, mask: Uint8Array, w: Float
       w[i] = 0.5;
     }
   }
+}
+
+/** x[i] = 0 where mask is 0. */
+function keepWhere(x: Float64Array, mask: Uint8Array, n: number): void {
+  for (let i = 0; i < n; i++) if (!mask[i]) x[i] = 0;
 }
 
 /** out[i] = x[i] where mask, else 1. */
@@ -597,6 +603,17 @@ export function simulateBlock(
       clampAtZero(ws.durationColumn[a], n);
       if (hasPost) clampAtZero(ws.postDurationColumn[a], n);
     }
+  }
+
+  // 5b. Probabilistic branches: where an activity does not happen, its duration (delays
+  // included) is 0, and so are its time-dependent costs; its links still pass through.
+  for (let a = 0; a < acts; a++) {
+    const { existence, vExists } = plan.activities[a];
+    if (existence >= 1) continue;
+    if (vExists < 0) occurred.fill(0, 0, n);
+    else occurrenceGrades(uniforms(vExists, ws.free), existence, occurred, sizes, n);
+    keepWhere(ws.durationColumn[a], occurred, n);
+    if (hasPost) keepWhere(ws.postDurationColumn[a], occurred, n);
   }
 
   // 6. Schedule: criticality counts in the headline scenario.

@@ -10,6 +10,7 @@ import { createDistribution, type Distribution } from './distributions';
 import { baseDurationOf, baseOf } from './distributions/base';
 import { createFixed } from './distributions/fixed';
 import { finishOf } from './schedule/base-finish';
+import { existenceInput } from './schedule/branches';
 import { buildNetwork, type Network } from './schedule/network';
 import { streamIdsFor } from './random/stream-ids';
 import type { DistSpec, InputKind, Model } from './formats';
@@ -41,6 +42,13 @@ export interface ActivityPlan {
   dist: Distribution;
   v: number;
   drivers: Int32Array;
+  /** Probability that it happens (a probabilistic branch; 1 for an ordinary activity). */
+  existence: number;
+  /**
+   * Column of its existence uniform u (it happens when u > 1 − existence, as a risk occurs),
+   * −1 when existence is 0 or 1.
+   */
+  vExists: number;
 }
 
 /** A risk's probability and impacts in one scenario (before or after mitigation). */
@@ -172,10 +180,18 @@ export function compileModel(model: Model): Plan {
     }
     const v = newColumn(a.id, dist.degenerate);
     inputColumn.set(a.id, v);
-    return { id: a.id, dist, v, drivers: driverList(a.id) };
+    const existence = a.existence ?? 1;
+    const vExists = newColumn(existenceInput(a.id), existence <= 0 || existence >= 1);
+    inputColumn.set(existenceInput(a.id), vExists);
+    if (existence === 0) warnings.push(`${a.id}: existence 0, so the activity never happens (0 days).`);
+    return { id: a.id, dist, v, drivers: driverList(a.id), existence, vExists };
   });
 
-  const baseDurations = new Float64Array(activities.map((a) => baseDurationOf(a.dist)));
+  // A probabilistic branch is left out of the base, as risk events are: the base is the plan
+  // without the events that may or may not happen.
+  const baseDurations = new Float64Array(
+    activities.map((a) => (a.existence < 1 ? 0 : baseDurationOf(a.dist))),
+  );
   const network = activitiesIn.length ? buildNetwork(activitiesIn) : null;
   let durationBase: number | null = null;
   if (network) durationBase = finishOf(network, baseDurations);

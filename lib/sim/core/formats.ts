@@ -67,13 +67,26 @@ export interface ModelDriver {
   applies: string[];
 }
 
-export type Predecessor = string | { id: string; lag?: number };
+/**
+ * A link's type: FS (default) the successor starts at least lag after the predecessor finishes;
+ * SS it starts at least lag after the predecessor starts; FF it finishes at least lag after the
+ * predecessor finishes; SF it finishes at least lag after the predecessor starts.
+ */
+export type LinkType = 'FS' | 'SS' | 'FF' | 'SF';
+
+/** A plain id is finish-to-start with no lag; a negative lag is a lead. */
+export type Predecessor = string | { id: string; type?: LinkType; lag?: number };
 
 export interface ModelActivity {
   id: string;
   name?: string;
   duration: DistSpec;
   predecessors?: Predecessor[];
+  /**
+   * Probabilistic branch: the probability that the activity happens (default 1). Where it does
+   * not, its duration and its time-dependent costs are zero and its links pass through.
+   */
+  existence?: number;
 }
 
 export interface ModelCorrelation {

@@ -3,6 +3,7 @@
 // entry at fault inside the model so the message can name it.
 
 import { createDistribution } from './distributions';
+import { existenceInput } from './schedule/branches';
 import { checkNetwork } from './schedule/network';
 import type { Model } from './formats';
 
@@ -32,6 +33,14 @@ export function checkModel(model: Model): ModelProblem[] {
     });
   }
   const activityIds = new Set((model.activities ?? []).map((a) => a.id));
+  // A probabilistic branch's existence can be correlated like a risk, by the name "A5 (existence)".
+  (model.activities ?? []).forEach((a, i) => {
+    if (a.existence === undefined) return;
+    const name = existenceInput(a.id);
+    if (owner.has(name))
+      add(['activities', i, 'existence'], `"${name}" is also the id of ${owner.get(name)}`);
+    else owner.set(name, `activities[${i}].existence`);
+  });
   const itemIds = new Set(model.items.map((c) => c.id));
 
   model.items.forEach((item, i) => {

@@ -121,7 +121,11 @@ const driverSchema = z.strictObject({
 
 const predecessorSchema = z.union([
   id,
-  z.strictObject({ id, lag: num.min(-MAX_DAYS).max(MAX_DAYS).optional() }),
+  z.strictObject({
+    id,
+    type: z.enum(['FS', 'SS', 'FF', 'SF']).optional(),
+    lag: num.min(-MAX_DAYS).max(MAX_DAYS).optional(),
+  }),
 ]);
 
 const activitySchema = z.strictObject({
@@ -129,6 +133,7 @@ const activitySchema = z.strictObject({
   name: z.string().optional(),
   duration: daysSchema,
   predecessors: z.array(predecessorSchema).optional(),
+  existence: probability.optional(),
 });
 
 const correlationSchema = z.strictObject({ a: id, b: id, rho: num.min(-1).max(1) });

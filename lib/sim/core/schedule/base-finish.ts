@@ -1,6 +1,7 @@
 /**
  * The project's base duration: the latest finish of the network with every activity at its base
- * duration (floored at 0 days), by the same forward pass the simulation runs. A line paid per
+ * duration (floored at 0 days), by the same forward pass the simulation runs. A probabilistic
+ * branch (existence below 1) is left out of the base, as risk events are. A line paid per
  * project day has this many days in the base estimate. Null for a model without activities, or
  * a network the checks refuse (unknown predecessor, cycle).
  */
@@ -14,7 +15,7 @@ export function baseFinishOf(activities: readonly ModelActivity[]): number | nul
   if (activities.length === 0 || checkNetwork([...activities]).length > 0) return null;
   return finishOf(
     buildNetwork([...activities]),
-    new Float64Array(activities.map((a) => baseDurationOf(a.duration))),
+    new Float64Array(activities.map((a) => ((a.existence ?? 1) < 1 ? 0 : baseDurationOf(a.duration)))),
   );
 }
 

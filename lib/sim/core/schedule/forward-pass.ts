@@ -1,22 +1,30 @@
 /**
  * Forward and backward passes of the critical path method over one block of iterations,
- * vectorised over the iterations: activity by activity in topological order,
+ * vectorised over the iterations: activity by activity in topological order. The precedence
+ * diagramming method's forward-pass rules, for a link p → a with lag L (negative: a lead) and
+ * durations d:
  *
- *   start_a = max(0, max_{p ∈ pred(a)} finish_p + lag_pa),   finish_a = start_a + duration_a,
- *   project duration T = max_a finish_a  (over every activity, so negative lags are safe);
+ *   FS: ES_a ≥ EF_p + L        SS: ES_a ≥ ES_p + L
+ *   FF: EF_a ≥ EF_p + L        SF: EF_a ≥ ES_p + L
  *
- * then in reverse order, late finishes from T:
+ *   ES_a = max(0, every bound above, the finish bounds less d_a),   EF_a = ES_a + d_a,
+ *   project duration T = max_a EF_a  (over every activity, so leads and SS/FF links are safe);
  *
- *   LF_a = min(T, min_{s ∈ succ(a)} LF_s − duration_s − lag_as),   total float_a = LF_a − finish_a.
+ * then in reverse order, late finishes from T (the same rules turned round):
  *
- * An activity is critical in an iteration when its total float is zero (within 1e-9 of T), so
- * every tied path counts and the order of predecessors does not matter. Criticality index: the
- * share of iterations in which it is critical.
+ *   FS: LF_p ≤ LS_a − L        SS: LF_p ≤ LS_a − L + d_p
+ *   FF: LF_p ≤ LF_a − L        SF: LF_p ≤ LF_a − L + d_p,     LF_p ≤ T,  LS_a = LF_a − d_a,
+ *
+ * total float_a = LF_a − EF_a. An activity is critical in an iteration when its total float is
+ * zero (within 1e-9 of T), so every tied path counts and the order of predecessors does not
+ * matter. Criticality index: the share of iterations in which it is critical.
  * Kelley & Walker (1959), "Critical-path planning and scheduling", Proc. Eastern Joint Computer
- * Conference, pp. 160–173; the criticality index: Van Slyke (1963), Operations Research 11(5):839–860.
+ * Conference, pp. 160–173; precedence diagramming: Fondahl (1961), "A non-computer approach to
+ * the critical path method for the construction industry", Stanford University Technical Report
+ * 9; the criticality index: Van Slyke (1963), Operations Research 11(5):839–860.
  */
 
-import type { Network } from './network';
+import { LINK, type Network } from './network';
 
 /** Relative tolerance of "zero total float". */
 export const FLOAT_TOLERANCE = 1e-9;
@@ -28,15 +36,23 @@ export interface ForwardPassBuffers {
   finish: Float64Array;
   /** Late finish, same layout. */
   late: Float64Array;
+  /** Per iteration, the float below which an activity counts as critical. */
+  tolerance: Float64Array;
 }
 
 export function allocateForwardPass(size: number, stride: number): ForwardPassBuffers {
-  return { stride, finish: new Float64Array(size * stride), late: new Float64Array(size * stride) };
+  return {
+    stride,
+    finish: new Float64Array(size * stride),
+    late: new Float64Array(size * stride),
+    tolerance: new Float64Array(stride),
+  };
 }
 
 /**
  * duration[a·stride + i], i < n → total[i] (project duration) and critical[a] += iterations in
  * which a is critical; with critical null, the project duration alone (no backward pass).
+ * Finish-to-start networks (the common case) take a route without the link-type tests.
  */
 export function forwardPass(
   net: Network,
@@ -46,20 +62,100 @@ export function forwardPass(
   total: Float64Array,
   critical: Int32Array | null,
 ): void {
-  const { finish, late, stride } = buf;
-  const { order, predStart, predIndex, predLag } = net;
   total.fill(-Infinity, 0, n);
+  if (net.mixedLinks) forwardMixed(net, duration, n, buf, total);
+  else forwardFinishToStart(net, duration, n, buf, total);
+  if (!critical) return;
+  const { tolerance } = buf;
+  for (let i = 0; i < n; i++) tolerance[i] = FLOAT_TOLERANCE * Math.max(1, Math.abs(total[i]));
+  backward(net, duration, n, buf, total, critical);
+}
+
+/**
+ * The forward pass of a finish-to-start network. Loops fused by the number of predecessors: the
+ * first link writes the start bound (at least 0), the last one also adds the duration and keeps
+ * T, so an activity with one predecessor takes one loop.
+ */
+function forwardFinishToStart(
+  net: Network,
+  duration: Float64Array,
+  n: number,
+  buf: ForwardPassBuffers,
+  total: Float64Array,
+): void {
+  const { finish, stride } = buf;
+  const { order, predStart, predIndex, predLag } = net;
   for (let k = 0; k < net.size; k++) {
     const a = order[k];
     const base = a * stride;
     const s = predStart[a];
     const e = predStart[a + 1];
-    for (let i = 0; i < n; i++) finish[base + i] = 0;
-    for (let j = s; j < e; j++) {
-      const pb = predIndex[j] * stride;
-      const lag = predLag[j];
+    if (s === e) {
+      for (let i = 0; i < n; i++) {
+        const f = duration[base + i];
+        finish[base + i] = f;
+        if (f > total[i]) total[i] = f;
+      }
+      continue;
+    }
+    if (e - s > 1) {
+      const pb = predIndex[s] * stride;
+      const lag = predLag[s];
       for (let i = 0; i < n; i++) {
         const c = finish[pb + i] + lag;
+        finish[base + i] = c > 0 ? c : 0;
+      }
+      for (let j = s + 1; j < e - 1; j++) {
+        const qb = predIndex[j] * stride;
+        const lj = predLag[j];
+        for (let i = 0; i < n; i++) {
+          const c = finish[qb + i] + lj;
+          if (c > finish[base + i]) finish[base + i] = c;
+        }
+      }
+    }
+    const pb = predIndex[e - 1] * stride;
+    const lag = predLag[e - 1];
+    const only = e - s === 1;
+    for (let i = 0; i < n; i++) {
+      const c = finish[pb + i] + lag;
+      const bound = only ? 0 : finish[base + i];
+      const f = (c > bound ? c : bound) + duration[base + i];
+      finish[base + i] = f;
+      if (f > total[i]) total[i] = f;
+    }
+  }
+}
+
+/**
+ * The forward pass with every link type. While an activity's links are read, finish[a] holds the
+ * bound on its start (0 first: nothing starts before time 0); a predecessor's start is
+ * EF_p − d_p, and a bound on the finish becomes one on the start by taking d_a off.
+ */
+function forwardMixed(
+  net: Network,
+  duration: Float64Array,
+  n: number,
+  buf: ForwardPassBuffers,
+  total: Float64Array,
+) {
+  const { finish, stride } = buf;
+  const { order, predStart, predIndex, predLag, predType } = net;
+  for (let k = 0; k < net.size; k++) {
+    const a = order[k];
+    const base = a * stride;
+    for (let i = 0; i < n; i++) finish[base + i] = 0;
+    for (let j = predStart[a]; j < predStart[a + 1]; j++) {
+      const pb = predIndex[j] * stride;
+      const lag = predLag[j];
+      const type = predType[j];
+      // Which of the predecessor's dates the bound starts from, and which of a's it bounds.
+      const fromStart = type === LINK.SS || type === LINK.SF;
+      const onFinish = type === LINK.FF || type === LINK.SF;
+      for (let i = 0; i < n; i++) {
+        let c = finish[pb + i] + lag;
+        if (fromStart) c -= duration[pb + i];
+        if (onFinish) c -= duration[base + i];
         if (c > finish[base + i]) finish[base + i] = c;
       }
     }
@@ -69,27 +165,59 @@ export function forwardPass(
       if (f > total[i]) total[i] = f;
     }
   }
-  if (!critical) return;
-  // Backward pass.
-  for (let a = 0; a < net.size; a++) late.set(total.subarray(0, n), a * stride);
+}
+
+/**
+ * The backward pass, any link type (LF_p from LS_a for FS and SS, from LF_a for FF and SF; see
+ * above), counting each activity's critical iterations as soon as its late finish is final (its
+ * successors all come later in the order). An activity's late finish starts at T: written by
+ * its first successor's link in this order (Network.firstLink), or by itself when it has none.
+ */
+function backward(
+  net: Network,
+  duration: Float64Array,
+  n: number,
+  buf: ForwardPassBuffers,
+  total: Float64Array,
+  critical: Int32Array,
+): void {
+  const { late, finish, tolerance, stride } = buf;
+  const { order, predStart, predIndex, predLag, predType, firstLink, isSink } = net;
   for (let k = net.size - 1; k >= 0; k--) {
     const a = order[k];
     const base = a * stride;
+    if (isSink[a]) late.set(total.subarray(0, n), base);
+    let count = 0;
+    for (let i = 0; i < n; i++) if (late[base + i] - finish[base + i] <= tolerance[i]) count++;
+    critical[a] += count;
     for (let j = predStart[a]; j < predStart[a + 1]; j++) {
       const pb = predIndex[j] * stride;
+      const type = predType[j];
+      // The bound on LF_p is LF_a − lag − shift, where shift = d_a (from a's start) − d_p (to p's start).
       const lag = predLag[j];
+      if (type === LINK.FS) {
+        if (firstLink[j]) {
+          for (let i = 0; i < n; i++) {
+            const c = late[base + i] - duration[base + i] - lag;
+            late[pb + i] = c < total[i] ? c : total[i];
+          }
+        } else {
+          for (let i = 0; i < n; i++) {
+            const c = late[base + i] - duration[base + i] - lag;
+            if (c < late[pb + i]) late[pb + i] = c;
+          }
+        }
+        continue;
+      }
+      const fromSuccessorStart = type === LINK.SS;
+      const toPredecessorStart = type === LINK.SS || type === LINK.SF;
+      if (firstLink[j]) late.set(total.subarray(0, n), pb);
       for (let i = 0; i < n; i++) {
-        const c = late[base + i] - duration[base + i] - lag;
+        let c = late[base + i] - lag;
+        if (fromSuccessorStart) c -= duration[base + i];
+        if (toPredecessorStart) c += duration[pb + i];
         if (c < late[pb + i]) late[pb + i] = c;
       }
     }
-  }
-  for (let a = 0; a < net.size; a++) {
-    const base = a * stride;
-    let count = 0;
-    for (let i = 0; i < n; i++) {
-      if (late[base + i] - finish[base + i] <= FLOAT_TOLERANCE * Math.max(1, Math.abs(total[i]))) count++;
-    }
-    critical[a] += count;
   }
 }

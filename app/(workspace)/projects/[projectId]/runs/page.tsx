@@ -2,6 +2,7 @@ import { randomInt } from 'node:crypto';
 import { can } from '@/lib/auth/roles';
 import { listRuns } from '@/lib/services/runs';
 import { exportModelFile } from '@/lib/services/model-file';
+import { scheduleHealthOfModel } from '@/lib/services/schedule-health';
 import { MAX_SEED } from '@/lib/validation/runs';
 import { Card } from '@/components/ui/card';
 import { ModelNotices } from '@/components/runs/model-notices';
@@ -18,6 +19,7 @@ export default async function RunsPage({ params }: { params: Promise<{ projectId
     listRuns(actor, project.id),
     mayStart ? exportModelFile(actor, project.id) : null,
   ]);
+  const health = model ? scheduleHealthOfModel(model.model) : null;
   return (
     <div className="space-y-5">
       <h1 className="text-xl font-semibold">Runs</h1>
@@ -33,6 +35,7 @@ export default async function RunsPage({ params }: { params: Promise<{ projectId
             initialSeed={randomInt(1, MAX_SEED + 1)}
             baseDate={project.baseDate}
             currency={project.currency}
+            health={health}
           />
         </Card>
       ) : (
