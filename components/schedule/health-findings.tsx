@@ -1,18 +1,6 @@
 // The schedule's health check (lib/domain/schedule-health) as a list of findings, each naming its
 // activities. Findings never stop a run: the words say so.
-import type { HealthFinding, HealthRule } from '@/lib/domain/schedule-health';
-
-const TITLES: Record<HealthRule, string> = {
-  'open-start': 'Open start',
-  'open-finish': 'Open finish',
-  'dangling-start': 'Dangling start',
-  'dangling-finish': 'Dangling finish',
-  lead: 'Lead',
-  'long-lag': 'Long lag',
-  'long-activity': 'Long activity',
-  'degenerate-critical': 'No range on the critical path',
-  'no-uncertainty': 'Activities without uncertainty',
-};
+import { HEALTH_RULE_TITLES, type HealthFinding } from '@/lib/domain/schedule-health';
 
 export function HealthFindings({
   findings,
@@ -21,11 +9,15 @@ export function HealthFindings({
 }: {
   findings: HealthFinding[];
   activityCount: number;
-  /** Where it is shown: the schedule tab, or the run form (where the run can still start). */
-  context: 'schedule' | 'run';
+  /** Where it is shown: the schedule tab, the run form (where the run can still start), or a run's brief. */
+  context: 'schedule' | 'run' | 'brief';
 }) {
   const heading =
-    context === 'run' ? "The schedule's health check before this run" : 'Health check of the network';
+    context === 'run'
+      ? "The schedule's health check before this run"
+      : context === 'brief'
+        ? 'Health check of the network this run read'
+        : 'Health check of the network';
   if (activityCount === 0) return null;
   return (
     <section
@@ -46,7 +38,7 @@ export function HealthFindings({
         <ul className="mt-1 space-y-0.5">
           {findings.map((f) => (
             <li key={f.rule} data-rule={f.rule}>
-              <span className="font-medium">{TITLES[f.rule]}:</span> {f.message}
+              <span className="font-medium">{HEALTH_RULE_TITLES[f.rule]}:</span> {f.message}
             </li>
           ))}
         </ul>
@@ -54,7 +46,9 @@ export function HealthFindings({
       <p className="mt-1 text-xs text-ink-soft">
         {context === 'run'
           ? 'The run can go ahead with these findings; its results are only as sound as the network.'
-          : 'Common checks of schedule logic; a run can go ahead with findings, but its results are only as sound as the network.'}
+          : context === 'brief'
+            ? 'Common checks of schedule logic, on the network as the run read it; the finish figures are only as sound as that network.'
+            : 'Common checks of schedule logic; a run can go ahead with findings, but its results are only as sound as the network.'}
       </p>
     </section>
   );

@@ -6,6 +6,7 @@ import { checkAgainstClass, isEstimateClass, type ClassCheck } from '@/lib/domai
 import { finishDate, MONDAY_TO_FRIDAY, type WorkCalendar } from '@/lib/runs/working-days';
 import { allocationByTopWbs, type AllocationBrief } from './allocation';
 import { finishBrief, type FinishBrief } from './finish';
+import { scheduleHealth, type HealthFinding } from '@/lib/domain/schedule-health';
 import { topRiskExposures, type RiskExposure } from './risk-exposure';
 import { scenarioBrief, type Scenario, type ScenarioBrief } from './scenario';
 import { percentileCurve, topDrivers, type Point } from '@/lib/runs/outcome-data';
@@ -101,6 +102,8 @@ export type BriefData = {
   allocation: AllocationBrief | null;
   topRisks: RiskExposure[];
   classCheck: ClassCheck | null;
+  /** The schedule health check of the network the run read (empty without a schedule). */
+  scheduleHealth: { findings: HealthFinding[]; activityCount: number };
   engineWarnings: string[];
   decision: DecisionBrief | null;
   sentForDecision: { at: string; byName: string } | null;
@@ -213,6 +216,10 @@ export function buildBrief(source: BriefSource, { drivers = 10, risks = 8 } = {}
     allocation: result.allocation ? allocationByTopWbs(result.allocation, snapshot) : null,
     topRisks: topRiskExposures(snapshot, risks),
     classCheck,
+    scheduleHealth: {
+      findings: scheduleHealth(snapshot.activities ?? []),
+      activityCount: (snapshot.activities ?? []).length,
+    },
     engineWarnings: result.warnings ?? [],
     decision: source.decision ?? null,
     sentForDecision: source.sentForDecision ?? null,

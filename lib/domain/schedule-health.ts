@@ -39,6 +39,19 @@ export interface HealthFinding {
   activities: string[];
 }
 
+/** Each rule's title, as the schedule tab, the run form and the brief show it. */
+export const HEALTH_RULE_TITLES: Record<HealthRule, string> = {
+  'open-start': 'Open start',
+  'open-finish': 'Open finish',
+  'dangling-start': 'Dangling start',
+  'dangling-finish': 'Dangling finish',
+  lead: 'Lead',
+  'long-lag': 'Long lag',
+  'long-activity': 'Long activity',
+  'degenerate-critical': 'No range on the critical path',
+  'no-uncertainty': 'Activities without uncertainty',
+};
+
 type Link = { from: string; to: string; type: 'FS' | 'SS' | 'FF' | 'SF'; lag: number };
 
 function linksOf(activities: readonly ModelActivity[]): Link[] {

@@ -126,3 +126,38 @@ describe('the brief headline', () => {
     expect(none).toContain('The run was given neither a cost target nor a finish target.');
   });
 });
+
+describe('the brief on the run’s calendar and network', () => {
+  it('counts finish dates on the calendar stored with the run', () => {
+    // 260 working days from Monday 4 Jan 2027 end on Friday 31 Dec 2027 (52 five-day weeks); with
+    // 31 Dec a holiday the 260th working day is Monday 3 Jan 2028 (counted by hand).
+    const plain = buildBrief(source({}));
+    expect(plain.finish?.p80.date).toBe('2027-12-31');
+    const withHoliday = source({});
+    withHoliday.run.calendar = { weekdays: [1, 2, 3, 4, 5], holidays: ['2027-12-31'] };
+    expect(buildBrief(withHoliday).finish?.p80.date).toBe('2028-01-03');
+  });
+
+  it('lists the schedule health findings of the network the run read', () => {
+    const withLead = source({});
+    withLead.snapshot.activities = [
+      {
+        id: 'A1',
+        name: 'Dig',
+        duration: { type: 'triangular', low: 10, mode: 12, high: 16 },
+        predecessors: [],
+      },
+      {
+        id: 'A2',
+        name: 'Pour',
+        duration: { type: 'triangular', low: 5, mode: 6, high: 9 },
+        predecessors: [{ id: 'A1', type: 'FS', lag: -2 }],
+      },
+    ];
+    const health = buildBrief(withLead).scheduleHealth;
+    expect(health.activityCount).toBe(2);
+    // A negative lag is a lead (common practice in schedule assessment: leads are flagged).
+    expect(health.findings.map((f) => f.rule)).toContain('lead');
+    expect(health.findings.find((f) => f.rule === 'lead')?.activities).toEqual(['A1', 'A2']);
+  });
+});

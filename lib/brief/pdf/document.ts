@@ -3,6 +3,7 @@
  * to ship). Charts are vector drawings from the same data as the page. Fits A4 and US Letter:
  * every width is taken from the page.
  */
+import { HEALTH_RULE_TITLES } from '@/lib/domain/schedule-health';
 import PDFDocument from 'pdfkit';
 import { formatDate, formatDays, formatMoney, formatMoneyShort, formatShare } from '@/lib/runs/format';
 import { calendarText, finishDate } from '@/lib/runs/working-days';
@@ -314,6 +315,21 @@ function finishSection(w: Writer, brief: BriefData) {
   w.y += 148;
 }
 
+function scheduleHealthSection(w: Writer, brief: BriefData) {
+  const { findings, activityCount } = brief.scheduleHealth;
+  if (activityCount === 0) return;
+  w.heading('Health check of the network this run read');
+  if (findings.length === 0) {
+    w.paragraph('No findings.', { size: 8, colour: C.soft });
+    return;
+  }
+  for (const f of findings) w.paragraph(`${HEALTH_RULE_TITLES[f.rule]}: ${f.message}`, { size: 8 });
+  w.paragraph(
+    'Common checks of schedule logic, on the network as the run read it; the finish figures are only as sound as that network.',
+    { size: 7.5, colour: C.faint },
+  );
+}
+
 function classCheck(w: Writer, brief: BriefData) {
   const check = brief.classCheck!;
   const { narrowest, widest } = classBandsText(check);
@@ -421,6 +437,7 @@ export async function renderBriefPdf(
 
   if (brief.classCheck) classCheck(w, brief);
   finishSection(w, brief);
+  scheduleHealthSection(w, brief);
 
   w.heading('Cost S-curve', 190);
   w.paragraph(

@@ -15,6 +15,7 @@ import { Notice, ResultCautions } from '@/components/ui/notice';
 import { AllocationTable } from '@/components/brief/allocation-table';
 import { ClassCheckPanel } from '@/components/brief/class-check';
 import { FinishSection } from '@/components/brief/finish-section';
+import { HealthFindings } from '@/components/schedule/health-findings';
 import { ScenarioPanel } from '@/components/brief/scenario-panel';
 import { DecisionPanel } from '@/components/brief/decision-panel';
 import { DecisionRecord } from '@/components/brief/decision-record';
@@ -194,6 +195,11 @@ export default async function BriefPage({ params }: { params: RunParams }) {
       {brief.finish ? (
         <Section title="Finish dates">
           <FinishSection brief={brief} />
+          <HealthFindings
+            findings={brief.scheduleHealth.findings}
+            activityCount={brief.scheduleHealth.activityCount}
+            context="brief"
+          />
         </Section>
       ) : null}
 
