@@ -1,7 +1,8 @@
 'use client';
 // One register's grid: AG Grid (community) with our own editing loop. Edits, pastes and undo
 // all become `onChange` calls; the grid never edits its data itself (readOnlyEdit), so what is
-// shown is always what the register holds, drafts included.
+// shown is always what the register holds, drafts included. A Delete is the grid's own "clear
+// the cell" edit request, so one key press is one change and one save.
 
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { AgGridReact } from 'ag-grid-react';
@@ -10,14 +11,15 @@ import {
   ModuleRegistry,
   type CellEditRequestEvent,
   type CellFocusedEvent,
-  type CellKeyDownEvent,
   type ColDef,
   type GridApi,
   type GridReadyEvent,
+  type RowClassParams,
 } from 'ag-grid-community';
 import { outturnGridTheme } from './theme';
-import { cellText, parseCell, type RegisterColumn } from './columns';
-import { parseClipboardBlock } from './clipboard';
+import { cellText, copyText, matchOption, parseCell, type RegisterColumn } from './columns';
+import { formatClipboardBlock, parseClipboardBlock } from './clipboard';
+import { blockBetween, inBlock, isMulti, type Block, type CellAt } from './cell-block';
 import { UndoStack, type CellChange } from './undo-stack';
 import type { GridRow } from './use-register-rows';
 
@@ -36,12 +38,31 @@ type Props = {
   onSelectionChange?: (keys: string[]) => void;
   onFocusRow?: (key: string | null) => void;
   totalRow?: Record<string, unknown>;
+  /** What the grid says when the register has no rows. */
+  emptyText?: string;
   height?: number;
   onReady?: (api: GridApi) => void;
 };
 
 const editable = (col: RegisterColumn, row: GridRow | undefined) =>
   col.kind !== 'computed' && (!col.applies || (row ? col.applies(row) : true));
+
+const isFigure = (col: RegisterColumn) =>
+  col.kind === 'number' || col.kind === 'percent' || col.kind === 'computed';
+
+/** Columns narrower than this are sized to their content; wider ones (names, notes) keep their width. */
+const FIT_BELOW = 150;
+
+/**
+ * The narrowest a column may get with its header wrapped between words, never inside one
+ * (12 px semibold header text: about 7.5 px a character, plus the cell's padding).
+ */
+function headerMinWidth(header: string): number {
+  const longest = Math.max(...header.split(/[\s/]+/).map((w) => w.length));
+  return Math.max(56, Math.ceil(longest * 7.5 + 24));
+}
+
+const same = (a: unknown, b: unknown) => JSON.stringify(a ?? null) === JSON.stringify(b ?? null);
 
 export function RegisterGrid({
   label,
@@ -53,6 +74,7 @@ export function RegisterGrid({
   onSelectionChange,
   onFocusRow,
   totalRow,
+  emptyText,
   height = 560,
   onReady,
 }: Props) {
@@ -65,43 +87,75 @@ export function RegisterGrid({
   }, [rows]);
   const byField = useMemo(() => new Map(columns.map((c) => [c.field, c])), [columns]);
 
+  // The marked block: Shift held while a cell takes the focus extends it from the anchor.
+  const anchor = useRef<CellAt | null>(null);
+  const block = useRef<Block | null>(null);
+  const extending = useRef(false);
+
   const change = useCallback(
     (cells: CellChange[], record = true) => {
-      if (!cells.length) return;
-      if (record) undo.current.record(cells);
+      const real = cells.filter((c) => !same(c.before, c.after));
+      if (!real.length) return;
+      if (record) undo.current.record(real);
       const grouped = new Map<string, Record<string, unknown>>();
-      for (const c of cells) grouped.set(c.key, { ...(grouped.get(c.key) ?? {}), [c.field]: c.after });
+      for (const c of real) grouped.set(c.key, { ...(grouped.get(c.key) ?? {}), [c.field]: c.after });
       onChange([...grouped].map(([key, values]) => ({ key, values })));
     },
     [onChange],
   );
 
+  /** The displayed columns that are register columns (not the selection checkboxes), left to right. */
+  const displayedColumns = useCallback(
+    (api: GridApi<GridRow>) => {
+      return api
+        .getAllDisplayedColumns()
+        .map((c) => byField.get(c.getColId()))
+        .filter(Boolean) as RegisterColumn[];
+    },
+    [byField],
+  );
+
   const colDefs = useMemo<ColDef<GridRow>[]>(() => {
-    const defs: ColDef<GridRow>[] = columns.map((col) => ({
+    return columns.map((col) => ({
       colId: col.field,
       headerName: col.header,
       headerTooltip: col.headerTooltip ?? col.header,
-      width: col.width ?? 110,
-      pinned: col.pinned,
+      width: Math.max(col.width ?? 110, headerMinWidth(col.header)),
+      minWidth: headerMinWidth(col.header),
+      pinned: col.pinned === undefined ? (col.kind === 'computed' ? 'right' : undefined) : col.pinned,
       sortable: false,
       suppressMovable: true,
+      wrapHeaderText: true,
+      autoHeaderHeight: true,
+      headerClass: isFigure(col) ? 'ag-right-aligned-header' : undefined,
       // Pinned (total) rows carry their figures in the fields themselves.
       valueGetter: (p) =>
         p.data ? (col.value && !p.node?.rowPinned ? col.value(p.data) : p.data[col.field]) : undefined,
       valueFormatter: (p) => (p.data ? cellText(col, p.value, p.data) : ''),
       editable: (p) => !readOnly && !p.node.rowPinned && editable(col, p.data),
-      cellEditor: col.kind === 'choice' ? 'agSelectCellEditor' : 'agTextCellEditor',
-      cellEditorParams:
-        col.kind === 'choice' ? { values: (col.options ?? []).map((o) => o.label) } : { useFormatter: true },
-      type:
-        col.kind === 'number' || col.kind === 'percent' || col.kind === 'computed'
-          ? 'rightAligned'
+      // A drop-down cell opens its list on Enter, F2 or a double click; a typed letter starts a
+      // text editor instead, and what is typed picks the matching option.
+      cellEditorSelector:
+        col.kind === 'choice'
+          ? (p) =>
+              p.eventKey && p.eventKey.length === 1
+                ? { component: 'agTextCellEditor' }
+                : {
+                    component: 'agSelectCellEditor',
+                    params: { values: (col.options ?? []).map((o) => o.label) },
+                  }
           : undefined,
+      cellEditor: col.kind === 'choice' ? undefined : 'agTextCellEditor',
+      cellEditorParams: col.kind === 'choice' ? undefined : { useFormatter: true },
       cellClass: (p) => {
         const row = p.data;
-        if (!row || p.node.rowPinned) return 'font-semibold';
-        const classes: string[] = [];
-        if (col.kind === 'number' || col.kind === 'percent' || col.kind === 'computed') classes.push('num');
+        const classes: string[] = isFigure(col) ? ['num'] : [];
+        if (!row || p.node.rowPinned) return [...classes, 'font-semibold'].join(' ');
+        if (
+          isMulti(block.current) &&
+          inBlock(block.current, p.node.rowIndex ?? -1, p.api.getAllDisplayedColumns().indexOf(p.column))
+        )
+          classes.push('cell-in-block');
         if (row._issues[col.field]) classes.push('cell-invalid bg-invalid-light text-invalid');
         else if (row._mine && col.field in row._mine && row._mine[col.field] !== row[col.field])
           classes.push('bg-caution-light');
@@ -124,7 +178,6 @@ export function RegisterGrid({
         return undefined;
       },
     }));
-    return defs;
   }, [columns, readOnly]);
 
   const onCellEditRequest = useCallback(
@@ -132,25 +185,49 @@ export function RegisterGrid({
       const col = byField.get(e.colDef.colId ?? '');
       if (!col || !e.data) return;
       let text: unknown = e.newValue;
-      if (col.kind === 'choice') text = col.options?.find((o) => o.label === e.newValue)?.value ?? e.newValue;
+      if (col.kind === 'choice' && typeof e.newValue === 'string') {
+        const hit = matchOption(col.options ?? [], e.newValue);
+        text = hit ? (hit.value ?? '') : e.newValue;
+      }
       const after = parseCell(col, text);
       change([{ key: e.data._key, field: col.field, before: e.data[col.field], after }]);
     },
     [byField, change],
   );
 
+  /** Marks the block from the anchor to `at` (or starts a new one at `at`) and repaints it. */
+  const markBlock = useCallback((api: GridApi<GridRow>, at: CellAt | null) => {
+    const had = isMulti(block.current);
+    if (!at) {
+      anchor.current = null;
+      block.current = null;
+    } else if (extending.current && anchor.current) {
+      block.current = blockBetween(anchor.current, at);
+    } else {
+      anchor.current = at;
+      block.current = blockBetween(at, at);
+    }
+    if (had || isMulti(block.current)) api.refreshCells({ force: true, suppressFlash: true });
+  }, []);
+
   const onCellFocused = useCallback(
     (e: CellFocusedEvent<GridRow>) => {
+      const api = apiRef.current;
       if (e.rowIndex === null || e.rowPinned) {
         setFocusIssue(null);
+        if (api) markBlock(api, null);
         return;
       }
-      const row = apiRef.current?.getDisplayedRowAtIndex(e.rowIndex)?.data;
+      const row = api?.getDisplayedRowAtIndex(e.rowIndex)?.data;
       const field = typeof e.column === 'object' && e.column ? e.column.getColId() : String(e.column ?? '');
       setFocusIssue(row?._issues[field] ?? null);
       onFocusRow?.(row?._key ?? null);
+      if (api) {
+        const col = api.getAllDisplayedColumns().findIndex((c) => c.getColId() === field);
+        markBlock(api, col < 0 ? null : { row: e.rowIndex, col });
+      }
     },
-    [onFocusRow],
+    [onFocusRow, markBlock],
   );
 
   /** A tab-separated block pasted at the focused cell, over as many rows as it has. */
@@ -160,25 +237,22 @@ export function RegisterGrid({
       if (readOnly || !api || api.getEditingCells().length) return;
       const focused = api.getFocusedCell();
       if (!focused || focused.rowPinned) return;
-      const block = parseClipboardBlock(e.clipboardData.getData('text/plain'));
-      if (!block.length) return;
+      const pasted = parseClipboardBlock(e.clipboardData.getData('text/plain'));
+      if (!pasted.length) return;
       e.preventDefault();
-      const displayed = api
-        .getAllDisplayedColumns()
-        .map((c) => byField.get(c.getColId()))
-        .filter(Boolean) as RegisterColumn[];
+      const displayed = displayedColumns(api);
       const start = displayed.findIndex((c) => c.field === focused.column.getColId());
       if (start < 0) return;
-      const targets = displayed.slice(start, start + block[0].length);
+      const targets = displayed.slice(start, start + pasted[0].length);
       const current = rowsRef.current;
-      const missing = focused.rowIndex + block.length - current.length;
+      const missing = focused.rowIndex + pasted.length - current.length;
       const added = missing > 0 && onAddRows ? onAddRows(missing, current.length) : [];
       const keys = [
-        ...current.slice(focused.rowIndex, focused.rowIndex + block.length).map((r) => r._key),
+        ...current.slice(focused.rowIndex, focused.rowIndex + pasted.length).map((r) => r._key),
         ...added,
       ];
       const cells: CellChange[] = [];
-      block.forEach((line, i) => {
+      pasted.forEach((line, i) => {
         const key = keys[i];
         if (!key) return;
         const row = current.find((r) => r._key === key);
@@ -194,15 +268,51 @@ export function RegisterGrid({
       });
       change(cells);
     },
-    [readOnly, byField, onAddRows, change],
+    [readOnly, displayedColumns, onAddRows, change],
+  );
+
+  /** Ctrl+C: the marked block (or the focused cell) as tab-separated text, as spreadsheets take it. */
+  const onCopy = useCallback(
+    (e: React.ClipboardEvent) => {
+      const api = apiRef.current;
+      if (!api || api.getEditingCells().length) return;
+      const focused = api.getFocusedCell();
+      if (!focused || focused.rowPinned) return;
+      const shown = api.getAllDisplayedColumns();
+      const at = { row: focused.rowIndex, col: shown.indexOf(focused.column) };
+      if (at.col < 0) return;
+      const b =
+        block.current && inBlock(block.current, at.row, at.col) ? block.current : blockBetween(at, at);
+      const picked = shown
+        .slice(b.left, b.right + 1)
+        .map((c) => byField.get(c.getColId()))
+        .filter(Boolean) as RegisterColumn[];
+      const lines: string[][] = [];
+      for (let r = b.top; r <= b.bottom; r++) {
+        const row = api.getDisplayedRowAtIndex(r)?.data;
+        if (!row) continue;
+        lines.push(picked.map((c) => copyText(c, c.value ? c.value(row) : row[c.field], row)));
+      }
+      e.preventDefault();
+      e.clipboardData.setData('text/plain', formatClipboardBlock(lines));
+    },
+    [byField],
   );
 
   const onKeyDownCapture = useCallback(
     (e: React.KeyboardEvent) => {
+      extending.current = e.shiftKey;
       const api = apiRef.current;
-      if (readOnly || !api || api.getEditingCells().length) return;
+      if (!api || api.getEditingCells().length) return;
       const mod = e.ctrlKey || e.metaKey;
       const key = e.key.toLowerCase();
+      // The browser copies only a text selection: the grid's copy runs through the copy event.
+      if (mod && key === 'c' && !e.shiftKey && !e.altKey) {
+        e.preventDefault();
+        document.execCommand('copy');
+        return;
+      }
+      if (readOnly) return;
       if (mod && key === 'z' && !e.shiftKey) {
         e.preventDefault();
         e.stopPropagation();
@@ -218,21 +328,6 @@ export function RegisterGrid({
     [readOnly, change],
   );
 
-  const onCellKeyDown = useCallback(
-    (e: CellKeyDownEvent<GridRow>) => {
-      const ke = e.event as KeyboardEvent | undefined;
-      if (readOnly || !ke || !e.data || e.node.rowPinned || e.api.getEditingCells().length) return;
-      if (ke.key === 'Delete') {
-        const col = byField.get(e.column.getColId());
-        if (!col || !editable(col, e.data)) return;
-        change([
-          { key: e.data._key, field: col.field, before: e.data[col.field], after: parseCell(col, '') },
-        ]);
-      }
-    },
-    [readOnly, byField, change],
-  );
-
   const onGridReady = useCallback(
     (e: GridReadyEvent<GridRow>) => {
       apiRef.current = e.api;
@@ -241,20 +336,38 @@ export function RegisterGrid({
     [onReady],
   );
 
+  /** Narrow columns take the width of their content once there are rows to measure. */
+  const fitColumns = useCallback(() => {
+    const api = apiRef.current;
+    if (!api || api.getDisplayedRowCount() === 0) return;
+    api.autoSizeColumns(
+      columns.filter((c) => (c.width ?? 110) < FIT_BELOW).map((c) => c.field),
+      true,
+    );
+  }, [columns]);
+
   return (
-    <div onPaste={onPaste} onKeyDownCapture={onKeyDownCapture} className="space-y-1">
+    <div
+      onPaste={onPaste}
+      onCopy={onCopy}
+      onKeyDownCapture={onKeyDownCapture}
+      onMouseDownCapture={(e) => (extending.current = e.shiftKey)}
+      className="space-y-1"
+    >
       <div style={{ height }} role="region" aria-label={label} data-testid={`grid-${label}`}>
         <AgGridReact<GridRow>
           theme={outturnGridTheme}
           rowData={rows}
           columnDefs={colDefs}
           getRowId={(p) => p.data._key}
+          getRowClass={(p: RowClassParams<GridRow>) => (p.data?._draft ? 'row-draft' : undefined)}
           readOnlyEdit
           onCellEditRequest={onCellEditRequest}
           onCellFocused={onCellFocused}
-          onCellKeyDown={onCellKeyDown}
           onGridReady={onGridReady}
+          onFirstDataRendered={fitColumns}
           pinnedBottomRowData={totalRow ? [totalRow as GridRow] : undefined}
+          localeText={{ noRowsToShow: emptyText ?? 'No rows yet.' }}
           rowSelection={
             readOnly
               ? undefined
@@ -276,8 +389,8 @@ export function RegisterGrid({
         ) : (
           <span className="text-ink-faint">
             {readOnly
-              ? 'Read only.'
-              : 'Enter or F2 edits · paste a block from a spreadsheet · Ctrl+Z / Ctrl+Y undo and redo · Delete clears a cell'}
+              ? 'Read only · Shift+click or Shift+arrows marks a block · Ctrl+C copies it'
+              : 'Enter or F2 edits · paste a block from a spreadsheet · Shift+arrows marks a block, Ctrl+C copies it · Ctrl+Z / Ctrl+Y undo and redo · Delete clears a cell'}
           </span>
         )}
       </p>

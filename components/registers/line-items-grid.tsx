@@ -132,6 +132,7 @@ export function LineItemsGrid({ projectId, currency, readOnly }: RegisterTabProp
         header: `Base (${currency})`,
         kind: 'number',
         width: 118,
+        pinned: 'right',
         headerTooltip: 'Deterministic amount; when empty, the distribution’s base (shown in brackets)',
         format: (v, r) => {
           if (typeof v === 'number') return formatMoney(v);
@@ -141,7 +142,7 @@ export function LineItemsGrid({ projectId, currency, readOnly }: RegisterTabProp
         },
       },
       ...summaryColumns(summaries, {
-        meanHeader: 'Mean',
+        meanHeader: `Line mean (${currency})`,
         widths: [110, 110],
         formatMean: money,
         formatPercentile: (v, r) => (r.basis === 'per-day' && r._key !== 'total' ? 'by run' : money(v)),
