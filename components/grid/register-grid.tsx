@@ -271,15 +271,22 @@ export function RegisterGrid({
     [readOnly, displayedColumns, onAddRows, change],
   );
 
-  /** Ctrl+C: the marked block (or the focused cell) as tab-separated text, as spreadsheets take it. */
-  const onCopy = useCallback(
-    (e: React.ClipboardEvent) => {
+  /**
+   * Ctrl+C: the marked block (or the focused cell) as tab-separated text, as spreadsheets take
+   * it. With no text selected the browser sends the copy event to the page's body, not to the
+   * focused cell, so it is heard on the document while a cell of this grid has the focus.
+   */
+  const wrapper = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    const onCopy = (e: ClipboardEvent) => {
       const api = apiRef.current;
-      if (!api || api.getEditingCells().length) return;
+      if (!api || !e.clipboardData || !wrapper.current?.contains(document.activeElement)) return;
+      if (api.getEditingCells().length) return;
       const focused = api.getFocusedCell();
       if (!focused || focused.rowPinned) return;
       const shown = api.getAllDisplayedColumns();
-      const at = { row: focused.rowIndex, col: shown.indexOf(focused.column) };
+      const colId = focused.column.getColId();
+      const at = { row: focused.rowIndex, col: shown.findIndex((c) => c.getColId() === colId) };
       if (at.col < 0) return;
       const b =
         block.current && inBlock(block.current, at.row, at.col) ? block.current : blockBetween(at, at);
@@ -295,9 +302,10 @@ export function RegisterGrid({
       }
       e.preventDefault();
       e.clipboardData.setData('text/plain', formatClipboardBlock(lines));
-    },
-    [byField],
-  );
+    };
+    document.addEventListener('copy', onCopy);
+    return () => document.removeEventListener('copy', onCopy);
+  }, [byField]);
 
   const onKeyDownCapture = useCallback(
     (e: React.KeyboardEvent) => {
@@ -348,8 +356,8 @@ export function RegisterGrid({
 
   return (
     <div
+      ref={wrapper}
       onPaste={onPaste}
-      onCopy={onCopy}
       onKeyDownCapture={onKeyDownCapture}
       onMouseDownCapture={(e) => (extending.current = e.shiftKey)}
       className="space-y-1"
