@@ -1,6 +1,6 @@
 import { describe, expect, it, beforeAll } from 'vitest';
 import ExcelJS from 'exceljs';
-import { APP_URL, newOrganisation, type Client } from './helpers/http';
+import { APP_URL, newOrganisation, uploadFile, type Client } from './helpers/http';
 import { count } from './helpers/db';
 
 const projectInput = (code: string) => ({
@@ -12,31 +12,7 @@ const projectInput = (code: string) => ({
   baseDate: '2027-01-04',
 });
 
-/** Multipart upload with the client's session (the JSON client cannot send files). */
-async function upload(
-  client: Client,
-  path: string,
-  file: { name: string; data: Uint8Array | string },
-  fields: Record<string, string>,
-) {
-  const form = new FormData();
-  form.set('file', new Blob([file.data as BlobPart]), file.name);
-  for (const [k, v] of Object.entries(fields)) form.set(k, v);
-  const cookies = (client as any).cookies as Map<string, string>;
-  const res = await fetch(APP_URL + path, {
-    method: 'POST',
-    body: form,
-    headers: { cookie: [...cookies].map(([k, v]) => `${k}=${v}`).join('; ') },
-  });
-  const text = await res.text();
-  let json: any = null;
-  try {
-    json = JSON.parse(text);
-  } catch {
-    json = null;
-  }
-  return { status: res.status, json, text };
-}
+const upload = uploadFile;
 
 async function download(client: Client, path: string) {
   const cookies = (client as any).cookies as Map<string, string>;

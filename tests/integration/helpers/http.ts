@@ -146,3 +146,29 @@ export async function demoClient(role: 'owner' | 'estimator' | 'sponsor' | 'bill
   if (error) throw new Error(`demo sign-in failed: ${error}`);
   return client;
 }
+
+/** A multipart upload with the client's session (the JSON client cannot send files). */
+export async function uploadFile(
+  client: Client,
+  path: string,
+  file: { name: string; data: Uint8Array | string },
+  fields: Record<string, string>,
+) {
+  const form = new FormData();
+  form.set('file', new Blob([file.data as BlobPart]), file.name);
+  for (const [k, v] of Object.entries(fields)) form.set(k, v);
+  const cookies = (client as unknown as { cookies: Map<string, string> }).cookies;
+  const res = await fetch(APP_URL + path, {
+    method: 'POST',
+    body: form,
+    headers: { cookie: [...cookies].map(([k, v]) => `${k}=${v}`).join('; ') },
+  });
+  const text = await res.text();
+  let json: any = null;
+  try {
+    json = JSON.parse(text);
+  } catch {
+    json = null;
+  }
+  return { status: res.status, json, text };
+}
