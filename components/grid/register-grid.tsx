@@ -62,6 +62,19 @@ function headerMinWidth(header: string): number {
   return Math.max(56, Math.ceil(longest * 7.5 + 24));
 }
 
+const MOVES = new Set([
+  'ArrowUp',
+  'ArrowDown',
+  'ArrowLeft',
+  'ArrowRight',
+  'Home',
+  'End',
+  'PageUp',
+  'PageDown',
+  'Tab',
+  'Enter',
+]);
+
 const same = (a: unknown, b: unknown) => JSON.stringify(a ?? null) === JSON.stringify(b ?? null);
 
 export function RegisterGrid({
@@ -309,7 +322,9 @@ export function RegisterGrid({
 
   const onKeyDownCapture = useCallback(
     (e: React.KeyboardEvent) => {
-      extending.current = e.shiftKey;
+      // Shift on a move (arrows, Home, End, Page keys, a click) extends the block; the cell takes
+      // the focus a moment later, so the flag is left alone by any other key (Ctrl of Ctrl+C).
+      if (MOVES.has(e.key)) extending.current = e.shiftKey;
       const api = apiRef.current;
       if (!api || api.getEditingCells().length) return;
       const mod = e.ctrlKey || e.metaKey;
@@ -388,6 +403,9 @@ export function RegisterGrid({
           stopEditingWhenCellsLoseFocus
           enterNavigatesVerticallyAfterEdit
           suppressDragLeaveHidesColumns
+          // A register has a few dozen columns: all are drawn, so a block copied or a cell found
+          // off to the side is there without scrolling to it first.
+          suppressColumnVirtualisation
           animateRows={false}
         />
       </div>

@@ -14,6 +14,7 @@ import { ApiError, callApi } from '@/components/forms/api';
 import { rowIssues, type RegisterKind } from '@/lib/validation/registers';
 import { loadDrafts, saveDrafts, type Draft } from './draft-store';
 import { useDraftOwner } from './draft-owner';
+import { OwnVersions } from './own-versions';
 
 export type SavedRow = Record<string, unknown> & {
   id: number;
@@ -64,30 +65,6 @@ function keptNotice(count: number): Notice {
   };
 }
 
-/** Versions this page's own saves moved rows through: row id → version sent → version saved. */
-type OwnVersions = Map<number, Map<number, number>>;
-
-/** The version a row will have once the saves sent before this one are through. */
-function currentVersion(own: OwnVersions, id: number, version: number): number {
-  const steps = own.get(id);
-  let v = version;
-  for (let guard = 0; steps?.has(v) && guard < 1000; guard++) v = steps.get(v)!;
-  return v;
-}
-
-/** The batch with each saved row at the version this page's earlier saves left it. */
-function withOwnVersions(own: OwnVersions, batch: Batch): Batch {
-  return {
-    ...batch,
-    upserts: batch.upserts.map((u) =>
-      typeof u.id === 'number' && typeof u.version === 'number'
-        ? { ...u, version: currentVersion(own, u.id, u.version) }
-        : u,
-    ),
-    deletes: batch.deletes.map((d) => ({ ...d, version: currentVersion(own, d.id, d.version) })),
-  };
-}
-
 /** The register's rows as they are once the batch is applied (shown at once, before the reply). */
 function applyOptimistic(previous: SavedRow[], batch: Batch): SavedRow[] {
   const deleted = new Set(batch.deletes.map((d) => d.id));
@@ -125,7 +102,7 @@ export function useRegisterRows(
   const [notice, setNotice] = useState<Notice>(() => keptNotice(kept.drafts.length));
   const [pending, setPending] = useState(0);
   const queue = useRef<Promise<unknown>>(Promise.resolve());
-  const own = useRef<OwnVersions>(new Map());
+  const own = useRef(new OwnVersions());
 
   const saved = useMemo(() => query.data ?? [], [query.data]);
 
@@ -252,8 +229,7 @@ export function useRegisterRows(
       const byId = new Map(reply.rows.map((r) => [r.id, r]));
       for (const u of batch.upserts) {
         const row = typeof u.id === 'number' ? byId.get(u.id) : undefined;
-        if (!row || typeof u.version !== 'number' || row.version === u.version) continue;
-        own.current.set(row.id, (own.current.get(row.id) ?? new Map()).set(u.version, row.version));
+        if (row && typeof u.version === 'number') own.current.saved(row.id, u.version, row.version);
       }
       const existing = new Set(current.map((r) => r.id));
       const keyOf = new Map(batch.upserts.filter((u) => u.key && !u.id).map((u) => [u.key as string, true]));
@@ -295,7 +271,7 @@ export function useRegisterRows(
       queue.current = queue.current
         .then(async () => {
           await qc.cancelQueries({ queryKey });
-          await mutateAsync({ batch: withOwnVersions(own.current, batch), removed });
+          await mutateAsync({ batch: own.current.batch(batch), removed });
         })
         .catch(() => undefined)
         .finally(() => setPending((n) => n - 1));
