@@ -301,8 +301,9 @@ export function RegisterGrid({
       const colId = focused.column.getColId();
       const at = { row: focused.rowIndex, col: shown.findIndex((c) => c.getColId() === colId) };
       if (at.col < 0) return;
-      const b =
-        block.current && inBlock(block.current, at.row, at.col) ? block.current : blockBetween(at, at);
+      // The block runs from its anchor to the focused cell (whose focus event may still be on its
+      // way when keys come quickly), or is the focused cell alone.
+      const b = extending.current && anchor.current ? blockBetween(anchor.current, at) : blockBetween(at, at);
       const picked = shown
         .slice(b.left, b.right + 1)
         .map((c) => byField.get(c.getColId()))

@@ -191,6 +191,7 @@ test('Ctrl+C copies a marked block as tab-separated text, and typing picks a dro
   await grid.cell(1, 'low').click();
   await page.keyboard.press('Shift+ArrowRight');
   await page.keyboard.press('Shift+ArrowDown');
+  await expect(grid.cell(2, 'mode')).toHaveClass(/cell-in-block/);
   await page.keyboard.press('Control+c');
   expect(await clipboard()).toBe('150.5\t200\n100\t200');
 
