@@ -100,10 +100,10 @@ export function RegisterGrid({
   }, [rows]);
   const byField = useMemo(() => new Map(columns.map((c) => [c.field, c])), [columns]);
 
-  // The marked block: Shift held while a cell takes the focus extends it from the anchor.
+  // The marked block, from an anchor cell to the focused one. It follows the input itself (a
+  // click, a moving key's release) rather than the grid's focus events, which may come later.
   const anchor = useRef<CellAt | null>(null);
   const block = useRef<Block | null>(null);
-  const extending = useRef(false);
 
   const change = useCallback(
     (cells: CellChange[], record = true) => {
@@ -208,17 +208,26 @@ export function RegisterGrid({
     [byField, change],
   );
 
-  /** Marks the block from the anchor to `at` (or starts a new one at `at`) and repaints it. */
-  const markBlock = useCallback((api: GridApi<GridRow>, at: CellAt | null) => {
+  /**
+   * After a click or a moving key: with Shift held the block runs from the anchor to the focused
+   * cell, without it the focused cell is the new anchor. The marked cells are repainted.
+   */
+  const followFocus = useCallback((shift: boolean) => {
+    const api = apiRef.current;
+    if (!api) return;
     const had = isMulti(block.current);
-    if (!at) {
+    const focused = api.getFocusedCell();
+    const col = focused
+      ? api.getAllDisplayedColumns().findIndex((c) => c.getColId() === focused.column.getColId())
+      : -1;
+    if (!focused || focused.rowPinned || col < 0) {
       anchor.current = null;
       block.current = null;
-    } else if (extending.current && anchor.current) {
-      block.current = blockBetween(anchor.current, at);
+    } else if (shift && anchor.current) {
+      block.current = blockBetween(anchor.current, { row: focused.rowIndex, col });
     } else {
-      anchor.current = at;
-      block.current = blockBetween(at, at);
+      anchor.current = { row: focused.rowIndex, col };
+      block.current = blockBetween(anchor.current, anchor.current);
     }
     if (had || isMulti(block.current)) api.refreshCells({ force: true, suppressFlash: true });
   }, []);
@@ -228,19 +237,14 @@ export function RegisterGrid({
       const api = apiRef.current;
       if (e.rowIndex === null || e.rowPinned) {
         setFocusIssue(null);
-        if (api) markBlock(api, null);
         return;
       }
       const row = api?.getDisplayedRowAtIndex(e.rowIndex)?.data;
       const field = typeof e.column === 'object' && e.column ? e.column.getColId() : String(e.column ?? '');
       setFocusIssue(row?._issues[field] ?? null);
       onFocusRow?.(row?._key ?? null);
-      if (api) {
-        const col = api.getAllDisplayedColumns().findIndex((c) => c.getColId() === field);
-        markBlock(api, col < 0 ? null : { row: e.rowIndex, col });
-      }
     },
-    [onFocusRow, markBlock],
+    [onFocusRow],
   );
 
   /** A tab-separated block pasted at the focused cell, over as many rows as it has. */
@@ -301,9 +305,9 @@ export function RegisterGrid({
       const colId = focused.column.getColId();
       const at = { row: focused.rowIndex, col: shown.findIndex((c) => c.getColId() === colId) };
       if (at.col < 0) return;
-      // The block runs from its anchor to the focused cell (whose focus event may still be on its
-      // way when keys come quickly), or is the focused cell alone.
-      const b = extending.current && anchor.current ? blockBetween(anchor.current, at) : blockBetween(at, at);
+      // The marked block when it holds the focused cell, or else the focused cell alone.
+      const b =
+        block.current && inBlock(block.current, at.row, at.col) ? block.current : blockBetween(at, at);
       const picked = shown
         .slice(b.left, b.right + 1)
         .map((c) => byField.get(c.getColId()))
@@ -323,9 +327,6 @@ export function RegisterGrid({
 
   const onKeyDownCapture = useCallback(
     (e: React.KeyboardEvent) => {
-      // Shift on a move (arrows, Home, End, Page keys, a click) extends the block; the cell takes
-      // the focus a moment later, so the flag is left alone by any other key (Ctrl of Ctrl+C).
-      if (MOVES.has(e.key)) extending.current = e.shiftKey;
       const api = apiRef.current;
       if (!api || api.getEditingCells().length) return;
       const mod = e.ctrlKey || e.metaKey;
@@ -375,7 +376,8 @@ export function RegisterGrid({
       ref={wrapper}
       onPaste={onPaste}
       onKeyDownCapture={onKeyDownCapture}
-      onMouseDownCapture={(e) => (extending.current = e.shiftKey)}
+      onKeyUp={(e) => MOVES.has(e.key) && followFocus(e.shiftKey)}
+      onClick={(e) => followFocus(e.shiftKey)}
       className="space-y-1"
     >
       <div style={{ height }} role="region" aria-label={label} data-testid={`grid-${label}`}>
