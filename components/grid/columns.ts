@@ -13,7 +13,11 @@ export type RegisterColumn = {
   header: string;
   kind: CellKind;
   width?: number;
-  pinned?: 'left';
+  /**
+   * Kept in view while the grid scrolls sideways: codes and names at the left; figures at the
+   * right (computed columns are pinned right unless they say otherwise).
+   */
+  pinned?: 'left' | 'right' | null;
   /** For choices: the values, with labels to show. */
   options?: { value: string | null; label: string }[];
   /** Whether the cell takes a value in this row (e.g. Mean only for normal distributions). */
@@ -44,12 +48,7 @@ export function parseCell(col: RegisterColumn, text: unknown): unknown {
     case 'percent':
       return readProbability(raw);
     case 'choice': {
-      const s = String(raw)
-        .toLowerCase()
-        .replace(/[\s_–]+/g, '-');
-      const hit = col.options?.find(
-        (o) => (o.value ?? '').toLowerCase() === s || o.label.toLowerCase().replace(/[\s_–]+/g, '-') === s,
-      );
+      const hit = matchOption(col.options ?? [], String(raw));
       return hit ? hit.value : String(raw);
     }
     case 'predecessors': {
@@ -64,6 +63,25 @@ export function parseCell(col: RegisterColumn, text: unknown): unknown {
   }
 }
 
+const normal = (s: string) => s.toLowerCase().replace(/[\s_–-]+/g, '-');
+
+/**
+ * The option that typed or pasted text names: its value or label exactly, or else the first
+ * whose value or label starts with the text ("tri" → Triangular), as a spreadsheet's list does.
+ */
+export function matchOption<O extends { value: string | null; label: string }>(
+  options: O[],
+  text: string,
+): O | undefined {
+  const s = normal(text.trim());
+  if (!s) return undefined;
+  const names = (o: O) => [normal(o.value ?? ''), normal(o.label)];
+  return (
+    options.find((o) => names(o).includes(s)) ??
+    options.find((o) => names(o).some((n) => n !== '' && n.startsWith(s)))
+  );
+}
+
 /** The text a cell shows and its editor starts from. */
 export function cellText(col: RegisterColumn, value: unknown, row: GridRow): string {
   if (col.format) return col.format(value, row);
@@ -75,4 +93,11 @@ export function cellText(col: RegisterColumn, value: unknown, row: GridRow): str
   if (col.kind === 'percent' && typeof value === 'number') return `${+(value * 100).toFixed(2)}%`;
   if (typeof value === 'number') return value.toLocaleString('en-GB', { maximumFractionDigits: 2 });
   return String(value);
+}
+
+/** A cell as copied to the clipboard: figures in full (no rounding, no separators), the rest as shown. */
+export function copyText(col: RegisterColumn, value: unknown, row: GridRow): string {
+  if (col.kind === 'number' && typeof value === 'number') return String(value);
+  if (col.kind === 'percent' && typeof value === 'number') return `${+(value * 100).toPrecision(12)}%`;
+  return cellText(col, value, row);
 }

@@ -1,7 +1,8 @@
 'use client';
 // One register's grid: AG Grid (community) with our own editing loop. Edits, pastes and undo
 // all become `onChange` calls; the grid never edits its data itself (readOnlyEdit), so what is
-// shown is always what the register holds, drafts included.
+// shown is always what the register holds, drafts included. A Delete is the grid's own "clear
+// the cell" edit request, so one key press is one change and one save.
 
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { AgGridReact } from 'ag-grid-react';
@@ -10,15 +11,16 @@ import {
   ModuleRegistry,
   type CellEditRequestEvent,
   type CellFocusedEvent,
-  type CellKeyDownEvent,
   type ColDef,
   type ColGroupDef,
   type GridApi,
   type GridReadyEvent,
+  type RowClassParams,
 } from 'ag-grid-community';
 import { outturnGridTheme } from './theme';
-import { cellText, parseCell, type RegisterColumn } from './columns';
-import { parseClipboardBlock } from './clipboard';
+import { cellText, copyText, matchOption, parseCell, type RegisterColumn } from './columns';
+import { formatClipboardBlock, parseClipboardBlock } from './clipboard';
+import { blockBetween, inBlock, isMulti, type Block, type CellAt } from './cell-block';
 import { UndoStack, type CellChange } from './undo-stack';
 import type { GridRow } from './use-register-rows';
 
@@ -37,9 +39,14 @@ type Props = {
   onSelectionChange?: (keys: string[]) => void;
   onFocusRow?: (key: string | null) => void;
   totalRow?: Record<string, unknown>;
+  /** What the grid says when the register has no rows. */
+  emptyText?: string;
   height?: number;
   onReady?: (api: GridApi) => void;
 };
+
+const editable = (col: RegisterColumn, row: GridRow | undefined) =>
+  col.kind !== 'computed' && (!col.applies || (row ? col.applies(row) : true));
 
 /** Neighbouring columns that name the same group go under one group header. */
 function groupColumns(
@@ -65,8 +72,35 @@ function groupColumns(
   return out;
 }
 
-const editable = (col: RegisterColumn, row: GridRow | undefined) =>
-  col.kind !== 'computed' && (!col.applies || (row ? col.applies(row) : true));
+const isFigure = (col: RegisterColumn) =>
+  col.kind === 'number' || col.kind === 'percent' || col.kind === 'computed';
+
+/** Columns narrower than this are sized to their content; wider ones (names, notes) keep their width. */
+const FIT_BELOW = 150;
+
+/**
+ * The narrowest a column may get with its header wrapped between words, never inside one
+ * (12 px semibold header text: about 7.5 px a character, plus the cell's padding).
+ */
+function headerMinWidth(header: string): number {
+  const longest = Math.max(...header.split(/[\s/]+/).map((w) => w.length));
+  return Math.max(56, Math.ceil(longest * 7.5 + 24));
+}
+
+const MOVES = new Set([
+  'ArrowUp',
+  'ArrowDown',
+  'ArrowLeft',
+  'ArrowRight',
+  'Home',
+  'End',
+  'PageUp',
+  'PageDown',
+  'Tab',
+  'Enter',
+]);
+
+const same = (a: unknown, b: unknown) => JSON.stringify(a ?? null) === JSON.stringify(b ?? null);
 
 export function RegisterGrid({
   label,
@@ -78,6 +112,7 @@ export function RegisterGrid({
   onSelectionChange,
   onFocusRow,
   totalRow,
+  emptyText,
   height = 560,
   onReady,
 }: Props) {
@@ -90,15 +125,32 @@ export function RegisterGrid({
   }, [rows]);
   const byField = useMemo(() => new Map(columns.map((c) => [c.field, c])), [columns]);
 
+  // The marked block, from an anchor cell to the focused one. It follows the input itself (a
+  // click, a moving key's release) rather than the grid's focus events, which may come later.
+  const anchor = useRef<CellAt | null>(null);
+  const block = useRef<Block | null>(null);
+
   const change = useCallback(
     (cells: CellChange[], record = true) => {
-      if (!cells.length) return;
-      if (record) undo.current.record(cells);
+      const real = cells.filter((c) => !same(c.before, c.after));
+      if (!real.length) return;
+      if (record) undo.current.record(real);
       const grouped = new Map<string, Record<string, unknown>>();
-      for (const c of cells) grouped.set(c.key, { ...(grouped.get(c.key) ?? {}), [c.field]: c.after });
+      for (const c of real) grouped.set(c.key, { ...(grouped.get(c.key) ?? {}), [c.field]: c.after });
       onChange([...grouped].map(([key, values]) => ({ key, values })));
     },
     [onChange],
+  );
+
+  /** The displayed columns that are register columns (not the selection checkboxes), left to right. */
+  const displayedColumns = useCallback(
+    (api: GridApi<GridRow>) => {
+      return api
+        .getAllDisplayedColumns()
+        .map((c) => byField.get(c.getColId()))
+        .filter(Boolean) as RegisterColumn[];
+    },
+    [byField],
   );
 
   const colDefs = useMemo<(ColDef<GridRow> | ColGroupDef<GridRow>)[]>(() => {
@@ -106,33 +158,48 @@ export function RegisterGrid({
       colId: col.field,
       headerName: col.header,
       headerTooltip: col.headerTooltip ?? col.header,
-      width: col.width ?? 110,
-      pinned: col.pinned,
+      width: Math.max(col.width ?? 110, headerMinWidth(col.header)),
+      minWidth: headerMinWidth(col.header),
+      pinned: col.pinned === undefined ? (col.kind === 'computed' ? 'right' : undefined) : col.pinned,
       sortable: false,
       suppressMovable: true,
+      wrapHeaderText: true,
+      autoHeaderHeight: true,
+      headerClass: isFigure(col) ? 'ag-right-aligned-header' : undefined,
       // Pinned (total) rows carry their figures in the fields themselves.
       valueGetter: (p) =>
         p.data ? (col.value && !p.node?.rowPinned ? col.value(p.data) : p.data[col.field]) : undefined,
       valueFormatter: (p) => (p.data ? cellText(col, p.value, p.data) : ''),
       editable: (p) => !readOnly && !p.node.rowPinned && editable(col, p.data),
-      cellEditor:
-        col.editor?.component ?? (col.kind === 'choice' ? 'agSelectCellEditor' : 'agTextCellEditor'),
+      // A drop-down cell opens its list on Enter, F2 or a double click; a typed letter starts a
+      // text editor instead, and what is typed picks the matching option.
+      cellEditorSelector:
+        col.kind === 'choice' && !col.editor
+          ? (p) =>
+              p.eventKey && p.eventKey.length === 1
+                ? { component: 'agTextCellEditor' }
+                : {
+                    component: 'agSelectCellEditor',
+                    params: { values: (col.options ?? []).map((o) => o.label) },
+                  }
+          : undefined,
+      cellEditor: col.editor?.component ?? (col.kind === 'choice' ? undefined : 'agTextCellEditor'),
       cellEditorParams: col.editor
         ? col.editor.params
         : col.kind === 'choice'
-          ? { values: (col.options ?? []).map((o) => o.label) }
+          ? undefined
           : { useFormatter: true },
       cellEditorPopup: col.editor?.popup,
       columnGroupShow: col.groupShow,
-      type:
-        col.kind === 'number' || col.kind === 'percent' || col.kind === 'computed'
-          ? 'rightAligned'
-          : undefined,
       cellClass: (p) => {
         const row = p.data;
-        if (!row || p.node.rowPinned) return 'font-semibold';
-        const classes: string[] = [];
-        if (col.kind === 'number' || col.kind === 'percent' || col.kind === 'computed') classes.push('num');
+        const classes: string[] = isFigure(col) ? ['num'] : [];
+        if (!row || p.node.rowPinned) return [...classes, 'font-semibold'].join(' ');
+        if (
+          isMulti(block.current) &&
+          inBlock(block.current, p.node.rowIndex ?? -1, p.api.getAllDisplayedColumns().indexOf(p.column))
+        )
+          classes.push('cell-in-block');
         if (row._issues[col.field]) classes.push('cell-invalid bg-invalid-light text-invalid');
         else if (row._mine && col.field in row._mine && row._mine[col.field] !== row[col.field])
           classes.push('bg-caution-light');
@@ -165,20 +232,48 @@ export function RegisterGrid({
       const col = byField.get(e.colDef.colId ?? '');
       if (!col || !e.data) return;
       let text: unknown = e.newValue;
-      if (col.kind === 'choice') text = col.options?.find((o) => o.label === e.newValue)?.value ?? e.newValue;
+      if (col.kind === 'choice' && typeof e.newValue === 'string') {
+        const hit = matchOption(col.options ?? [], e.newValue);
+        text = hit ? (hit.value ?? '') : e.newValue;
+      }
       const after = parseCell(col, text);
       change([{ key: e.data._key, field: col.field, before: e.data[col.field], after }]);
     },
     [byField, change],
   );
 
+  /**
+   * After a click or a moving key: with Shift held the block runs from the anchor to the focused
+   * cell, without it the focused cell is the new anchor. The marked cells are repainted.
+   */
+  const followFocus = useCallback((shift: boolean) => {
+    const api = apiRef.current;
+    if (!api) return;
+    const had = isMulti(block.current);
+    const focused = api.getFocusedCell();
+    const col = focused
+      ? api.getAllDisplayedColumns().findIndex((c) => c.getColId() === focused.column.getColId())
+      : -1;
+    if (!focused || focused.rowPinned || col < 0) {
+      anchor.current = null;
+      block.current = null;
+    } else if (shift && anchor.current) {
+      block.current = blockBetween(anchor.current, { row: focused.rowIndex, col });
+    } else {
+      anchor.current = { row: focused.rowIndex, col };
+      block.current = blockBetween(anchor.current, anchor.current);
+    }
+    if (had || isMulti(block.current)) api.refreshCells({ force: true, suppressFlash: true });
+  }, []);
+
   const onCellFocused = useCallback(
     (e: CellFocusedEvent<GridRow>) => {
+      const api = apiRef.current;
       if (e.rowIndex === null || e.rowPinned) {
         setFocusIssue(null);
         return;
       }
-      const row = apiRef.current?.getDisplayedRowAtIndex(e.rowIndex)?.data;
+      const row = api?.getDisplayedRowAtIndex(e.rowIndex)?.data;
       const field = typeof e.column === 'object' && e.column ? e.column.getColId() : String(e.column ?? '');
       setFocusIssue(row?._issues[field] ?? null);
       onFocusRow?.(row?._key ?? null);
@@ -193,25 +288,22 @@ export function RegisterGrid({
       if (readOnly || !api || api.getEditingCells().length) return;
       const focused = api.getFocusedCell();
       if (!focused || focused.rowPinned) return;
-      const block = parseClipboardBlock(e.clipboardData.getData('text/plain'));
-      if (!block.length) return;
+      const pasted = parseClipboardBlock(e.clipboardData.getData('text/plain'));
+      if (!pasted.length) return;
       e.preventDefault();
-      const displayed = api
-        .getAllDisplayedColumns()
-        .map((c) => byField.get(c.getColId()))
-        .filter(Boolean) as RegisterColumn[];
+      const displayed = displayedColumns(api);
       const start = displayed.findIndex((c) => c.field === focused.column.getColId());
       if (start < 0) return;
-      const targets = displayed.slice(start, start + block[0].length);
+      const targets = displayed.slice(start, start + pasted[0].length);
       const current = rowsRef.current;
-      const missing = focused.rowIndex + block.length - current.length;
+      const missing = focused.rowIndex + pasted.length - current.length;
       const added = missing > 0 && onAddRows ? onAddRows(missing, current.length) : [];
       const keys = [
-        ...current.slice(focused.rowIndex, focused.rowIndex + block.length).map((r) => r._key),
+        ...current.slice(focused.rowIndex, focused.rowIndex + pasted.length).map((r) => r._key),
         ...added,
       ];
       const cells: CellChange[] = [];
-      block.forEach((line, i) => {
+      pasted.forEach((line, i) => {
         const key = keys[i];
         if (!key) return;
         const row = current.find((r) => r._key === key);
@@ -227,15 +319,59 @@ export function RegisterGrid({
       });
       change(cells);
     },
-    [readOnly, byField, onAddRows, change],
+    [readOnly, displayedColumns, onAddRows, change],
   );
+
+  /**
+   * Ctrl+C: the marked block (or the focused cell) as tab-separated text, as spreadsheets take
+   * it. With no text selected the browser sends the copy event to the page's body, not to the
+   * focused cell, so it is heard on the document while a cell of this grid has the focus.
+   */
+  const wrapper = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    const onCopy = (e: ClipboardEvent) => {
+      const api = apiRef.current;
+      if (!api || !e.clipboardData || !wrapper.current?.contains(document.activeElement)) return;
+      if (api.getEditingCells().length) return;
+      const focused = api.getFocusedCell();
+      if (!focused || focused.rowPinned) return;
+      const shown = api.getAllDisplayedColumns();
+      const colId = focused.column.getColId();
+      const at = { row: focused.rowIndex, col: shown.findIndex((c) => c.getColId() === colId) };
+      if (at.col < 0) return;
+      // The marked block when it holds the focused cell, or else the focused cell alone.
+      const b =
+        block.current && inBlock(block.current, at.row, at.col) ? block.current : blockBetween(at, at);
+      const picked = shown
+        .slice(b.left, b.right + 1)
+        .map((c) => byField.get(c.getColId()))
+        .filter(Boolean) as RegisterColumn[];
+      const lines: string[][] = [];
+      for (let r = b.top; r <= b.bottom; r++) {
+        const row = api.getDisplayedRowAtIndex(r)?.data;
+        if (!row) continue;
+        lines.push(picked.map((c) => copyText(c, c.value ? c.value(row) : row[c.field], row)));
+      }
+      e.preventDefault();
+      e.clipboardData.setData('text/plain', formatClipboardBlock(lines));
+    };
+    document.addEventListener('copy', onCopy);
+    return () => document.removeEventListener('copy', onCopy);
+  }, [byField]);
 
   const onKeyDownCapture = useCallback(
     (e: React.KeyboardEvent) => {
       const api = apiRef.current;
-      if (readOnly || !api || api.getEditingCells().length) return;
+      if (!api || api.getEditingCells().length) return;
       const mod = e.ctrlKey || e.metaKey;
       const key = e.key.toLowerCase();
+      // The browser copies only a text selection: the grid's copy runs through the copy event.
+      if (mod && key === 'c' && !e.shiftKey && !e.altKey) {
+        e.preventDefault();
+        document.execCommand('copy');
+        return;
+      }
+      if (readOnly) return;
       if (mod && key === 'z' && !e.shiftKey) {
         e.preventDefault();
         e.stopPropagation();
@@ -251,21 +387,6 @@ export function RegisterGrid({
     [readOnly, change],
   );
 
-  const onCellKeyDown = useCallback(
-    (e: CellKeyDownEvent<GridRow>) => {
-      const ke = e.event as KeyboardEvent | undefined;
-      if (readOnly || !ke || !e.data || e.node.rowPinned || e.api.getEditingCells().length) return;
-      if (ke.key === 'Delete') {
-        const col = byField.get(e.column.getColId());
-        if (!col || !editable(col, e.data)) return;
-        change([
-          { key: e.data._key, field: col.field, before: e.data[col.field], after: parseCell(col, '') },
-        ]);
-      }
-    },
-    [readOnly, byField, change],
-  );
-
   const onGridReady = useCallback(
     (e: GridReadyEvent<GridRow>) => {
       apiRef.current = e.api;
@@ -274,20 +395,39 @@ export function RegisterGrid({
     [onReady],
   );
 
+  /** Narrow columns take the width of their content once there are rows to measure. */
+  const fitColumns = useCallback(() => {
+    const api = apiRef.current;
+    if (!api || api.getDisplayedRowCount() === 0) return;
+    api.autoSizeColumns(
+      columns.filter((c) => (c.width ?? 110) < FIT_BELOW).map((c) => c.field),
+      true,
+    );
+  }, [columns]);
+
   return (
-    <div onPaste={onPaste} onKeyDownCapture={onKeyDownCapture} className="space-y-1">
+    <div
+      ref={wrapper}
+      onPaste={onPaste}
+      onKeyDownCapture={onKeyDownCapture}
+      onKeyUp={(e) => MOVES.has(e.key) && followFocus(e.shiftKey)}
+      onClick={(e) => followFocus(e.shiftKey)}
+      className="space-y-1"
+    >
       <div style={{ height }} role="region" aria-label={label} data-testid={`grid-${label}`}>
         <AgGridReact<GridRow>
           theme={outturnGridTheme}
           rowData={rows}
           columnDefs={colDefs}
           getRowId={(p) => p.data._key}
+          getRowClass={(p: RowClassParams<GridRow>) => (p.data?._draft ? 'row-draft' : undefined)}
           readOnlyEdit
           onCellEditRequest={onCellEditRequest}
           onCellFocused={onCellFocused}
-          onCellKeyDown={onCellKeyDown}
           onGridReady={onGridReady}
+          onFirstDataRendered={fitColumns}
           pinnedBottomRowData={totalRow ? [totalRow as GridRow] : undefined}
+          localeText={{ noRowsToShow: emptyText ?? 'No rows yet.' }}
           rowSelection={
             readOnly
               ? undefined
@@ -300,6 +440,9 @@ export function RegisterGrid({
           stopEditingWhenCellsLoseFocus
           enterNavigatesVerticallyAfterEdit
           suppressDragLeaveHidesColumns
+          // A register has a few dozen columns: all are drawn, so a block copied or a cell found
+          // off to the side is there without scrolling to it first.
+          suppressColumnVirtualisation
           animateRows={false}
         />
       </div>
@@ -309,8 +452,8 @@ export function RegisterGrid({
         ) : (
           <span className="text-ink-faint">
             {readOnly
-              ? 'Read only.'
-              : 'Enter or F2 edits · paste a block from a spreadsheet · Ctrl+Z / Ctrl+Y undo and redo · Delete clears a cell'}
+              ? 'Read only · Shift+click or Shift+arrows marks a block · Ctrl+C copies it'
+              : 'Enter or F2 edits · paste a block from a spreadsheet · Shift+arrows marks a block, Ctrl+C copies it · Ctrl+Z / Ctrl+Y undo and redo · Delete clears a cell'}
           </span>
         )}
       </p>

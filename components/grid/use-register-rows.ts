@@ -1,12 +1,20 @@
 'use client';
-// A register's rows on the client: TanStack Query for the saved rows, local drafts for rows
-// whose cells are not valid yet (never sent), optimistic saves with rollback, and the 409 flow:
-// the other person's row replaces ours in the grid and our values are kept to re-apply.
+// A register's rows on the client: TanStack Query for the saved rows, drafts for rows whose
+// cells are not valid yet (never sent, kept in the browser per user and project), optimistic
+// saves sent one after another, and the 409 flow: the other person's row replaces ours in the
+// grid and our values are kept to re-apply.
+//
+// Saves go out one at a time and each names the version its rows will have when it arrives:
+// a row this page saved a moment ago is at the version that save returned, not the one the
+// edit was made on. Two quick edits of one row are two saves, never a conflict with oneself.
 
-import { useCallback, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { ApiError, callApi } from '@/components/forms/api';
 import { rowIssues, type RegisterKind } from '@/lib/validation/registers';
+import { loadDrafts, saveDrafts, type Draft } from './draft-store';
+import { useDraftOwner } from './draft-owner';
+import { OwnVersions } from './own-versions';
 
 export type SavedRow = Record<string, unknown> & {
   id: number;
@@ -24,12 +32,13 @@ export type GridRow = Record<string, unknown> & {
   _mine?: Record<string, unknown>;
 };
 
-type Draft = { values: Record<string, unknown>; issues: Record<string, string>; isNew: boolean };
 type Batch = {
   upserts: Record<string, unknown>[];
   deletes: { id: number; version: number }[];
   order?: (number | string)[];
 };
+/** A batch on its way, with the rows it deletes (put back when the server cannot be reached). */
+type Sending = { batch: Batch; removed: SavedRow[] };
 type BatchReply = { rows: SavedRow[]; deleted: number[]; cascaded: RegisterKind[] };
 
 export type Notice = { tone: 'invalid' | 'caution' | 'success' | 'info'; text: string } | null;
@@ -46,6 +55,25 @@ export function registerQueryKey(projectId: number, kind: RegisterKind) {
   return ['register', projectId, kind] as const;
 }
 
+/** What the grid says about drafts kept from an earlier visit. */
+function keptNotice(count: number): Notice {
+  if (!count) return null;
+  const one = count === 1;
+  return {
+    tone: 'caution',
+    text: `${one ? 'One row' : `${count} rows`} not saved on your last visit ${one ? 'is' : 'are'} back in the grid (tinted amber). Finish ${one ? 'it' : 'them'} to save, or delete ${one ? 'it' : 'them'}.`,
+  };
+}
+
+/** The register's rows as they are once the batch is applied (shown at once, before the reply). */
+function applyOptimistic(previous: SavedRow[], batch: Batch): SavedRow[] {
+  const deleted = new Set(batch.deletes.map((d) => d.id));
+  const byId = new Map(batch.upserts.filter((u) => u.id).map((u) => [u.id as number, u]));
+  return previous
+    .filter((r) => !deleted.has(r.id))
+    .map((r) => (byId.has(r.id) ? ({ ...r, ...byId.get(r.id), version: r.version } as SavedRow) : r));
+}
+
 export function useRegisterRows(
   projectId: number,
   kind: RegisterKind,
@@ -58,14 +86,33 @@ export function useRegisterRows(
     queryKey,
     queryFn: async () => (await callApi<{ rows: SavedRow[] }>(url)).rows,
   });
-  const [drafts, setDrafts] = useState<Map<string, Draft>>(new Map());
+  // Drafts kept from an earlier visit come back with the page (the grid is not drawn before
+  // the saved rows arrive, so the server's first render never differs from the browser's).
+  const owner = useDraftOwner();
+  const scope = useMemo(
+    () => (owner === null ? null : { userId: owner, projectId, kind }),
+    [owner, projectId, kind],
+  );
+  const [kept] = useState(() =>
+    scope && typeof window !== 'undefined' ? loadDrafts(scope) : { drafts: [], order: [] },
+  );
+  const [drafts, setDrafts] = useState<Map<string, Draft>>(() => new Map(kept.drafts));
   const [mine, setMine] = useState<Map<string, Record<string, unknown>>>(new Map());
-  const [newOrder, setNewOrder] = useState<Map<string, number>>(new Map());
-  const [notice, setNotice] = useState<Notice>(null);
-  const saving = useRef(0);
+  const [newOrder, setNewOrder] = useState<Map<string, number>>(() => new Map(kept.order));
+  const [notice, setNotice] = useState<Notice>(() => keptNotice(kept.drafts.length));
   const [pending, setPending] = useState(0);
+  const queue = useRef<Promise<unknown>>(Promise.resolve());
+  const own = useRef(new OwnVersions());
 
   const saved = useMemo(() => query.data ?? [], [query.data]);
+
+  // Every change of the drafts is kept; a draft of a row someone has since deleted is dropped.
+  useEffect(() => {
+    if (!scope) return;
+    const present = query.data ? new Set(query.data.map(rowKey)) : null;
+    const live = [...drafts].filter(([key, d]) => d.isNew || !present || present.has(key));
+    saveDrafts(scope, { drafts: live, order: [...newOrder].filter(([k]) => drafts.has(k)) });
+  }, [scope, drafts, newOrder, query.data]);
 
   const issuesOf = useCallback(
     (values: Record<string, unknown>, all: Record<string, unknown>[]) => ({
@@ -106,29 +153,34 @@ export function useRegisterRows(
   }, [saved, drafts, mine, newOrder]);
 
   const mutation = useMutation({
-    mutationFn: (batch: Batch) => callApi<BatchReply>(url, { body: batch }),
-    onMutate: async (batch) => {
-      saving.current++;
-      setPending(saving.current);
-      await qc.cancelQueries({ queryKey });
-      const previous = qc.getQueryData<SavedRow[]>(queryKey);
-      const deleted = new Set(batch.deletes.map((d) => d.id));
-      const byId = new Map(batch.upserts.filter((u) => u.id).map((u) => [u.id as number, u]));
-      const next = (previous ?? [])
-        .filter((r) => !deleted.has(r.id))
-        .map((r) => (byId.has(r.id) ? ({ ...r, ...byId.get(r.id), version: r.version } as SavedRow) : r));
-      qc.setQueryData(queryKey, next);
-      return { previous };
-    },
-    onError: (error, batch, context) => {
-      qc.setQueryData(queryKey, context?.previous);
+    mutationFn: ({ batch }: Sending) => callApi<BatchReply>(url, { body: batch }),
+    onError: (error, { batch, removed }) => {
       if (!(error instanceof ApiError)) {
+        // The server was not reached: deleted rows come back and changed rows are kept as
+        // drafts, so that nothing typed is lost.
+        const current = qc.getQueryData<SavedRow[]>(queryKey) ?? [];
+        const present = new Set(current.map((r) => r.id));
+        qc.setQueryData(
+          queryKey,
+          [...current, ...removed.filter((r) => !present.has(r.id))].sort(
+            (a, b) => a.sortOrder - b.sortOrder || a.id - b.id,
+          ),
+        );
+        setDrafts((ds) => {
+          const n = new Map(ds);
+          for (const u of batch.upserts)
+            n.set((u.key as string) ?? `r${u.id}`, { values: dataOf(u), issues: {}, isNew: !u.id });
+          return n;
+        });
         setNotice({
           tone: 'invalid',
-          text: 'The change could not be saved (no connection?). Nothing was changed.',
+          text: 'The change could not be saved (no connection?). It is kept in this browser, marked as not saved: edit the row again to save it.',
         });
         return;
       }
+      // Nothing of the batch was saved: the server's rows are the truth again (saves queued
+      // behind this one still go out).
+      void qc.invalidateQueries({ queryKey });
       const f = error.failure;
       if (f.status === 409) {
         const conflicts =
@@ -172,9 +224,13 @@ export function useRegisterRows(
       }
       setNotice({ tone: 'invalid', text: f.message });
     },
-    onSuccess: (reply, batch) => {
+    onSuccess: (reply, { batch }) => {
       const current = qc.getQueryData<SavedRow[]>(queryKey) ?? [];
       const byId = new Map(reply.rows.map((r) => [r.id, r]));
+      for (const u of batch.upserts) {
+        const row = typeof u.id === 'number' ? byId.get(u.id) : undefined;
+        if (row && typeof u.version === 'number') own.current.saved(row.id, u.version, row.version);
+      }
       const existing = new Set(current.map((r) => r.id));
       const keyOf = new Map(batch.upserts.filter((u) => u.key && !u.id).map((u) => [u.key as string, true]));
       let next = current
@@ -198,11 +254,30 @@ export function useRegisterRows(
       for (const k of reply.cascaded) qc.invalidateQueries({ queryKey: registerQueryKey(projectId, k) });
       setNotice(null);
     },
-    onSettled: () => {
-      saving.current--;
-      setPending(saving.current);
-    },
   });
+
+  /**
+   * Shows the batch at once and sends it after the saves before it. The rows it names are
+   * read again at sending time, at the versions this page's own earlier saves gave them.
+   */
+  const { mutateAsync } = mutation;
+  const enqueue = useCallback(
+    (batch: Batch) => {
+      const previous = qc.getQueryData<SavedRow[]>(queryKey) ?? [];
+      const deleting = new Set(batch.deletes.map((d) => d.id));
+      const removed = previous.filter((r) => deleting.has(r.id));
+      qc.setQueryData(queryKey, applyOptimistic(previous, batch));
+      setPending((n) => n + 1);
+      queue.current = queue.current
+        .then(async () => {
+          await qc.cancelQueries({ queryKey });
+          await mutateAsync({ batch: own.current.batch(batch), removed });
+        })
+        .catch(() => undefined)
+        .finally(() => setPending((n) => n - 1));
+    },
+    [qc, queryKey, mutateAsync],
+  );
 
   /** Applies cell values to rows: valid rows are saved in one batch, invalid ones stay drafts. */
   const applyValues = useCallback(
@@ -250,13 +325,13 @@ export function useRegisterRows(
         });
       }
       const hasNew = upserts.some((u) => !u.id);
-      mutation.mutate({
+      enqueue({
         upserts,
         deletes: [],
         order: hasNew || options.order ? rows.map((r) => r._id ?? r._key) : undefined,
       });
     },
-    [rows, drafts, issuesOf, mutation],
+    [rows, drafts, issuesOf, enqueue],
   );
 
   const insertRow = useCallback(
@@ -282,9 +357,9 @@ export function useRegisterRows(
         return n;
       });
       const deletes = chosen.filter((r) => r._id).map((r) => ({ id: r._id!, version: r._version! }));
-      if (deletes.length) mutation.mutate({ upserts: [], deletes });
+      if (deletes.length) enqueue({ upserts: [], deletes });
     },
-    [rows, mutation],
+    [rows, enqueue],
   );
 
   const moveRow = useCallback(
@@ -302,9 +377,9 @@ export function useRegisterRows(
           .map((r) => ({ ...r, sortOrder: pos.get(r.id) ?? r.sortOrder }))
           .sort((a, b) => a.sortOrder - b.sortOrder),
       );
-      mutation.mutate({ upserts: [], deletes: [], order });
+      enqueue({ upserts: [], deletes: [], order });
     },
-    [rows, mutation, qc, queryKey],
+    [rows, enqueue, qc, queryKey],
   );
 
   /** Re-sends the user's own values over the other person's (now current) version. */
@@ -329,8 +404,10 @@ export function useRegisterRows(
     reapplyMine,
     keepTheirs,
     conflicts: mine.size,
+    /** Rows in the grid that are not saved: new rows not finished, values the register refused. */
+    unsaved: rows.filter((r) => r._draft).length,
     notice,
     setNotice,
-    saving: pending > 0 || mutation.isPending,
+    saving: pending > 0,
   };
 }

@@ -25,9 +25,10 @@ export function NewProjectForm({
   withFile?: boolean;
 }) {
   const [file, setFile] = useState<File | null>(null);
+  const [fromFile, setFromFile] = useState<string | null>(null);
   const router = useRouter();
   const [failure, setFailure] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError } = useForm<Values>({
+  const { register, handleSubmit, formState, setError, setValue, getValues } = useForm<Values>({
     resolver: zodResolver(projectSchema),
     defaultValues: project
       ? {
@@ -47,6 +48,32 @@ export function NewProjectForm({
         },
   });
   const e = formState.errors;
+
+  /** A model file names its project and currency: the form takes them (a typed name is kept). */
+  async function chooseFile(chosen: File | null) {
+    setFile(chosen);
+    setFromFile(null);
+    if (!chosen || !chosen.name.toLowerCase().endsWith('.json')) return;
+    const model = await readModelHeader(chosen);
+    if (!model) {
+      setFromFile(
+        'This file is not a model file (JSON with "format": "outturn-model"); the import will say why.',
+      );
+      return;
+    }
+    const taken: string[] = [];
+    if (model.name && !getValues('name')) {
+      setValue('name', model.name, { shouldValidate: true });
+      taken.push('name');
+    }
+    if (model.currency) {
+      setValue('currency', model.currency, { shouldValidate: true });
+      taken.push('currency');
+    }
+    setFromFile(
+      `${taken.length ? `Taken from the model file: ${taken.join(' and ')}. ` : ''}A model file holds no stage, estimate class or base date: check them here.`,
+    );
+  }
 
   async function onSubmit(values: Values) {
     setFailure(null);
@@ -141,9 +168,14 @@ export function NewProjectForm({
             id="p-file"
             type="file"
             accept=".json,.xlsx"
-            onChange={(ev) => setFile(ev.target.files?.[0] ?? null)}
+            onChange={(ev) => void chooseFile(ev.target.files?.[0] ?? null)}
             className="block text-sm"
           />
+          {fromFile ? (
+            <p className="text-xs text-ink-soft" role="status">
+              {fromFile}
+            </p>
+          ) : null}
         </div>
       ) : null}
       <div className="col-span-2">
@@ -159,4 +191,16 @@ export function NewProjectForm({
       </div>
     </form>
   );
+}
+
+/** The name and currency at the top of a model file, or null when the file is not one. */
+async function readModelHeader(file: File): Promise<{ name?: string; currency?: string } | null> {
+  try {
+    const json = JSON.parse(await file.text()) as Record<string, unknown>;
+    if (json?.format !== 'outturn-model') return null;
+    const text = (v: unknown) => (typeof v === 'string' && v.trim() ? v.trim() : undefined);
+    return { name: text(json.name), currency: text(json.currency)?.toUpperCase().slice(0, 3) };
+  } catch {
+    return null;
+  }
 }

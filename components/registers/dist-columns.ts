@@ -67,7 +67,14 @@ export function distColumns(options: { allowNone?: boolean; unit?: string } = {}
       applies: uses('high'),
       headerTooltip: 'High (the P90 for lognormal and for P10–P90 ranges)',
     },
-    { field: 'mean', header: 'Mean', kind: 'number', width: 90, applies: uses('mean') },
+    {
+      field: 'mean',
+      header: `Stated mean${unit}`,
+      kind: 'number',
+      width: 90,
+      applies: uses('mean'),
+      headerTooltip: 'The mean you state for a normal or lognormal distribution (not the computed mean)',
+    },
     {
       field: 'sd',
       header: 'SD',

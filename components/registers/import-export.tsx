@@ -50,19 +50,29 @@ export function ImportExport({
           Import…
         </Button>
       )}
-      <a className={buttonClass('secondary')} href={`${base}?format=csv&register=${register}`} download>
-        CSV
+      <a
+        className={buttonClass('secondary')}
+        href={`${base}?format=csv&register=${register}`}
+        download
+        title="Download this register as a CSV file"
+      >
+        Download CSV
       </a>
-      <a className={buttonClass('secondary')} href={`${base}?format=xlsx&register=all`} download>
-        XLSX
+      <a
+        className={buttonClass('secondary')}
+        href={`${base}?format=xlsx&register=all`}
+        download
+        title="Download every register as one XLSX workbook"
+      >
+        Download XLSX
       </a>
       <a
         className={buttonClass('secondary')}
         href={`${base}?format=model`}
         download
-        title="The whole project as a model file (JSON)"
+        title="Download the whole project as a model file (JSON)"
       >
-        Model file
+        Download model file
       </a>
       {open ? (
         <ImportDialog projectId={projectId} register={register} onClose={() => setOpen(false)} />

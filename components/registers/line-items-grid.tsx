@@ -138,6 +138,7 @@ export function LineItemsGrid({ projectId, currency, readOnly }: RegisterTabProp
         header: `Base (${currency})`,
         kind: 'number',
         width: 118,
+        pinned: 'right',
         headerTooltip:
           'Deterministic amount; when empty, the distribution’s base (shown in brackets). Per project day: the rate’s base × the project’s base duration (every activity at its base), not the simulated mean',
         format: (v, r) => {
@@ -148,7 +149,7 @@ export function LineItemsGrid({ projectId, currency, readOnly }: RegisterTabProp
         },
       },
       ...summaryColumns(summaries, {
-        meanHeader: 'Mean',
+        meanHeader: `Line mean (${currency})`,
         widths: [110, 110],
         formatMean: (v, r) =>
           r.basis === 'per-project-day' || (r._key === 'total' && v === null) ? 'by run' : money(v),

@@ -44,8 +44,7 @@ export function ProbabilityImpactMatrix({
     placed++;
   }
   return (
-    <figure className="rounded border border-rule bg-paper-raised p-3" aria-label="Probability–impact matrix">
-      <figcaption className="mb-2 text-sm font-semibold">Probability–impact matrix</figcaption>
+    <figure className="flex flex-wrap items-end gap-x-6 gap-y-2" aria-label="Probability–impact matrix">
       <table className="border-collapse text-xs">
         <tbody>
           {[4, 3, 2, 1, 0].map((p) => (
@@ -56,7 +55,7 @@ export function ProbabilityImpactMatrix({
               {[0, 1, 2, 3, 4].map((i) => (
                 <td
                   key={i}
-                  className="num h-9 w-12 border border-paper-raised text-center text-sm"
+                  className="num h-7 w-12 border border-paper-raised text-center text-sm"
                   style={{ background: SCORE_COLOURS[p + i], textAlign: 'center' }}
                   data-testid={`pim-${p}-${i}`}
                   title={`${counts[p][i]} risk(s): probability ${P_LABELS[p]}, mean cost ${I_LABELS[i]} of base`}
@@ -76,10 +75,10 @@ export function ProbabilityImpactMatrix({
           </tr>
         </tbody>
       </table>
-      <p className="mt-1 text-2xs text-ink-faint">
+      <figcaption className="max-w-xs text-xs text-ink-soft">
         Rows: probability. Columns: mean cost impact as a share of the base estimate. {placed} open risk
         {placed === 1 ? '' : 's'} with a cost impact.
-      </p>
+      </figcaption>
     </figure>
   );
 }

@@ -6,6 +6,8 @@ type Props = {
   readOnly: boolean;
   selected: number;
   saving: boolean;
+  /** Rows in the grid not saved (unfinished or refused), kept in this browser. */
+  unsaved: number;
   count: number;
   noun: string;
   plural?: string;
@@ -20,6 +22,7 @@ export function RegisterToolbar({
   readOnly,
   selected,
   saving,
+  unsaved,
   count,
   noun,
   plural,
@@ -29,6 +32,7 @@ export function RegisterToolbar({
   onMove,
   children,
 }: Props) {
+  const rows = (n: number) => (n === 1 ? noun : (plural ?? `${noun}s`));
   return (
     <div className="flex flex-wrap items-center gap-2">
       {readOnly ? (
@@ -68,9 +72,21 @@ export function RegisterToolbar({
           </Button>
         </>
       )}
-      <span className="text-xs text-ink-faint" aria-live="polite">
-        {count.toLocaleString('en-GB')} {count === 1 ? noun : (plural ?? `${noun}s`)} ·{' '}
-        {saving ? 'Saving…' : 'All changes saved'}
+      <span className="text-xs text-ink-faint" aria-live="polite" data-testid="save-state">
+        {count.toLocaleString('en-GB')} {rows(count)} ·{' '}
+        {unsaved > 0 ? (
+          <span
+            className="font-semibold text-caution"
+            title="Unfinished rows or values the register refused: they are kept in this browser until saved"
+          >
+            {saving ? 'Saving… · ' : ''}
+            {unsaved.toLocaleString('en-GB')} {rows(unsaved)} not saved
+          </span>
+        ) : saving ? (
+          'Saving…'
+        ) : (
+          'All changes saved'
+        )}
       </span>
       <div className="ml-auto flex items-center gap-2">{children}</div>
     </div>

@@ -22,6 +22,10 @@ export function summaryColumns(
     width,
     value: (r) => summaryOf(r)?.[key] ?? null,
     format,
+    headerTooltip:
+      key === 'mean'
+        ? 'The mean computed from the row’s distribution'
+        : `The ${header} computed from the row’s distribution (${key === 'p10' ? '10' : '90'}% of outcomes at or below)`,
   });
   const [meanWidth, width] = options.widths;
   return [

@@ -2,6 +2,7 @@ import 'server-only';
 import type { Transaction } from 'sequelize';
 import { AuditEntry } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
+import { recordsAChange } from '@/lib/domain/audit-changes';
 
 export type AuditChange = {
   entity: string;
@@ -26,11 +27,15 @@ export function auditRow(actor: Actor, change: AuditChange) {
   };
 }
 
-/** Appends one entry to the audit trail inside the caller's transaction. */
+/**
+ * Appends one entry to the audit trail inside the caller's transaction; an update that changed
+ * no field is not recorded (see `recordsAChange`).
+ */
 export async function recordAudit(
   actor: Actor,
   change: AuditChange,
   transaction?: Transaction,
 ): Promise<void> {
+  if (!recordsAChange(change)) return;
   await AuditEntry.create(auditRow(actor, change), { transaction });
 }

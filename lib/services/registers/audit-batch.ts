@@ -5,6 +5,7 @@ import 'server-only';
 import type { Transaction } from 'sequelize';
 import { AuditEntry } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
+import { recordsAChange } from '@/lib/domain/audit-changes';
 import { type AuditChange, auditRow } from '../audit';
 
 export async function recordAuditMany(
@@ -13,9 +14,11 @@ export async function recordAuditMany(
   changes: Omit<AuditChange, 'projectId'>[],
   transaction: Transaction,
 ): Promise<void> {
-  if (changes.length === 0) return;
+  // The planner leaves unchanged rows out already; this holds the same rule for every caller.
+  const real = changes.filter(recordsAChange);
+  if (real.length === 0) return;
   await AuditEntry.bulkCreate(
-    changes.map((c) => auditRow(actor, { ...c, projectId })),
+    real.map((c) => auditRow(actor, { ...c, projectId })),
     { transaction },
   );
 }

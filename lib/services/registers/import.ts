@@ -8,6 +8,7 @@ import type { Actor } from '@/lib/auth/actor';
 import { can } from '@/lib/auth/roles';
 import { badRequest, forbidden, type FieldIssue } from '@/lib/errors';
 import { FILE_COLUMNS, mapHeaders, readCell } from '@/lib/registers/columns';
+import { wrongKindMessage } from '@/lib/registers/detect-kind';
 import { parsePredecessors } from '@/lib/registers/predecessors';
 import { rowIssues, type RegisterKind } from '@/lib/validation/registers';
 import { findProject } from '../projects';
@@ -36,6 +37,16 @@ const PREVIEW_ROWS = 50;
 const MAX_LISTED_PROBLEMS = 500;
 
 export async function readTables(file: UploadedFile, kind: RegisterKind | 'all'): Promise<Table[]> {
+  const tables = await readFileTables(file, kind);
+  // A file meant for another register is named for what it looks like, once, not row by row.
+  for (const table of tables) {
+    const wrong = wrongKindMessage(table.kind, table.headers, table.sheet);
+    if (wrong) throw badRequest(wrong, [{ path: 'file', message: wrong }]);
+  }
+  return tables;
+}
+
+async function readFileTables(file: UploadedFile, kind: RegisterKind | 'all'): Promise<Table[]> {
   assertSize(file.bytes.byteLength);
   const format = formatOf(file.name);
   if (format === 'json') throw badRequest('A .json file is a model file: import it as the whole project.');

@@ -1,7 +1,7 @@
 import 'server-only';
 // The second half of planning a batch: the registers before and after, compared row by row.
-// What differs is what is written (a row saved with the same fields is neither written nor
-// audited), each write of a saved row naming the version it was read at.
+// What differs in the stored columns is what is written (a row saved with the same values is
+// neither written nor audited), each write of a saved row naming the version it was read at.
 
 import type { RegisterKind } from '@/lib/validation/registers';
 import type { NextState } from './checks';
@@ -39,6 +39,12 @@ const VALUES: ValuesOf = {
   correlations: (r, s) => ({ ...correlationAttributes(r), ...scopeOf(s) }),
   drivers: (r, s) => ({ ...driverAttributes(r), sortOrder: r.sortOrder, ...scopeOf(s) }),
 };
+
+/** A row's stored columns without its place (a move alone is not a change of content). */
+function stored(values: object): object {
+  const { sortOrder: _place, ...rest } = values as { sortOrder?: number };
+  return rest;
+}
 
 /** The same fields, whatever their order: a row saved unchanged is neither written nor audited. */
 export function sameFields(a: object, b: object): boolean {
@@ -134,7 +140,8 @@ function diffRegister<K extends RegisterKind>(
     const old = beforeById.get(row.id);
     if (!old || row === old) continue;
     const inBatch = batchIndex.has(row.id);
-    if (!sameFields(rowData(old), rowData(row))) {
+    // Compared as stored, not as typed: an empty range and "min-max" store the same distribution.
+    if (!sameFields(stored(values(old, state)), stored(values(row, state)))) {
       const saved = { ...row, version: old.version + 1 };
       out.updates.push({
         id: row.id,

@@ -1,5 +1,14 @@
 import { expect, type Locator, type Page } from '@playwright/test';
 
+/** A new project of the signed-in user's organisation, made through the API; returns its id. */
+export async function newProject(page: Page, code: string, currency = 'EUR'): Promise<number> {
+  const res = await page.request.post('/api/projects', {
+    data: { name: `E2E ${code}`, code, currency, estimateClass: 4, stage: 'Concept', baseDate: '2027-01-04' },
+  });
+  expect(res.status()).toBe(201);
+  return (await res.json()).project.id as number;
+}
+
 /** Page object for a project's register grids (AG Grid). */
 export class RegisterPages {
   constructor(private readonly page: Page) {}

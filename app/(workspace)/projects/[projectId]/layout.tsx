@@ -1,5 +1,6 @@
 import { loadProjectPage } from './project-page';
 import { ProjectTabs } from '@/components/projects/project-tabs';
+import { DraftOwnerProvider } from '@/components/grid/draft-owner';
 
 export default async function ProjectLayout({
   children,
@@ -8,7 +9,7 @@ export default async function ProjectLayout({
   children: React.ReactNode;
   params: Promise<{ projectId: string }>;
 }) {
-  const { project, readOnly } = await loadProjectPage(params, '');
+  const { actor, project, readOnly } = await loadProjectPage(params, '');
   return (
     <div className="space-y-3">
       <header className="flex flex-wrap items-baseline gap-x-4 gap-y-1">
@@ -23,7 +24,8 @@ export default async function ProjectLayout({
         </span>
       </header>
       <ProjectTabs projectId={project.id} />
-      {children}
+      {/* Rows not saved yet are kept per user in this browser. */}
+      <DraftOwnerProvider userId={actor.userId}>{children}</DraftOwnerProvider>
     </div>
   );
 }
