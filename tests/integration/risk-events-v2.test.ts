@@ -226,6 +226,7 @@ describe('the status rules and a stored run', () => {
       iterations: 3_000,
       seed: 2026,
       sampling: 'lhs',
+      contingencyLevel: 'P80',
     });
     const dir = mkdtempSync(path.join(tmpdir(), 'outturn-v2-'));
     const file = path.join(dir, 'snapshot.json');
