@@ -31,7 +31,7 @@ export function TrendTable({
               {dateText(r.decidedAt)}
             </BriefLink>
             <span className="block text-2xs text-ink-faint">
-              run {r.runId} · {r.sponsorName}
+              run {r.runNumber} · {r.sponsorName}
             </span>
           </td>
           <td className="py-1">

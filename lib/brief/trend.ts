@@ -9,6 +9,8 @@ import type { SimulationResult } from '@/lib/sim';
 export type BaselineSource = {
   approvalId: number;
   runId: number;
+  /** The run's number within its project, the name people read. */
+  runNumber: number;
   decidedAt: string;
   stage: string;
   estimateClass: number;

@@ -15,7 +15,8 @@ import { parseOrThrow } from '@/lib/validation/parse';
 import { notifyDecision } from '@/lib/mail';
 import { recipientsWithRole } from './notifications';
 import { moneyWithInterval } from '@/lib/brief/format';
-import { trendRows, type TrendRow } from '@/lib/brief/trend';
+import { trendRows, type BaselineSource, type TrendRow } from '@/lib/brief/trend';
+import type { RunSummary } from '@/models/simulation-run';
 import type { SimulationResult } from '@/lib/sim';
 import { recordAudit } from './audit';
 import { findProject } from './projects';
@@ -23,10 +24,14 @@ import type { DecisionView } from '@/lib/view-types/approvals';
 
 export const COMMENT_MAX_LENGTH = 4000;
 
-export function toDecisionView(a: Approval): DecisionView {
+/** Reads with this include bring the run's number along. */
+const withRunNumber = { model: SimulationRun, as: 'run', attributes: ['id', 'number'] };
+
+export function toDecisionView(a: Approval, runNumber = a.run?.number ?? 0): DecisionView {
   return {
     id: a.id,
     runId: a.runId,
+    runNumber,
     decision: a.decision,
     comment: a.comment,
     sponsorName: a.sponsorName,
@@ -69,6 +74,7 @@ export async function listDecisions(actor: Actor, projectId: number): Promise<De
   const project = await findProject(actor, projectId);
   const rows = await Approval.findAll({
     where: { projectId: project.id, organizationId: actor.organizationId },
+    include: [withRunNumber],
     order: [
       ['createdAt', 'DESC'],
       ['id', 'DESC'],
@@ -86,6 +92,7 @@ export async function getDecision(
   const project = await findProject(actor, projectId);
   const row = await Approval.findOne({
     where: { id: decisionId, projectId: project.id, organizationId: actor.organizationId },
+    include: [withRunNumber],
   });
   if (!row) throw notFound('Decision');
   return toDecisionView(row);
@@ -98,7 +105,10 @@ export async function decisionOnRun(
   runId: number,
 ): Promise<DecisionView | null> {
   assertMayRead(actor);
-  const row = await Approval.findOne({ where: { runId, projectId, organizationId: actor.organizationId } });
+  const row = await Approval.findOne({
+    where: { runId, projectId, organizationId: actor.organizationId },
+    include: [withRunNumber],
+  });
   return row ? toDecisionView(row) : null;
 }
 
@@ -109,13 +119,13 @@ export async function decideOnRun(actor: Actor, projectId: number, input: unknow
   const project = await findProject(actor, projectId);
   const run = await SimulationRun.findOne({
     where: { id: data.runId, projectId: project.id, organizationId: actor.organizationId },
-    attributes: ['id', 'status', 'result'],
+    attributes: ['id', 'number', 'status', 'result'],
   });
   if (!run) throw notFound('Run');
   if (run.status !== 'succeeded' || !run.result)
-    throw conflict(`Run ${run.id} is ${run.status}: only a run that succeeded can be decided on.`);
+    throw conflict(`Run ${run.number} is ${run.status}: only a run that succeeded can be decided on.`);
   const earlier = await Approval.findOne({ where: { runId: run.id }, attributes: ['id'] });
-  if (earlier) throw conflict(`Run ${run.id} already has a decision; a decision cannot be changed.`);
+  if (earlier) throw conflict(`Run ${run.number} already has a decision; a decision cannot be changed.`);
 
   const result = JSON.parse(run.result) as SimulationResult;
   try {
@@ -134,7 +144,7 @@ export async function decideOnRun(actor: Actor, projectId: number, input: unknow
         },
         { transaction },
       );
-      const view = toDecisionView(approval);
+      const view = toDecisionView(approval, run.number);
       await recordAudit(
         actor,
         {
@@ -154,6 +164,7 @@ export async function decideOnRun(actor: Actor, projectId: number, input: unknow
           projectId: project.id,
           projectName: project.name,
           runId: run.id,
+          runNumber: run.number,
           decision: data.decision,
           comment: data.comment,
           decidedByName: actor.name,
@@ -169,9 +180,15 @@ export async function decideOnRun(actor: Actor, projectId: number, input: unknow
     });
   } catch (error) {
     if (error instanceof UniqueConstraintError)
-      throw conflict(`Run ${run.id} already has a decision; a decision cannot be changed.`);
+      throw conflict(`Run ${run.number} already has a decision; a decision cannot be changed.`);
     throw error;
   }
+}
+
+/** The figures of a run's stored summary that the trend reads (base, P50, P80, P90 of cost). */
+function trendFigures(summary: RunSummary): BaselineSource['result'] {
+  const { base, P50, P80, P90 } = summary.cost;
+  return { cost: { base, percentiles: { P50, P80, P90 } } } as unknown as BaselineSource['result'];
 }
 
 /** The approved baselines in date order with their figures, for the trend. */
@@ -180,7 +197,9 @@ export async function listBaselines(actor: Actor, projectId: number): Promise<Tr
   const project = await findProject(actor, projectId);
   const approvals = await Approval.findAll({
     where: { projectId: project.id, organizationId: actor.organizationId, decision: 'approved' },
-    include: [{ model: SimulationRun, as: 'run', attributes: ['id', 'result'] }],
+    // The run's stored summary holds the base, P50 and P80 the trend reads: the whole result
+    // (megabytes for a large run) is not loaded.
+    include: [{ model: SimulationRun, as: 'run', attributes: ['id', 'number', 'summary'] }],
     order: [
       ['createdAt', 'ASC'],
       ['id', 'ASC'],
@@ -188,15 +207,16 @@ export async function listBaselines(actor: Actor, projectId: number): Promise<Tr
   });
   return trendRows(
     approvals
-      .filter((a) => a.run?.result)
+      .filter((a) => a.run?.summary)
       .map((a) => ({
         approvalId: a.id,
         runId: a.runId,
+        runNumber: a.run!.number,
         decidedAt: new Date(a.createdAt).toISOString(),
         stage: a.stage,
         estimateClass: a.estimateClass,
         sponsorName: a.sponsorName,
-        result: JSON.parse(a.run!.result!) as SimulationResult,
+        result: trendFigures(a.run!.summary!),
       })),
   );
 }

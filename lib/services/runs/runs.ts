@@ -3,7 +3,7 @@ import 'server-only';
 
 import { randomInt } from 'node:crypto';
 import { Op, QueryTypes } from 'sequelize';
-import { SimulationRun, User, sequelize } from '@/models';
+import { Project, SimulationRun, User, sequelize } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
 import { can, type Action } from '@/lib/auth/roles';
 import { badRequest, conflict, forbidden, notFound } from '@/lib/errors';
@@ -29,6 +29,7 @@ const LIST_ATTRIBUTES = [
   'id',
   'organizationId',
   'projectId',
+  'number',
   'startedById',
   'status',
   'settings',
@@ -129,10 +130,18 @@ export async function startRun(
     throw badRequest(`The registers cannot be simulated yet. ${shown.join('; ')}${more}`, checked.issues);
   }
   const run = await sequelize.transaction(async (transaction) => {
+    // The project's row is locked while its next run number is taken, so two runs started at
+    // once get two numbers (the unique index on projectId and number holds it too).
+    await Project.findOne({ where: { id: project.id }, lock: transaction.LOCK.UPDATE, transaction });
+    const last = await SimulationRun.max<number | null, SimulationRun>('number', {
+      where: { projectId: project.id },
+      transaction,
+    });
     const created = await SimulationRun.create(
       {
         organizationId: actor.organizationId,
         projectId: project.id,
+        number: (last ?? 0) + 1,
         startedById: actor.userId,
         settings,
         inputSnapshot: JSON.stringify(snapshot),
