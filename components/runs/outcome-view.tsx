@@ -17,6 +17,7 @@ import {
   formatDays,
   formatMoney,
   formatMoneyShort,
+  formatInterval,
   formatShare,
 } from '@/lib/runs/format';
 import { PercentileTable } from './outcome/percentile-table';
@@ -75,7 +76,8 @@ function Figure({
 /** Long schedules show their most critical activities only, so the chart stays readable. */
 const MAX_CRITICALITY_ROWS = 20;
 
-const ci = (c: [number, number], f: (v: number) => string) => `95 % interval ${f(c[0])} – ${f(c[1])}`;
+const ci = (c: [number, number], f: (v: number) => string) =>
+  `95 % interval ${formatInterval(c[0], c[1], f)}`;
 
 export function OutcomeView({ project, run, result, charts, names }: OutcomeViewProps) {
   const currency = project.currency;
@@ -148,7 +150,7 @@ export function OutcomeView({ project, run, result, charts, names }: OutcomeView
               <Figure
                 label="Finish P80"
                 value={dateOf(duration.percentiles.P80)}
-                sub={`${formatDays(duration.percentiles.P80)}; interval ${dateOf(duration.percentileCI95.P80[0])} – ${dateOf(duration.percentileCI95.P80[1])}`}
+                sub={`${formatDays(duration.percentiles.P80)}; interval ${formatInterval(duration.percentileCI95.P80[0], duration.percentileCI95.P80[1], dateOf)}`}
                 testId="finish-p80"
               />
               <Figure
@@ -255,7 +257,7 @@ export function OutcomeView({ project, run, result, charts, names }: OutcomeView
                 <td className="px-3 py-1">{row.label}</td>
                 <td className="num px-3 py-1 font-semibold">{row.p ? formatShare(row.p.value) : '—'}</td>
                 <td className="num px-3 py-1 text-ink-soft">
-                  {row.p ? `${formatShare(row.p.ci95[0])} – ${formatShare(row.p.ci95[1])}` : '—'}
+                  {row.p ? formatInterval(row.p.ci95[0], row.p.ci95[1], (v) => formatShare(v)) : '—'}
                 </td>
               </tr>
             ))}

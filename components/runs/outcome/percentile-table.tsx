@@ -1,6 +1,7 @@
 import type { PercentileKey, TotalSummary } from '@/lib/sim';
 import { PERCENTILE_KEYS } from '@/lib/domain/percentiles';
 import { contingencyAt } from '@/lib/domain/contingency';
+import { formatInterval } from '@/lib/format';
 import { TableHead, type HeadCell } from '@/components/ui/table';
 
 const right = (title: string): HeadCell => ({ title, align: 'right', className: 'pr-2' });
@@ -51,7 +52,7 @@ export function PercentileTable({
               </td>
               {extra ? <td className="num py-0.5 pr-2">{extra.cell(v)}</td> : null}
               <td className="num whitespace-nowrap py-0.5 pr-2 text-xs text-ink-soft">
-                {ci[k] ? `${format(ci[k][0])} – ${format(ci[k][1])}` : '—'}
+                {ci[k] ? formatInterval(ci[k][0], ci[k][1], format) : '—'}
               </td>
               {withContingency ? (
                 <td className="num py-0.5">{format(contingencyAt(summary, k).amount)}</td>
