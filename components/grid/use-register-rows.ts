@@ -7,6 +7,7 @@ import { useCallback, useMemo, useRef, useState } from 'react';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { ApiError, callApi } from '@/components/forms/api';
 import { rowIssues, type RegisterKind } from '@/lib/validation/registers';
+import { registerQueryKey } from '@/lib/registers/query-key';
 
 export type SavedRow = Record<string, unknown> & {
   id: number;
@@ -42,9 +43,7 @@ const dataOf = (r: Record<string, unknown>) =>
 let counter = 0;
 export const newKey = () => `n${Date.now().toString(36)}${(counter++).toString(36)}`;
 
-export function registerQueryKey(projectId: number, kind: RegisterKind) {
-  return ['register', projectId, kind] as const;
-}
+export { registerQueryKey };
 
 export function useRegisterRows(
   projectId: number,

@@ -1,4 +1,5 @@
-import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
+import { expect, test } from './fixtures';
+import type { APIRequestContext, Page } from '@playwright/test';
 import { AuthPages, DEMO_PASSWORD, demoEmail } from './pages/auth';
 
 const PASSWORD = 'a sensible passphrase';

@@ -1,4 +1,4 @@
-import { expect, test } from '@playwright/test';
+import { expect, test } from './fixtures';
 import { AuthPages } from './pages/auth';
 import { BriefPages } from './pages/brief';
 import { closeFixtureDb, projectWithRegisters, storedResult, succeededRun } from './pages/brief-fixture';

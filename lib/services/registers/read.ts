@@ -21,6 +21,23 @@ export async function listRegister<K extends RegisterKind>(
   return state[kind] as RegisterRow[K][];
 }
 
+/**
+ * Several registers of a project at once, for a page that sends them along with its HTML (one
+ * project lookup, one read of each register).
+ */
+export async function listRegisters<K extends RegisterKind>(
+  actor: Actor,
+  projectId: number,
+  kinds: K[],
+): Promise<{ [P in K]: RegisterRow[P][] }> {
+  const project = await findProject(actor, projectId);
+  // loadState reads one register and the activities it names, or all four.
+  const first = kinds[0];
+  const one = first !== 'correlations' && kinds.every((k) => k === first || k === 'activities');
+  const state = await loadState(project.id, actor.organizationId, undefined, one ? first : undefined);
+  return Object.fromEntries(kinds.map((k) => [k, state[k]])) as { [P in K]: RegisterRow[P][] };
+}
+
 /** The project's audit trail, newest first, in pages of `limit` before the entry `before`. */
 export async function listAudit(
   actor: Actor,

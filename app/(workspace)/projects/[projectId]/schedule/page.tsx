@@ -1,9 +1,14 @@
 import { loadProjectPage } from '../project-page';
+import { RegistersPrefill } from '../registers-prefill';
 import { ScheduleGrid } from '@/components/registers/schedule-grid';
 
 export const metadata = { title: 'Schedule' };
 
 export default async function SchedulePage({ params }: { params: Promise<{ projectId: string }> }) {
-  const { project, readOnly } = await loadProjectPage(params, 'schedule');
-  return <ScheduleGrid projectId={project.id} readOnly={readOnly} />;
+  const { actor, project, readOnly } = await loadProjectPage(params, 'schedule');
+  return (
+    <RegistersPrefill actor={actor} projectId={project.id} kinds={['activities']}>
+      <ScheduleGrid projectId={project.id} readOnly={readOnly} />
+    </RegistersPrefill>
+  );
 }
