@@ -6,8 +6,24 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { AgGridReact } from 'ag-grid-react';
 import {
-  AllCommunityModule,
+  CellApiModule,
+  CellStyleModule,
+  ClientSideRowModelApiModule,
+  ClientSideRowModelModule,
+  ColumnApiModule,
+  ColumnAutoSizeModule,
+  CustomEditorModule,
+  EventApiModule,
   ModuleRegistry,
+  PinnedRowModule,
+  RenderApiModule,
+  RowApiModule,
+  RowSelectionModule,
+  RowStyleModule,
+  ScrollApiModule,
+  SelectEditorModule,
+  TextEditorModule,
+  TooltipModule,
   type CellEditRequestEvent,
   type CellFocusedEvent,
   type CellKeyDownEvent,
@@ -21,7 +37,27 @@ import { parseClipboardBlock } from './clipboard';
 import { UndoStack, type CellChange } from './undo-stack';
 import type { GridRow } from './use-register-rows';
 
-ModuleRegistry.registerModules([AllCommunityModule]);
+// Only the grid features the registers use: the whole community set (filters, pagination, CSV
+// export, other row models…) more than doubles the code a register tab loads before it can draw.
+ModuleRegistry.registerModules([
+  ClientSideRowModelModule,
+  ClientSideRowModelApiModule,
+  TextEditorModule,
+  SelectEditorModule,
+  CustomEditorModule,
+  RowSelectionModule,
+  PinnedRowModule,
+  TooltipModule,
+  CellStyleModule,
+  RowStyleModule,
+  ColumnAutoSizeModule,
+  ColumnApiModule,
+  RowApiModule,
+  CellApiModule,
+  ScrollApiModule,
+  RenderApiModule,
+  EventApiModule,
+]);
 
 export type GridChange = { key: string; values: Record<string, unknown> };
 

@@ -1,25 +1,17 @@
 // Values of the model file and of register rows as people read them, for the lists of changes
 // (the audit trail, the comparison of two runs): never raw JSON. A distribution reads
 // "PERT 3,800,000 / 4,200,000 / 5,400,000", a probability "30.0 %", a list "A1, A2 (lag 5)".
+import { DIST_LABELS } from '@/lib/registers/dist-fields';
 import { formatNumber, formatPercent } from './numbers';
 
 export type ValueKind = 'money' | 'days' | 'percent' | 'number' | 'text';
-
-const DIST_NAMES: Record<string, string> = {
-  fixed: 'Fixed',
-  uniform: 'Uniform',
-  triangular: 'Triangular',
-  pert: 'PERT',
-  normal: 'Normal',
-  lognormal: 'Lognormal',
-};
 
 const num = (v: unknown, kind: ValueKind) =>
   typeof v === 'number' ? (kind === 'percent' ? formatPercent(v) : formatNumber(v, 2)) : '—';
 
 /** A distribution of the model file: "Triangular 80 / 100 / 150", "Normal mean 100, sd 10". */
 export function distText(dist: Record<string, unknown>, kind: ValueKind = 'number'): string {
-  const name = DIST_NAMES[String(dist.type)] ?? String(dist.type);
+  const name = DIST_LABELS[dist.type as keyof typeof DIST_LABELS] ?? String(dist.type);
   const n = (k: string) => num(dist[k], kind);
   const range = dist.range === 'p10-p90' ? ' (P10–P90)' : '';
   switch (dist.type) {

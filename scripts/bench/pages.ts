@@ -16,8 +16,8 @@
 // two small runs on it when it has fewer than two succeeded ones (outcome, brief and compare need
 // them), and creates a 2,000-line project BENCH-… for the grid, archived at the end.
 import { chromium, type Page } from '@playwright/test';
+import { APP_URL, launchOptions, projectWithLines, signIn } from './app';
 
-const APP_URL = process.env.APP_URL ?? 'http://localhost:3000';
 const RUNS = Number(process.env.RUNS ?? 3);
 const PAGE_AIM_MS = 1000;
 const GRID_AIM_MS = 1500;
@@ -73,48 +73,10 @@ async function ensureRuns(page: Page, projectId: number): Promise<number[]> {
   return done.sort((a, b) => b - a);
 }
 
-async function gridProject(page: Page): Promise<number> {
-  const code = `BENCH-${Date.now().toString(36).toUpperCase()}`;
-  const created = await page.request.post(`${APP_URL}/api/projects`, {
-    data: {
-      name: 'Page benchmark',
-      code,
-      currency: 'EUR',
-      estimateClass: 4,
-      stage: 'Concept',
-      baseDate: '2027-01-04',
-    },
-  });
-  if (created.status() !== 201)
-    throw new Error(`could not create the bench project: ${await created.text()}`);
-  const projectId = (await created.json()).project.id as number;
-  const upserts = Array.from({ length: GRID_LINES }, (_, i) => {
-    const base = 10_000 + ((i * 7919) % 90_000);
-    return {
-      code: `${1 + Math.floor(i / 100)}.${(i % 100) + 1}`,
-      description: `Line ${i + 1}`,
-      distType: 'triangular',
-      low: base * 0.85,
-      mode: base,
-      high: base * 1.5,
-    };
-  });
-  const seeded = await page.request.post(`${APP_URL}/api/projects/${projectId}/items`, { data: { upserts } });
-  if (seeded.status() !== 200) throw new Error(`could not create the lines: ${await seeded.text()}`);
-  return projectId;
-}
-
 async function main() {
-  const browser = await chromium.launch({
-    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--no-first-run'],
-  });
+  const browser = await chromium.launch(await launchOptions());
   const page = await browser.newPage({ viewport: { width: 1280, height: 860 } });
-  await page.goto(`${APP_URL}/sign-in`);
-  await page.getByLabel('E-mail').fill('owner@kestrelvale.example');
-  await page.getByLabel('Password').fill('demo-outturn-2026');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(/\/projects/);
+  await signIn(page, 'owner@kestrelvale.example');
 
   const projects = (await (await page.request.get(`${APP_URL}/api/projects`)).json()).projects as {
     id: number;
@@ -124,7 +86,7 @@ async function main() {
   if (!demo) throw new Error('the demo project ASH-WTP is missing: run npm run db:seed');
   const p = `/projects/${demo.id}`;
   const [latest, earlier] = await ensureRuns(page, demo.id);
-  const gridId = await gridProject(page);
+  const gridId = await projectWithLines(page, GRID_LINES, 'Page benchmark');
 
   const grid = '.ag-row[row-index="0"] [col-id]';
   const cases: PageCase[] = [

@@ -92,3 +92,10 @@ for (const role of ['owner', 'estimator', 'sponsor', 'billing'] as const) {
     }
   });
 }
+
+test('the console guard fails a test whose page logs an error', async ({ page }) => {
+  // Expected to fail: the guard of ./fixtures must turn the planted error into a failure.
+  test.fail();
+  await page.goto('/sign-in');
+  await page.evaluate(() => console.error('a planted console error'));
+});

@@ -68,8 +68,8 @@ export const test = base.extend<{
       context.on('page', (page) => watchConsole(page, problems));
       await use();
       const unexpected = unexpectedProblems(problems, allowedConsoleErrors);
-      // A test that failed already says why; the console's problems are attached to it.
-      if (unexpected.length && testInfo.status === testInfo.expectedStatus) {
+      // A test that failed already says why; one that passed fails here.
+      if (unexpected.length && testInfo.status === 'passed') {
         throw new Error(
           `The browser console reported ${unexpected.length} problem(s):\n` +
             unexpected.map((p) => `  [${p.kind}] ${p.page}: ${p.text}`).join('\n'),

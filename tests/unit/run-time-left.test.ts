@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { estimateMsLeft, MIN_RATE_SPAN_MS } from '@/lib/runs/time-left';
+import { formatTimeLeft } from '@/lib/runs/format';
 
 // Common practice: remaining time = remaining work ÷ measured rate, with the rate measured after
 // the start-up cost (here: from the first finished block), as download and build tools do.
@@ -27,5 +28,13 @@ describe('the time left of a run', () => {
     const latest = { at: 1000, done: 1000 };
     expect(estimateMsLeft(first, latest, 2000, 1400)).toBeCloseTo(600, 6);
     expect(estimateMsLeft(first, latest, 2000, 5000)).toBe(0);
+  });
+});
+
+describe('the time left as written', () => {
+  it('is rounded as a person would say it, and says estimating… when unknown', () => {
+    expect(formatTimeLeft(12_300)).toBe('about 13 s');
+    expect(formatTimeLeft(185_000)).toBe('about 3 min');
+    expect(formatTimeLeft(Number.NaN)).toBe('estimating…');
   });
 });
