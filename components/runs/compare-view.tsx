@@ -171,7 +171,11 @@ export function CompareView({
         {dA && dB ? (
           <ChartFrame
             title="Finish-date S-curves"
-            reading={`The P80 finish moved from ${dateOf(dA.percentiles.P80)} to ${dateOf(dB.percentiles.P80)}.`}
+            reading={
+              dateOf(dA.percentiles.P80) === dateOf(dB.percentiles.P80)
+                ? `The P80 finish stays at ${dateOf(dB.percentiles.P80)}.`
+                : `The P80 finish moved from ${dateOf(dA.percentiles.P80)} to ${dateOf(dB.percentiles.P80)}.`
+            }
             height={260}
           >
             <SCurveCompare

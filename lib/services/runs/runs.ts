@@ -11,6 +11,7 @@ import { parseOrThrow } from '@/lib/validation/parse';
 import { MAX_SEED, runSettingsInputSchema, type RunSettings } from '@/lib/validation/runs';
 import { validateModel, type Model, type SimulationResult } from '@/lib/sim';
 import { workingDaysThrough } from '@/lib/runs/working-days';
+import { formatDate } from '@/lib/format';
 import { snapshotHash } from '@/lib/runs/snapshot-hash';
 import { recordAudit } from '../audit';
 import { exportModelFile } from '../model-file';
@@ -79,9 +80,15 @@ async function viewOf(run: SimulationRun): Promise<RunView> {
 function resolveSettings(input: unknown, baseDate: string): RunSettings {
   const data = parseOrThrow(runSettingsInputSchema, input ?? {});
   if (data.finishTarget && data.finishTarget < baseDate) {
-    throw badRequest(`finishTarget: the finish target must be on or after the base date ${baseDate}.`, [
-      { path: 'finishTarget', message: `Must be on or after the project's base date, ${baseDate}.` },
-    ]);
+    throw badRequest(
+      `finishTarget: the finish target must be on or after the base date, ${formatDate(baseDate)}.`,
+      [
+        {
+          path: 'finishTarget',
+          message: `Must be on or after the project's base date, ${formatDate(baseDate)}.`,
+        },
+      ],
+    );
   }
   return {
     iterations: data.iterations,
