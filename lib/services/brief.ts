@@ -40,7 +40,7 @@ async function lastSent(actor: Actor, projectId: number, runId: number) {
 export async function getBrief(actor: Actor, projectId: number, runId: number): Promise<BriefData> {
   if (!can(actor.role, 'brief:read')) throw forbidden();
   const project = await findProject(actor, projectId);
-  const outcome = await getRunOutcome(actor, project.id, runId);
+  const outcome = await getRunOutcome(actor, project.id, runId, { withSample: false });
   const [decision, sentForDecision] = await Promise.all([
     decisionOnRun(actor, project.id, runId),
     lastSent(actor, project.id, runId),

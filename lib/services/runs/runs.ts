@@ -59,11 +59,25 @@ async function queuePositions(organizationId: number): Promise<Map<number, numbe
   return new Map(queued.map((r, i) => [r.id, i + 1]));
 }
 
-async function findRun(actor: Actor, projectId: number, runId: number, full = false): Promise<SimulationRun> {
+/** The columns read: the list's, or with the snapshot and result (and the chart sample, unless not wanted). */
+type Columns = 'list' | 'full' | 'without-sample';
+const COLUMNS: Record<Columns, string[] | undefined> = {
+  list: [...LIST_ATTRIBUTES],
+  full: undefined,
+  'without-sample': [...LIST_ATTRIBUTES, 'inputSnapshot', 'result'],
+};
+
+async function findRun(
+  actor: Actor,
+  projectId: number,
+  runId: number,
+  columns: Columns | boolean = 'list',
+): Promise<SimulationRun> {
+  const which: Columns = columns === true ? 'full' : columns === false ? 'list' : columns;
   const run = Number.isInteger(runId)
     ? await SimulationRun.findOne({
         where: { id: runId, projectId, organizationId: actor.organizationId },
-        attributes: full ? undefined : [...LIST_ATTRIBUTES],
+        attributes: COLUMNS[which],
         include: [withStarter],
       })
     : null;
@@ -203,11 +217,19 @@ export type RunOutcome = {
   snapshot: Model;
 };
 
-/** The stored result of a run that succeeded (409 while it has none). */
-export async function getRunOutcome(actor: Actor, projectId: number, runId: number): Promise<RunOutcome> {
+/**
+ * The stored result of a run that succeeded (409 while it has none). `withSample: false` leaves
+ * out the sample the outcome's charts draw from (large, and not read by the comparison).
+ */
+export async function getRunOutcome(
+  actor: Actor,
+  projectId: number,
+  runId: number,
+  { withSample = true }: { withSample?: boolean } = {},
+): Promise<RunOutcome> {
   assertMay(actor, 'run:read');
   const project = await findProject(actor, projectId);
-  const run = await findRun(actor, project.id, runId, true);
+  const run = await findRun(actor, project.id, runId, withSample ? 'full' : 'without-sample');
   if (run.status !== 'succeeded' || !run.result) {
     throw conflict(`Run ${run.id} has no result: it is ${run.status}.`, { status: run.status });
   }
