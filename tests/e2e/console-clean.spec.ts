@@ -4,7 +4,7 @@
  * on any of them). Pages a role may not open are visited too: their forbidden page must be
  * clean as well.
  */
-import { expect, test } from './fixtures';
+import { expect, test, TEMPORARY_BRIEF_HYDRATION_418 } from './fixtures';
 import type { Page } from '@playwright/test';
 import { AuthPages, DEMO_PASSWORD, demoEmail } from './pages/auth';
 import { projectIdByCode } from './pages/runs';
@@ -54,12 +54,7 @@ function workspacePages(projectId: number, older: number, newer: number): string
   ];
 }
 
-/**
- * Known and being fixed elsewhere: the brief raises React's hydration error #418. Only that
- * message, only on the brief, is let through here, so that every other page is held to none.
- * TEMPORARY: remove once the brief's hydration error is fixed.
- */
-const TEMPORARY_BRIEF_HYDRATION_418 = { page: /\/runs\/\d+\/brief$/, text: /#418|errors\/418/ };
+// The one known exception (see ./fixtures): the brief's hydration error, on the brief only.
 test.use({ allowedConsoleErrors: [TEMPORARY_BRIEF_HYDRATION_418] });
 
 let runs: { projectId: number; older: number; newer: number } | undefined;

@@ -56,6 +56,16 @@ export function unexpectedProblems(
   return problems.filter((p) => !allowed.some((a) => explains(a, p)));
 }
 
+/**
+ * TEMPORARY, known and being fixed: the brief raises React's hydration error #418. Only that
+ * message, and only on a brief's page, is let through by the specs that open a brief, so that
+ * every other page is held to none. Remove it (and its uses) once the brief hydrates cleanly.
+ */
+export const TEMPORARY_BRIEF_HYDRATION_418: AllowedConsoleError = {
+  page: /\/runs\/\d+\/brief$/,
+  text: /#418|errors\/418/,
+};
+
 export const test = base.extend<{
   allowedConsoleErrors: AllowedConsoleError[];
   consoleGuard: void;
