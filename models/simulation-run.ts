@@ -35,6 +35,8 @@ export class SimulationRun extends Model<
   declare id: CreationOptional<number>;
   declare organizationId: ForeignKey<Organization['id']>;
   declare projectId: ForeignKey<Project['id']>;
+  /** The run's number within its project: Run 1 is the project's first run. */
+  declare number: CreationOptional<number>;
   declare startedById: ForeignKey<User['id']> | null;
   declare status: CreationOptional<RunStatus>;
   declare settings: RunSettings;
@@ -62,6 +64,7 @@ SimulationRun.init(
     id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
     organizationId: { type: DataTypes.INTEGER, allowNull: false },
     projectId: { type: DataTypes.INTEGER, allowNull: false },
+    number: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
     startedById: { type: DataTypes.INTEGER, allowNull: true },
     status: { type: DataTypes.ENUM(...RUN_STATUSES), allowNull: false, defaultValue: 'queued' },
     settings: { type: DataTypes.JSON, allowNull: false },

@@ -1,14 +1,15 @@
-// Money arrives in the currency's minor unit (cents); dates as ISO strings.
+// Money arrives in the currency's minor unit (cents); dates as ISO strings. Both are written
+// through lib/format, the one place for figures.
+import { formatDate, formatMoneyExact } from '@/lib/format';
+
 export function money(cents: number | null, currency: string | null): string {
   if (cents == null || !currency) return '—';
-  return new Intl.NumberFormat('en-GB', { style: 'currency', currency: currency.toUpperCase() }).format(
-    cents / 100,
-  );
+  return formatMoneyExact(cents / 100, currency);
 }
 
 export function day(value: string | null): string {
   if (!value) return '—';
-  return new Date(value).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+  return formatDate(value);
 }
 
 export const STATUS_LABELS: Record<string, string> = {

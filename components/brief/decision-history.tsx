@@ -14,7 +14,7 @@ export function DecisionHistory({ decisions, projectId }: { decisions: DecisionV
           <td className="py-1 whitespace-nowrap">{dateTimeText(d.decidedAt)}</td>
           <td className="py-1">
             <BriefLink projectId={projectId} runId={d.runId}>
-              Run {d.runId}
+              Run {d.runNumber}
             </BriefLink>
           </td>
           <td

@@ -36,7 +36,7 @@ export function TrendTable({
               {dateText(r.decidedAt)}
             </BriefLink>
             <span className="block text-2xs text-ink-faint">
-              run {r.runId} · {r.sponsorName}
+              run {r.runNumber} · {r.sponsorName}
             </span>
             {r.selfApproved ? (
               <span

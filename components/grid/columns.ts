@@ -1,7 +1,7 @@
 // The grids' column description (ours, independent of AG Grid) and how typed or pasted text
 // becomes a cell value.
 
-import { readNumber, readProbability } from '@/lib/registers/numbers';
+import { formatNumber, readNumber, readProbability } from '@/lib/registers/numbers';
 import { formatPredecessors, parsePredecessors, type PredecessorLink } from '@/lib/registers/predecessors';
 import { formatCodeList, readCodeList } from '@/lib/registers/risk-fields';
 import type { GridRow } from './use-register-rows';
@@ -90,8 +90,8 @@ export function cellText(col: RegisterColumn, value: unknown, row: GridRow): str
     return Array.isArray(value) ? formatPredecessors(value as PredecessorLink[]) : String(value);
   if (col.kind === 'codes') return formatCodeList(value);
   if (col.kind === 'choice') return col.options?.find((o) => o.value === value)?.label ?? String(value);
-  if (col.kind === 'percent' && typeof value === 'number') return `${+(value * 100).toFixed(2)}%`;
-  if (typeof value === 'number') return value.toLocaleString('en-GB', { maximumFractionDigits: 2 });
+  if (col.kind === 'percent' && typeof value === 'number') return `${formatNumber(value * 100, 2)} %`;
+  if (typeof value === 'number') return formatNumber(value, 2);
   return String(value);
 }
 

@@ -7,8 +7,24 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { AgGridReact } from 'ag-grid-react';
 import {
-  AllCommunityModule,
+  CellApiModule,
+  CellStyleModule,
+  ClientSideRowModelApiModule,
+  ClientSideRowModelModule,
+  ColumnApiModule,
+  ColumnAutoSizeModule,
+  CustomEditorModule,
+  EventApiModule,
   ModuleRegistry,
+  PinnedRowModule,
+  RenderApiModule,
+  RowApiModule,
+  RowSelectionModule,
+  RowStyleModule,
+  ScrollApiModule,
+  SelectEditorModule,
+  TextEditorModule,
+  TooltipModule,
   type CellEditRequestEvent,
   type CellFocusedEvent,
   type ColDef,
@@ -24,7 +40,27 @@ import { blockBetween, inBlock, isMulti, type Block, type CellAt } from './cell-
 import { UndoStack, type CellChange } from './undo-stack';
 import type { GridRow } from './use-register-rows';
 
-ModuleRegistry.registerModules([AllCommunityModule]);
+// Only the grid features the registers use: the whole community set (filters, pagination, CSV
+// export, other row models…) more than doubles the code a register tab loads before it can draw.
+ModuleRegistry.registerModules([
+  ClientSideRowModelModule,
+  ClientSideRowModelApiModule,
+  TextEditorModule,
+  SelectEditorModule,
+  CustomEditorModule,
+  RowSelectionModule,
+  PinnedRowModule,
+  TooltipModule,
+  CellStyleModule,
+  RowStyleModule,
+  ColumnAutoSizeModule,
+  ColumnApiModule,
+  RowApiModule,
+  CellApiModule,
+  ScrollApiModule,
+  RenderApiModule,
+  EventApiModule,
+]);
 
 export type GridChange = { key: string; values: Record<string, unknown> };
 

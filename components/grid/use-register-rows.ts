@@ -12,6 +12,7 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { ApiError, callApi } from '@/components/forms/api';
 import { rowIssues, type RegisterKind } from '@/lib/validation/registers';
+import { registerQueryKey } from '@/lib/registers/query-key';
 import { loadDrafts, saveDrafts, type Draft } from './draft-store';
 import { useDraftOwner } from './draft-owner';
 import { OwnVersions } from './own-versions';
@@ -51,9 +52,7 @@ const dataOf = (r: Record<string, unknown>) =>
 let counter = 0;
 export const newKey = () => `n${Date.now().toString(36)}${(counter++).toString(36)}`;
 
-export function registerQueryKey(projectId: number, kind: RegisterKind) {
-  return ['register', projectId, kind] as const;
-}
+export { registerQueryKey };
 
 /** What the grid says about drafts kept from an earlier visit. */
 function keptNotice(count: number): Notice {

@@ -15,6 +15,7 @@ import { Button } from '@/components/ui/button';
 import { Card, Skeleton } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 import { TableHead } from '@/components/ui/table';
+import { formatDate } from '@/lib/format';
 
 type InviteValues = z.input<typeof inviteSchema>;
 
@@ -188,9 +189,7 @@ export function MembersPanel({ selfUserId }: { selfUserId: number }) {
               <li key={i.id} className="flex items-center gap-3 py-1.5">
                 <span className="w-64">{i.email}</span>
                 <span className="w-24 text-ink-soft">{ROLE_LABELS[i.role]}</span>
-                <span className="text-xs text-ink-faint">
-                  expires {new Date(i.expiresAt).toLocaleDateString()}
-                </span>
+                <span className="text-xs text-ink-faint">expires {formatDate(i.expiresAt)}</span>
                 <code className="ml-auto max-w-xs truncate text-xs text-ink-faint">{i.link}</code>
                 <Button variant="ghost" onClick={() => revoke.mutate(i.id)}>
                   Revoke

@@ -104,8 +104,9 @@ export function NewProjectForm({
         }
       }
       onDone?.();
-      router.push(`/projects/${created.id}`);
-      router.refresh();
+      // Straight to the first tab: through /projects/:id the server's redirect costs a round trip
+      // with nothing to show, and a refresh of the list here would race the navigation.
+      router.push(`/projects/${created.id}/items`);
     } catch (err) {
       if (!(err instanceof ApiError)) throw err;
       for (const issue of err.failure.issues)

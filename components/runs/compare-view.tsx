@@ -9,11 +9,19 @@ import type { RunView } from '@/lib/view-types/runs';
 import type { SnapshotDiff } from '@/lib/runs/snapshot-diff';
 import { percentileCurve } from '@/lib/runs/outcome-data';
 import { calendarOfRun, finishDate } from '@/lib/runs/working-days';
-import { formatChange, formatDate, formatDays, formatMoney, formatMoneyShort } from '@/lib/runs/format';
+import {
+  formatChange,
+  formatDate,
+  formatDateTime,
+  formatDays,
+  formatMoney,
+  formatMoneyShort,
+  formatNumber,
+  formatPercent,
+} from '@/lib/runs/format';
+import { diffValueText, fieldLabel } from '@/lib/runs/diff-text';
 import { TableHead, type HeadCell } from '@/components/ui/table';
 import { settingsText } from './settings-text';
-
-const when = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' });
 
 type Side = { run: RunView; result: SimulationResult };
 
@@ -30,9 +38,6 @@ const VALUES_HEAD: HeadCell[] = [
   'Level',
   ...['Older', 'Newer', 'Change'].map((title) => ({ title, align: 'right' as const })),
 ];
-
-const show = (v: unknown) =>
-  v === null || v === undefined ? '—' : typeof v === 'object' ? JSON.stringify(v) : String(v);
 
 function ValuesTable({
   title,
@@ -69,6 +74,44 @@ function ValuesTable({
   );
 }
 
+/** The chances each run gives of meeting its targets, as percentages; absent when no target was set. */
+function ChancesTable({ older, newer }: { older: SimulationResult; newer: SimulationResult }) {
+  const rows = [
+    ['Cost within its target', (r: SimulationResult) => r.cost.probabilityWithinTarget?.value],
+    ['Finish within its target', (r: SimulationResult) => r.duration?.probabilityWithinTarget?.value],
+    ['Both targets met', (r: SimulationResult) => r.joint?.probability],
+  ] as const;
+  const shown = rows.filter(([, pick]) => pick(older) !== undefined || pick(newer) !== undefined);
+  if (!shown.length) return null;
+  const pct = (v: number | undefined) => (v === undefined ? '—' : formatPercent(v));
+  return (
+    <table className="w-full border-collapse text-sm" data-testid="compare-chances">
+      <caption className="pb-1 text-left text-xs font-semibold uppercase tracking-wide text-ink-soft">
+        Chance of meeting the targets
+      </caption>
+      <TableHead look="captioned" cells={VALUES_HEAD} />
+      <tbody>
+        {shown.map(([label, pick]) => {
+          const va = pick(older);
+          const vb = pick(newer);
+          return (
+            <tr key={label} className="border-b border-rule/60">
+              <td className="py-0.5">{label}</td>
+              <td className="num py-0.5">{pct(va)}</td>
+              <td className="num py-0.5">{pct(vb)}</td>
+              <td className="num py-0.5">
+                {va === undefined || vb === undefined
+                  ? '—'
+                  : formatChange(vb - va, (v) => `${formatNumber(v * 100, 1, 1)} points`)}
+              </td>
+            </tr>
+          );
+        })}
+      </tbody>
+    </table>
+  );
+}
+
 export function CompareView({
   project,
   a,
@@ -86,7 +129,9 @@ export function CompareView({
   // Both runs' days become dates on the newer run's calendar, so that one axis serves both.
   const dateOf = (d: number) =>
     formatDate(finishDate(project.baseDate, d, calendarOfRun(newer.run.settings)));
-  const labels: [string, string] = [`Run ${older.run.id}`, `Run ${newer.run.id}`];
+  const labels: [string, string] = [`Run ${older.run.number}`, `Run ${newer.run.number}`];
+  const show = (line: Parameters<typeof diffValueText>[0], field: string, v: unknown) =>
+    diffValueText(line, field, v, project.currency);
   const dA = older.result.duration;
   const dB = newer.result.duration;
   const p80Change = newer.result.cost.percentiles.P80 - older.result.cost.percentiles.P80;
@@ -96,7 +141,7 @@ export function CompareView({
         <div className="grid grid-cols-2 gap-3 text-sm">
           {[older, newer].map((s) => (
             <p key={s.run.id} className="rounded border border-rule bg-paper-raised px-3 py-2">
-              <strong>Run {s.run.id}</strong> · {when.format(new Date(s.run.createdAt))} ·{' '}
+              <strong>Run {s.run.number}</strong> · {formatDateTime(s.run.createdAt)} ·{' '}
               {s.run.startedBy?.name ?? '—'}
               <br />
               <span className="text-xs text-ink-soft">{settingsText(s.run.settings)}</span>
@@ -111,10 +156,11 @@ export function CompareView({
           {dA && dB ? (
             <ValuesTable title="Duration (working days)" a={dA} b={dB} format={(v) => formatDays(v)} />
           ) : null}
+          <ChancesTable older={older.result} newer={newer.result} />
         </div>
         <ChartFrame
           title="Cost S-curves"
-          reading={`The cost P80 moved by ${formatChange(p80Change, money)} from run ${older.run.id} to run ${newer.run.id}.`}
+          reading={`The cost P80 moved by ${formatChange(p80Change, money)} from run ${older.run.number} to run ${newer.run.number}.`}
           height={260}
         >
           <SCurveCompare
@@ -128,7 +174,11 @@ export function CompareView({
         {dA && dB ? (
           <ChartFrame
             title="Finish-date S-curves"
-            reading={`The P80 finish moved from ${dateOf(dA.percentiles.P80)} to ${dateOf(dB.percentiles.P80)}.`}
+            reading={
+              dateOf(dA.percentiles.P80) === dateOf(dB.percentiles.P80)
+                ? `The P80 finish stays at ${dateOf(dB.percentiles.P80)}.`
+                : `The P80 finish moved from ${dateOf(dA.percentiles.P80)} to ${dateOf(dB.percentiles.P80)}.`
+            }
             height={260}
           >
             <SCurveCompare
@@ -155,8 +205,8 @@ export function CompareView({
                 <th className="px-3 py-1.5">Change</th>
                 <th className="px-3 py-1.5">Line</th>
                 <th className="px-3 py-1.5">Field</th>
-                <th className="px-3 py-1.5">Run {older.run.id}</th>
-                <th className="px-3 py-1.5">Run {newer.run.id}</th>
+                <th className="px-3 py-1.5">Run {older.run.number}</th>
+                <th className="px-3 py-1.5">Run {newer.run.number}</th>
               </tr>
             </thead>
             <tbody>
@@ -176,19 +226,19 @@ export function CompareView({
                         </>
                       ) : null}
                     </td>
-                    <td className="px-3 py-1">{f?.field ?? ''}</td>
-                    <td className="px-3 py-1 font-mono text-xs">{f ? show(f.before) : ''}</td>
-                    <td className="px-3 py-1 font-mono text-xs">{f ? show(f.after) : ''}</td>
+                    <td className="px-3 py-1">{f ? fieldLabel(f.field) : ''}</td>
+                    <td className="num px-3 py-1 text-left">{f ? show(l.kind, f.field, f.before) : ''}</td>
+                    <td className="num px-3 py-1 text-left">{f ? show(l.kind, f.field, f.after) : ''}</td>
                   </tr>
                 )),
               )}
               {diff.other.map((o) => (
                 <tr key={o.field} className="border-t border-rule align-top" data-change="settings">
                   <td className="px-3 py-1">changed</td>
-                  <td className="px-3 py-1">Run {o.field}</td>
+                  <td className="px-3 py-1">The run’s {fieldLabel(o.field).toLowerCase()}</td>
                   <td className="px-3 py-1" />
-                  <td className="px-3 py-1 font-mono text-xs">{show(o.before)}</td>
-                  <td className="px-3 py-1 font-mono text-xs">{show(o.after)}</td>
+                  <td className="num px-3 py-1 text-left">{show('run', o.field, o.before)}</td>
+                  <td className="num px-3 py-1 text-left">{show('run', o.field, o.after)}</td>
                 </tr>
               ))}
             </tbody>

@@ -17,6 +17,7 @@ import {
   formatDays,
   formatMoney,
   formatMoneyShort,
+  formatInterval,
   formatShare,
 } from '@/lib/runs/format';
 import { PercentileTable } from './outcome/percentile-table';
@@ -78,7 +79,8 @@ function Figure({
   );
 }
 
-const ci = (c: [number, number], f: (v: number) => string) => `95 % interval ${f(c[0])} – ${f(c[1])}`;
+const ci = (c: [number, number], f: (v: number) => string) =>
+  `95 % interval ${formatInterval(c[0], c[1], f)}`;
 
 export function OutcomeView({ project, run, result, charts, names }: OutcomeViewProps) {
   const currency = project.currency;
@@ -159,7 +161,7 @@ export function OutcomeView({ project, run, result, charts, names }: OutcomeView
                 <Figure
                   label="Finish P80"
                   value={dateOf(duration.percentiles.P80)}
-                  sub={`${formatDays(duration.percentiles.P80)}; interval ${dateOf(duration.percentileCI95.P80[0])} – ${dateOf(duration.percentileCI95.P80[1])}`}
+                  sub={`${formatDays(duration.percentiles.P80)}; interval ${formatInterval(duration.percentileCI95.P80[0], duration.percentileCI95.P80[1], dateOf)}`}
                   testId="finish-p80"
                 />
                 <Figure

@@ -19,6 +19,7 @@ import {
   type RunSettingsForm,
 } from '@/lib/validation/runs';
 import type { RunView } from '@/lib/view-types/runs';
+import { formatDate } from '@/lib/format';
 
 const newSeed = () => 1 + Math.floor(Math.random() * MAX_SEED);
 const id = (name: string) => `run-${name}`;
@@ -165,7 +166,7 @@ export function RunSettingsForm({
       name: 'finishTarget',
       id: 'finish-target',
       label: 'Finish target',
-      hint: `Optional; on or after the base date ${baseDate}`,
+      hint: `Optional; on or after the base date, ${formatDate(baseDate)}`,
       input: { type: 'date', min: baseDate },
     },
   ];

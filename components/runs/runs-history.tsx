@@ -8,19 +8,17 @@ import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/card';
 import { callApi } from '@/components/forms/api';
 import type { RunView } from '@/lib/view-types/runs';
-import { formatDays, formatMoney } from '@/lib/runs/format';
+import { formatDateTime, formatDays, formatMoney, formatPercent } from '@/lib/runs/format';
 import { RunStatusBadge } from './run-status';
 import { settingsText } from './settings-text';
 import { TableHead, type HeadCell } from '@/components/ui/table';
 
 const HEAD: HeadCell[] = [
   { title: <span className="sr-only">Compare</span>, padding: 'w-8 px-2 py-2' },
-  ...['Run', 'Status', 'Started (UTC)', 'By', 'Settings'],
+  ...['Run', 'Status', 'Started', 'By', 'Settings'],
   ...['Cost P50', 'Cost P80', 'Duration P80'].map((title) => ({ title, align: 'right' as const })),
   'Brief',
 ];
-
-const when = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' });
 
 /** The project's runs, newest first; refreshed every second while one is queued or running. */
 export function RunsHistory({
@@ -80,7 +78,7 @@ export function RunsHistory({
               <td className="px-2 py-1.5">
                 <input
                   type="checkbox"
-                  aria-label={`Compare run ${r.id}`}
+                  aria-label={`Compare run ${r.number}`}
                   disabled={r.status !== 'succeeded'}
                   checked={picked.includes(r.id)}
                   onChange={() => toggle(r.id)}
@@ -88,19 +86,19 @@ export function RunsHistory({
               </td>
               <td className="px-3 py-1.5 font-medium">
                 <Link href={`/projects/${projectId}/runs/${r.id}`} className="text-cost hover:underline">
-                  Run {r.id}
+                  Run {r.number}
                 </Link>
               </td>
               <td className="px-3 py-1.5">
                 <RunStatusBadge status={r.status} />
                 {r.status === 'running' ? (
-                  <span className="num ml-2 text-xs text-ink-soft">{Math.round(r.progress * 100)} %</span>
+                  <span className="num ml-2 text-xs text-ink-soft">{formatPercent(r.progress, 0)}</span>
                 ) : null}
                 {r.status === 'queued' && r.queuePosition ? (
                   <span className="ml-2 text-xs text-ink-soft">#{r.queuePosition} in queue</span>
                 ) : null}
               </td>
-              <td className="num px-3 py-1.5 text-left">{when.format(new Date(r.createdAt))}</td>
+              <td className="num px-3 py-1.5 text-left">{formatDateTime(r.createdAt)}</td>
               <td className="px-3 py-1.5">{r.startedBy?.name ?? '—'}</td>
               <td className="px-3 py-1.5 text-xs text-ink-soft">{settingsText(r.settings)}</td>
               <td className="num px-3 py-1.5">

@@ -70,6 +70,8 @@ export type BriefProject = {
 
 export type BriefRun = {
   id: number;
+  /** The run's number within its project, the name the brief reads. */
+  number: number;
   iterations: number;
   seed: number | string;
   sampling: string;

@@ -15,6 +15,8 @@ import type { Scenario } from './scenario';
 export type BaselineSource = {
   approvalId: number;
   runId: number;
+  /** The run's number within its project, the name people read. */
+  runNumber: number;
   decidedAt: string;
   stage: string;
   estimateClass: number;

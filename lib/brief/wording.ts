@@ -60,9 +60,9 @@ export function classCheckWarnings(check: ClassCheck): string[] {
  * Separation of duties: the person who started a run does not also approve it as the baseline,
  * unless an owner has allowed self-approval for the organisation.
  */
-export function selfApprovalRefusal(runId: number): string {
+export function selfApprovalRefusal(runNumber: number): string {
   return (
-    `You started run ${runId}, so someone else must approve it as the baseline: a second person checks ` +
+    `You started run ${runNumber}, so someone else must approve it as the baseline: a second person checks ` +
     'the inputs and the figures before money is committed (separation of duties). You may still return it. ' +
     'An owner can allow self-approval for a small organisation under Organisation settings.'
   );

@@ -1,7 +1,9 @@
 // Reading numbers typed or pasted by people as spreadsheets show them: "1 250 000",
 // "1,250,000.50", "£95,000", "€1.2m", "EUR 40k", "(1,200)", "30%", "'0042" (a leading apostrophe
 // marks a spreadsheet cell as text). What cannot be read comes back as the text itself, so the
-// cell can say why it was refused rather than silently holding a wrong figure.
+// cell can say why it was refused rather than silently holding a wrong figure. Figures are written
+// in the grids through the one format of lib/format.
+import { formatNumber as formatPlainNumber } from '@/lib/format';
 
 // Spaces a spreadsheet or a locale puts between thousands: space, no-break space, narrow no-break space.
 const SPACES = /[\s\u00a0\u202f]/g;
@@ -61,12 +63,13 @@ export function readProbability(input: unknown): number | null | string {
   return typeof n === 'number' && n > 1 ? n / 100 : n;
 }
 
+/** A grid's money cell: "1,250,000", "−50,000" (the true minus sign, never "−0"). */
 export function formatMoney(value: number | null | undefined, digits = 0): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '';
-  return value.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+  return formatPlainNumber(value, digits, digits);
 }
 
 export function formatNumber(value: number | null | undefined, maxDigits = 2): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '';
-  return value.toLocaleString('en-GB', { maximumFractionDigits: maxDigits });
+  return formatPlainNumber(value, maxDigits);
 }

@@ -16,7 +16,8 @@ import { notifyDecision } from '@/lib/mail';
 import { recipientsWithRole } from './notifications';
 import { moneyWithInterval } from '@/lib/brief/format';
 import { selfApprovalRefusal } from '@/lib/brief/wording';
-import { trendRows, type TrendRow } from '@/lib/brief/trend';
+import { trendRows, type BaselineSource, type TrendRow } from '@/lib/brief/trend';
+import type { RunSummary } from '@/models/simulation-run';
 import type { SimulationResult } from '@/lib/sim';
 import { recordAudit } from './audit';
 import { selfApprovalAllowed } from './organization-settings';
@@ -25,10 +26,14 @@ import type { DecisionView } from '@/lib/view-types/approvals';
 
 export const COMMENT_MAX_LENGTH = 4000;
 
-export function toDecisionView(a: Approval): DecisionView {
+/** Reads with this include bring the run's number along. */
+const withRunNumber = { model: SimulationRun, as: 'run', attributes: ['id', 'number'] };
+
+export function toDecisionView(a: Approval, runNumber = a.run?.number ?? 0): DecisionView {
   return {
     id: a.id,
     runId: a.runId,
+    runNumber,
     decision: a.decision,
     comment: a.comment,
     sponsorName: a.sponsorName,
@@ -72,6 +77,7 @@ export async function listDecisions(actor: Actor, projectId: number): Promise<De
   const project = await findProject(actor, projectId);
   const rows = await Approval.findAll({
     where: { projectId: project.id, organizationId: actor.organizationId },
+    include: [withRunNumber],
     order: [
       ['createdAt', 'DESC'],
       ['id', 'DESC'],
@@ -89,6 +95,7 @@ export async function getDecision(
   const project = await findProject(actor, projectId);
   const row = await Approval.findOne({
     where: { id: decisionId, projectId: project.id, organizationId: actor.organizationId },
+    include: [withRunNumber],
   });
   if (!row) throw notFound('Decision');
   return toDecisionView(row);
@@ -101,7 +108,10 @@ export async function decisionOnRun(
   runId: number,
 ): Promise<DecisionView | null> {
   assertMayRead(actor);
-  const row = await Approval.findOne({ where: { runId, projectId, organizationId: actor.organizationId } });
+  const row = await Approval.findOne({
+    where: { runId, projectId, organizationId: actor.organizationId },
+    include: [withRunNumber],
+  });
   return row ? toDecisionView(row) : null;
 }
 
@@ -112,16 +122,16 @@ export async function decideOnRun(actor: Actor, projectId: number, input: unknow
   const project = await findProject(actor, projectId);
   const run = await SimulationRun.findOne({
     where: { id: data.runId, projectId: project.id, organizationId: actor.organizationId },
-    attributes: ['id', 'status', 'result', 'startedById'],
+    attributes: ['id', 'number', 'status', 'result', 'startedById'],
   });
   if (!run) throw notFound('Run');
   if (run.status !== 'succeeded' || !run.result)
-    throw conflict(`Run ${run.id} is ${run.status}: only a run that succeeded can be decided on.`);
+    throw conflict(`Run ${run.number} is ${run.status}: only a run that succeeded can be decided on.`);
   const earlier = await Approval.findOne({ where: { runId: run.id }, attributes: ['id'] });
-  if (earlier) throw conflict(`Run ${run.id} already has a decision; a decision cannot be changed.`);
+  if (earlier) throw conflict(`Run ${run.number} already has a decision; a decision cannot be changed.`);
   const selfApproved = data.decision === 'approved' && run.startedById === actor.userId;
   if (selfApproved && !(await selfApprovalAllowed(actor.organizationId)))
-    throw forbidden(selfApprovalRefusal(run.id));
+    throw forbidden(selfApprovalRefusal(run.number));
 
   const result = JSON.parse(run.result) as SimulationResult;
   try {
@@ -141,7 +151,7 @@ export async function decideOnRun(actor: Actor, projectId: number, input: unknow
         },
         { transaction },
       );
-      const view = toDecisionView(approval);
+      const view = toDecisionView(approval, run.number);
       await recordAudit(
         actor,
         {
@@ -161,6 +171,7 @@ export async function decideOnRun(actor: Actor, projectId: number, input: unknow
           projectId: project.id,
           projectName: project.name,
           runId: run.id,
+          runNumber: run.number,
           decision: data.decision,
           comment: data.comment,
           decidedByName: actor.name,
@@ -176,9 +187,21 @@ export async function decideOnRun(actor: Actor, projectId: number, input: unknow
     });
   } catch (error) {
     if (error instanceof UniqueConstraintError)
-      throw conflict(`Run ${run.id} already has a decision; a decision cannot be changed.`);
+      throw conflict(`Run ${run.number} already has a decision; a decision cannot be changed.`);
     throw error;
   }
+}
+
+/** The figures of a run's stored summary that the trend reads (base, P50, P80, P90 of cost). */
+function trendFigures(summary: RunSummary): BaselineSource['result'] {
+  const figures = (t: NonNullable<RunSummary['duration']>) => ({
+    base: t.base,
+    percentiles: { P50: t.P50, P80: t.P80, P90: t.P90 },
+  });
+  return {
+    cost: figures(summary.cost),
+    ...(summary.duration ? { duration: figures(summary.duration) } : {}),
+  } as unknown as BaselineSource['result'];
 }
 
 /** The approved baselines in date order with their figures, for the trend. */
@@ -187,7 +210,9 @@ export async function listBaselines(actor: Actor, projectId: number): Promise<Tr
   const project = await findProject(actor, projectId);
   const approvals = await Approval.findAll({
     where: { projectId: project.id, organizationId: actor.organizationId, decision: 'approved' },
-    include: [{ model: SimulationRun, as: 'run', attributes: ['id', 'result', 'settings'] }],
+    // The run's stored summary holds the base, P50 and P80 of cost and duration the trend reads:
+    // the whole result (megabytes for a large run) is not loaded.
+    include: [{ model: SimulationRun, as: 'run', attributes: ['id', 'number', 'summary', 'settings'] }],
     order: [
       ['createdAt', 'ASC'],
       ['id', 'ASC'],
@@ -195,17 +220,18 @@ export async function listBaselines(actor: Actor, projectId: number): Promise<Tr
   });
   return trendRows(
     approvals
-      .filter((a) => a.run?.result)
+      .filter((a) => a.run?.summary)
       .map((a) => ({
         approvalId: a.id,
         runId: a.runId,
+        runNumber: a.run!.number,
         decidedAt: new Date(a.createdAt).toISOString(),
         stage: a.stage,
         estimateClass: a.estimateClass,
         sponsorName: a.sponsorName,
         selfApproved: Boolean(a.selfApproved),
         riskValues: a.run!.settings?.riskValues ?? null,
-        result: JSON.parse(a.run!.result!) as SimulationResult,
+        result: trendFigures(a.run!.summary!),
       })),
   );
 }

@@ -42,7 +42,7 @@ async function lastSent(actor: Actor, projectId: number, runId: number) {
 export async function getBrief(actor: Actor, projectId: number, runId: number): Promise<BriefData> {
   if (!can(actor.role, 'brief:read')) throw forbidden();
   const project = await findProject(actor, projectId);
-  const outcome = await getRunOutcome(actor, project.id, runId);
+  const outcome = await getRunOutcome(actor, project.id, runId, { withSample: false });
   const [decision, sentForDecision] = await Promise.all([
     decisionOnRun(actor, project.id, runId),
     lastSent(actor, project.id, runId),
@@ -51,6 +51,7 @@ export async function getBrief(actor: Actor, projectId: number, runId: number): 
     project: briefProject(project),
     run: {
       id: outcome.run.id,
+      number: outcome.run.number,
       inputHash: outcome.run.inputHash,
       startedByName: outcome.run.startedBy?.name ?? null,
       startedAt: outcome.run.startedAt ?? outcome.run.createdAt,
@@ -86,7 +87,9 @@ export async function sendBriefToSponsors(
   if (!can(actor.role, 'project:write')) throw forbidden('Estimators and owners put a brief forward.');
   const brief = await getBrief(actor, projectId, runId);
   if (brief.decision)
-    throw conflict(`Run ${runId} was already ${brief.decision.decision} by ${brief.decision.sponsorName}.`);
+    throw conflict(
+      `Run ${brief.run.number} was already ${brief.decision.decision} by ${brief.decision.sponsorName}.`,
+    );
   const p80 = percentileOf(brief.cost, 'P80');
   return sequelize.transaction(async (transaction) => {
     const sponsors = await recipientsWithRole(actor.organizationId, ['sponsor'], transaction);
@@ -98,6 +101,7 @@ export async function sendBriefToSponsors(
         projectId: brief.project.id,
         projectName: brief.project.name,
         runId,
+        runNumber: brief.run.number,
         p80Text: moneyWithInterval(p80.value, p80.ci95, brief.project.currency),
         preparedByName: actor.name,
       },

@@ -5,6 +5,8 @@ import type { Decision } from '@/models/approval';
 export type DecisionView = {
   id: number;
   runId: number;
+  /** The run's number within its project, the name people read (Run 1 is its first run). */
+  runNumber: number;
   decision: Decision;
   comment: string;
   sponsorName: string;

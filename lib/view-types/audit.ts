@@ -10,4 +10,8 @@ export type AuditView = {
   action: string;
   before: unknown;
   after: unknown;
+  /** As people read it: "Changed", "line item 1.2 Sheet piling", ["Low: 80,000 → 85,000"]. */
+  what: string;
+  subject: string;
+  changes: string[];
 };

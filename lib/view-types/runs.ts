@@ -9,6 +9,8 @@ export type { RunStatus, RunSummary };
 export type RunView = {
   id: number;
   projectId: number;
+  /** The run's number within its project (Run 1 is its first run): the name people read. */
+  number: number;
   status: RunStatus;
   settings: RunSettings;
   progress: number;
@@ -23,7 +25,7 @@ export type RunView = {
   finishedAt: string | null;
   /** 1 for the next to start, for a run waiting in its organisation's queue. */
   queuePosition: number | null;
-  /** Estimated milliseconds left, for a running run that has made some progress. */
+  /** Estimated milliseconds left, from the measured block rate; null while it is not known yet. */
   msLeft: number | null;
   summary: RunSummary | null;
   /**

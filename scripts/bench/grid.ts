@@ -11,8 +11,8 @@
 // (the one-transaction batch save included), then (c) the save alone: 500 changed rows posted
 // through the API, without the browser. The bench project is archived at the end.
 import { chromium } from '@playwright/test';
+import { APP_URL, launchOptions, projectWithLines, signIn } from './app';
 
-const APP_URL = process.env.APP_URL ?? 'http://localhost:3000';
 const LINES = 2000;
 const PASTE_ROWS = 500;
 const RUNS = Number(process.env.RUNS ?? 3);
@@ -20,52 +20,10 @@ const RUNS = Number(process.env.RUNS ?? 3);
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 
 async function main() {
-  const browser = await chromium.launch({
-    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--no-first-run'],
-  });
+  const browser = await chromium.launch(await launchOptions());
   const page = await browser.newPage({ viewport: { width: 1280, height: 860 } });
-  await page.goto(`${APP_URL}/sign-in`);
-  await page.getByLabel('E-mail').fill('estimator@kestrelvale.example');
-  await page.getByLabel('Password').fill('demo-outturn-2026');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(/\/projects/);
-
-  const code = `BENCH-${Date.now().toString(36).toUpperCase()}`;
-  const created = await page.request.post(`${APP_URL}/api/projects`, {
-    data: {
-      name: 'Grid benchmark',
-      code,
-      currency: 'EUR',
-      estimateClass: 4,
-      stage: 'Concept',
-      baseDate: '2027-01-04',
-    },
-  });
-  if (created.status() !== 201)
-    throw new Error(`could not create the bench project: ${await created.text()}`);
-  const projectId = (await created.json()).project.id as number;
-  const types = ['triangular', 'pert', 'uniform', 'normal', 'lognormal'];
-  const upserts = Array.from({ length: LINES }, (_, i) => {
-    const base = 10_000 + ((i * 7919) % 90_000);
-    const type = types[i % types.length];
-    const params =
-      type === 'normal'
-        ? { mean: base, sd: base * 0.1 }
-        : type === 'lognormal'
-          ? { low: base * 0.8, high: base * 1.4 }
-          : type === 'uniform'
-            ? { low: base * 0.9, high: base * 1.3 }
-            : { low: base * 0.85, mode: base, high: base * 1.5 };
-    return {
-      code: `${1 + Math.floor(i / 100)}.${(i % 100) + 1}`,
-      description: `Line ${i + 1}`,
-      distType: type,
-      ...params,
-    };
-  });
-  const seeded = await page.request.post(`${APP_URL}/api/projects/${projectId}/items`, { data: { upserts } });
-  if (seeded.status() !== 200) throw new Error(`could not create the lines: ${await seeded.text()}`);
+  await signIn(page, 'estimator@kestrelvale.example');
+  const projectId = await projectWithLines(page, LINES, 'Grid benchmark');
 
   const interactive: number[] = [];
   const saves: number[] = [];

@@ -1,5 +1,8 @@
-import { expect, test } from '@playwright/test';
+import { expect, test } from './fixtures';
 import { AuthPages } from './pages/auth';
+
+// A wrong password is refused on purpose: the browser logs the 401 of the sign-in request.
+test.use({ allowedConsoleErrors: [/status of 401 .*\/api\/auth\/callback\/credentials\)$/] });
 
 test('sign up, sign out and sign in again', async ({ page }) => {
   const auth = new AuthPages(page);

@@ -1,4 +1,5 @@
-import { expect, test, type Page } from '@playwright/test';
+import { expect, test } from './fixtures';
+import type { Page } from '@playwright/test';
 import { AuthPages, DEMO_PASSWORD, demoEmail } from './pages/auth';
 
 test('the demo owner invites a sponsor and sees the link', async ({ page }) => {

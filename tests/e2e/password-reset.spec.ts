@@ -1,4 +1,4 @@
-import { expect, test } from '@playwright/test';
+import { expect, test } from './fixtures';
 import { AuthPages } from './pages/auth';
 import { linkIn, waitForMail } from '../../scripts/fakes/mail/client';
 

@@ -7,7 +7,13 @@ import { notifyBriefReady, notifyDecision, notifyRunFinished } from '@/lib/mail'
 import { recipientsWithRole } from '@/lib/services/notifications';
 import { sequelize } from '@/models';
 
-const run = { projectId: 41, projectName: 'Harbour Road', runId: 907, outcome: 'succeeded' as const };
+const run = {
+  projectId: 41,
+  projectName: 'Harbour Road',
+  runId: 907,
+  runNumber: 3,
+  outcome: 'succeeded' as const,
+};
 
 async function userId(email: string) {
   const [user] = await rows<{ id: number }>('SELECT id FROM Users WHERE email = ?', [email]);
@@ -76,7 +82,7 @@ describe('notices by e-mail', () => {
       }),
     ).toBe(1);
     const [decision] = await waitForMail(estimatorEmail, { kind: 'baseline_decision' });
-    expect(decision.subject).toBe('Returned for rework: Harbour Road, run 907');
+    expect(decision.subject).toBe('Returned for rework: Harbour Road, run 3');
     expect(decision.text).toContain('> Widen the <b>piling</b> range.');
     expect(decision.html).toContain('Widen the &lt;b&gt;piling&lt;/b&gt; range.');
 

@@ -81,8 +81,8 @@ describe('a stored run is reproducible from its snapshot', () => {
     expect(api.json.run.summary.cost.P80).toBe(cli.cost.percentiles.P80);
     expect(api.json.sample.n).toBe(5000);
 
-    // The projects list shows this run's P50 / P80 as the project's latest.
-    const whole = (v: number) => v.toLocaleString('en-GB', { maximumFractionDigits: 0 });
+    // The projects list shows this run's P50 / P80 as the project's latest, in its currency (EUR).
+    const whole = (v: number) => `€${v.toLocaleString('en-GB', { maximumFractionDigits: 0 })}`;
     const html = (await client.get('/projects')).text.replace(/<!-- -->/g, '');
     expect(html).toContain(`${whole(cli.cost.percentiles.P50)} / ${whole(cli.cost.percentiles.P80)}`);
   });

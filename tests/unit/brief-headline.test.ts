@@ -73,6 +73,7 @@ function source(opts: {
     },
     run: {
       id: 7,
+      number: 3,
       inputHash: 'x',
       startedByName: 'E',
       startedAt: null,

@@ -11,6 +11,7 @@ describe('trend rows', () => {
       {
         approvalId: 2,
         runId: 20,
+        runNumber: 2,
         decidedAt: '2026-06-01T00:00:00.000Z',
         stage: 'Detailed design',
         estimateClass: 2,
@@ -20,6 +21,7 @@ describe('trend rows', () => {
       {
         approvalId: 1,
         runId: 10,
+        runNumber: 1,
         decidedAt: '2026-01-01T00:00:00.000Z',
         stage: 'Feasibility',
         estimateClass: 4,
@@ -44,6 +46,7 @@ describe('trend rows', () => {
     ) => ({
       approvalId,
       runId: approvalId * 10,
+      runNumber: approvalId,
       decidedAt: `2026-${month}-01T00:00:00.000Z`,
       stage: 'Gate',
       estimateClass: 3,

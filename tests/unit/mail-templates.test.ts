@@ -18,6 +18,7 @@ const samples: { [K in MailKind]: MailData[K] } = {
     projectId: 4,
     projectName: 'Harbour Road',
     runId: 17,
+    runNumber: 4,
     outcome: 'succeeded',
     p80Text: 'EUR 25,340,000',
   },
@@ -25,6 +26,7 @@ const samples: { [K in MailKind]: MailData[K] } = {
     projectId: 4,
     projectName: 'Harbour Road',
     runId: 17,
+    runNumber: 4,
     p80Text: 'EUR 25,340,000',
     preparedByName: 'Ivo Brandt',
   },
@@ -32,6 +34,7 @@ const samples: { [K in MailKind]: MailData[K] } = {
     projectId: 4,
     projectName: 'Harbour Road',
     runId: 17,
+    runNumber: 4,
     decision: 'returned',
     decidedByName: 'Lena Ortiz',
     comment: 'Widen the piling range.',
@@ -77,7 +80,7 @@ describe('mail templates', () => {
     expect(mail.html).not.toContain('<b>North</b>');
     expect(mail.html).toContain('&lt;script&gt;alert(1)&lt;/script&gt; &amp; &quot;quotes&quot;');
     expect(mail.text).toContain('> <script>alert(1)</script> & "quotes"');
-    expect(mail.subject).toBe('Returned for rework: Depot <b>North</b>, run 17');
+    expect(mail.subject).toBe('Returned for rework: Depot <b>North</b>, run 4');
   });
 
   it('says what each run outcome means and gives the P80 only for a finished run', () => {
@@ -95,7 +98,7 @@ describe('mail templates', () => {
 
   it('puts the approval in the subject and the comment in the body', () => {
     const approved = renderMail('baseline_decision', { ...samples.baseline_decision, decision: 'approved' });
-    expect(approved.subject).toBe('Baseline approved: Harbour Road, run 17');
+    expect(approved.subject).toBe('Baseline approved: Harbour Road, run 4');
     expect(approved.text).toContain('> Widen the piling range.');
   });
 });

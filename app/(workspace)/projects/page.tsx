@@ -7,7 +7,7 @@ import { briefsAwaitingDecision } from '@/lib/services/brief';
 import { AwaitingDecision } from '@/components/brief/awaiting-decision';
 import { listProjectsWithEstimates } from '@/lib/services/projects';
 import { latestRunSummaries } from '@/lib/services/runs';
-import { formatMoney } from '@/lib/registers/numbers';
+import { formatMoney } from '@/lib/format';
 import { Card, EmptyState } from '@/components/ui/card';
 import { ProjectActions } from '@/components/projects/project-actions';
 import { StartProject } from '@/components/projects/start-project';
@@ -90,7 +90,7 @@ export default async function ProjectsPage({
                 <td className="px-3 py-1.5">{p.currency}</td>
                 <td className="num px-3 py-1.5">
                   {p.lineCount ? (
-                    formatMoney(p.baseEstimate)
+                    formatMoney(p.baseEstimate, p.currency)
                   ) : (
                     <span className="text-ink-faint">no lines</span>
                   )}
@@ -98,7 +98,8 @@ export default async function ProjectsPage({
                 <td className="num px-3 py-1.5">
                   {latest[p.id] ? (
                     <Link href={`/projects/${p.id}/runs/${latest[p.id].runId}`} className="hover:underline">
-                      {formatMoney(latest[p.id].costP50)} / {formatMoney(latest[p.id].costP80)}
+                      {formatMoney(latest[p.id].costP50, p.currency)} /{' '}
+                      {formatMoney(latest[p.id].costP80, p.currency)}
                     </Link>
                   ) : (
                     '—'

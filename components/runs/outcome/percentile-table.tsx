@@ -2,6 +2,7 @@ import type { PercentileKey, TotalSummary } from '@/lib/sim';
 import { PERCENTILE_KEYS } from '@/lib/domain/percentiles';
 import { contingencyAt } from '@/lib/domain/contingency';
 import { contingencyInterval } from '@/lib/runs/outcome-data';
+import { formatInterval } from '@/lib/format';
 import { TableHead, type HeadCell } from '@/components/ui/table';
 
 const right = (title: string): HeadCell => ({ title, align: 'right', className: 'pl-3' });
@@ -35,7 +36,7 @@ export function PercentileTable({
 }) {
   const ci = summary.percentileCI95 as Partial<Record<PercentileKey, [number, number]>>;
   const interval = (c: [number, number] | null | undefined, f: (v: number) => string) =>
-    c ? `${f(c[0])} – ${f(c[1])}` : 'no interval kept';
+    c ? formatInterval(c[0], c[1], f) : 'no interval kept';
   const sub = 'block whitespace-nowrap text-2xs font-normal text-ink-faint';
   return (
     <table className="w-full border-collapse text-sm" data-testid={testId}>

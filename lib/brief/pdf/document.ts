@@ -159,7 +159,7 @@ function header(w: Writer, brief: BriefData) {
   const { doc } = w;
   const { project, run } = brief;
   doc.font('Helvetica').fontSize(8).fillColor(C.faint);
-  doc.text(pdfText(`Brief for sponsors · ${project.code} · run ${run.id}`), w.left, w.y, {
+  doc.text(pdfText(`Brief for sponsors · ${project.code} · run ${run.number}`), w.left, w.y, {
     lineBreak: false,
   });
   w.y += 12;

@@ -5,6 +5,8 @@ export type BaselineDecisionMail = {
   projectId: number;
   projectName: string;
   runId: number;
+  /** The run's number within its project, the name the mail reads. */
+  runNumber: number;
   decision: 'approved' | 'returned';
   decidedByName: string;
   comment: string;
@@ -17,13 +19,13 @@ export function baselineDecisionMail(d: BaselineDecisionMail): RenderedMail {
   if (d.p80Text) facts.push(['Cost P80', d.p80Text]);
   return renderMessage({
     subject: approved
-      ? `Baseline approved: ${d.projectName}, run ${d.runId}`
-      : `Returned for rework: ${d.projectName}, run ${d.runId}`,
+      ? `Baseline approved: ${d.projectName}, run ${d.runNumber}`
+      : `Returned for rework: ${d.projectName}, run ${d.runNumber}`,
     heading: approved ? 'The baseline is approved' : 'The run was returned',
     paragraphs: [
       approved
-        ? `${d.decidedByName} approved run ${d.runId} as the baseline of ${d.projectName}. The project’s trend now includes it.`
-        : `${d.decidedByName} returned run ${d.runId} of ${d.projectName} without approving it. The project keeps its current baseline.`,
+        ? `${d.decidedByName} approved run ${d.runNumber} as the baseline of ${d.projectName}. The project’s trend now includes it.`
+        : `${d.decidedByName} returned run ${d.runNumber} of ${d.projectName} without approving it. The project keeps its current baseline.`,
     ],
     facts,
     quote: d.comment.trim() ? { label: `${d.decidedByName} wrote:`, text: d.comment.trim() } : undefined,

@@ -5,6 +5,8 @@ export type BriefReadyMail = {
   projectId: number;
   projectName: string;
   runId: number;
+  /** The run's number within its project, the name the mail reads. */
+  runNumber: number;
   /** e.g. "EUR 25,340,000 (95% interval 25,100,000 – 25,590,000)". */
   p80Text: string;
   /** Who put the brief forward. */
@@ -16,7 +18,7 @@ export function briefReadyMail(d: BriefReadyMail): RenderedMail {
     subject: `A brief for ${d.projectName} awaits your decision`,
     heading: 'A brief awaits your decision',
     paragraphs: [
-      `${d.preparedByName} has put the brief of run ${d.runId} of ${d.projectName} forward for a decision.`,
+      `${d.preparedByName} has put the brief of run ${d.runNumber} of ${d.projectName} forward for a decision.`,
       'Read it, then approve the run as the project’s baseline or return it with a comment.',
     ],
     facts: [

@@ -1,3 +1,4 @@
+import { formatDate } from '@/lib/format';
 import { renderMessage, type RenderedMail } from '../layout';
 
 export type InvitationMail = {
@@ -9,14 +10,6 @@ export type InvitationMail = {
   expiresAt: Date | string;
 };
 
-const day = (d: Date | string) =>
-  new Date(d).toLocaleDateString('en-GB', {
-    day: 'numeric',
-    month: 'long',
-    year: 'numeric',
-    timeZone: 'UTC',
-  });
-
 export function invitationMail(d: InvitationMail): RenderedMail {
   return renderMessage({
     subject: `${d.invitedByName} invited you to ${d.organizationName} on Outturn`,
@@ -27,7 +20,7 @@ export function invitationMail(d: InvitationMail): RenderedMail {
       'Accept the invitation to create your account, or to add the organisation to the account you already have.',
     ],
     action: { label: 'Accept the invitation', url: d.acceptUrl },
-    note: `The invitation can be used once, until ${day(d.expiresAt)}.`,
+    note: `The invitation can be used once, until ${formatDate(d.expiresAt)}.`,
     optional: false,
   });
 }

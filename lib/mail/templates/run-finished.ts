@@ -5,6 +5,8 @@ export type RunFinishedMail = {
   projectId: number;
   projectName: string;
   runId: number;
+  /** The run's number within its project, the name the mail reads. */
+  runNumber: number;
   outcome: 'succeeded' | 'failed' | 'cancelled';
   /** The run's P80 of cost as the app shows it, e.g. "EUR 25,340,000"; only for a run that succeeded. */
   p80Text?: string;
@@ -26,13 +28,13 @@ export function runFinishedMail(d: RunFinishedMail): RenderedMail {
   if (d.outcome === 'succeeded' && d.p80Text) facts.push(['Cost P80', d.p80Text]);
   const paragraphs =
     d.outcome === 'succeeded'
-      ? [`Run ${d.runId} of ${d.projectName} has finished. Its outcome is ready to read.`]
+      ? [`Run ${d.runNumber} of ${d.projectName} has finished. Its outcome is ready to read.`]
       : d.outcome === 'failed'
         ? [
-            `Run ${d.runId} of ${d.projectName} stopped before it finished.`,
+            `Run ${d.runNumber} of ${d.projectName} stopped before it finished.`,
             ...(d.failureText ? [d.failureText] : []),
           ]
-        : [`Run ${d.runId} of ${d.projectName} was cancelled before it finished; it has no outcome.`];
+        : [`Run ${d.runNumber} of ${d.projectName} was cancelled before it finished; it has no outcome.`];
   return renderMessage({
     subject: `${HEADINGS[d.outcome]}: ${d.projectName}`,
     heading: HEADINGS[d.outcome],

@@ -14,9 +14,10 @@ export async function compareRuns(
   aId: number,
   bId: number,
 ): Promise<RunComparison> {
+  // The comparison reads the figures and the inputs, never the charts' sample.
   const [a, b] = await Promise.all([
-    getRunOutcome(actor, projectId, aId),
-    getRunOutcome(actor, projectId, bId),
+    getRunOutcome(actor, projectId, aId, { withSample: false }),
+    getRunOutcome(actor, projectId, bId, { withSample: false }),
   ]);
   return { a, b, diff: diffSnapshots(a.snapshot, b.snapshot) };
 }

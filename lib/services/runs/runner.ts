@@ -16,6 +16,7 @@ import { enqueue, setExecutor, type Job } from './queue';
 import { CURRENT_ENGINE } from './engine-match';
 import { sampleOfRun } from './sample';
 import { nonFiniteReason } from './finite';
+import { forgetProgress, noteProgress } from './progress-rate';
 
 export const PROGRESS_INTERVAL_MS = 250;
 
@@ -63,6 +64,7 @@ function progressWriter(runId: number, cap: number | null) {
   };
   return {
     report(p: { done: number; total: number }) {
+      noteProgress(runId, p.done);
       latest = p;
       if (Date.now() - last >= PROGRESS_INTERVAL_MS) write();
     },
@@ -94,7 +96,16 @@ const reasonOf = (e: unknown) =>
 export async function notifyFinished(runId: number) {
   try {
     const run = await SimulationRun.findByPk(runId, {
-      attributes: ['id', 'projectId', 'status', 'settings', 'summary', 'failureReason', 'startedById'],
+      attributes: [
+        'id',
+        'number',
+        'projectId',
+        'status',
+        'settings',
+        'summary',
+        'failureReason',
+        'startedById',
+      ],
     });
     if (!run || !run.startedById) return;
     const [project, user] = await Promise.all([
@@ -112,6 +123,7 @@ export async function notifyFinished(runId: number) {
         projectId: project.id,
         projectName: project.name,
         runId: run.id,
+        runNumber: run.number,
         outcome,
         p80Text: run.summary ? formatMoney(run.summary.cost.P80, project.currency) : undefined,
         settingsText: `${s.iterations.toLocaleString('en-GB')} iterations, ${s.sampling.toUpperCase()}, seed ${s.seed}`,
@@ -139,6 +151,7 @@ async function execute(job: Job, signal: AbortSignal): Promise<void> {
   const s = run.settings;
   const progress = progressWriter(run.id, s.precision?.maxIterations ?? null);
   const finish = async (values: Partial<InferAttributes<SimulationRun>>) => {
+    forgetProgress(run.id);
     await progress.settle();
     // When every try fails, the stale-run sweeper (recover.ts) ends the run with a reason.
     await withRetries(`run ${run.id}: outcome`, () =>

@@ -3,7 +3,7 @@ import 'server-only';
 
 import { randomInt } from 'node:crypto';
 import { Op, QueryTypes } from 'sequelize';
-import { SimulationRun, User, sequelize } from '@/models';
+import { Project, SimulationRun, User, sequelize } from '@/models';
 import type { Actor } from '@/lib/auth/actor';
 import { can, type Action } from '@/lib/auth/roles';
 import { badRequest, conflict, forbidden, notFound } from '@/lib/errors';
@@ -11,6 +11,7 @@ import { parseOrThrow } from '@/lib/validation/parse';
 import { MAX_SEED, runSettingsInputSchema, type RunSettings } from '@/lib/validation/runs';
 import { validateModel, type Model, type SimulationResult } from '@/lib/sim';
 import { workingDaysThrough, type WorkCalendar } from '@/lib/runs/working-days';
+import { formatDate } from '@/lib/format';
 import { snapshotHash } from '@/lib/runs/snapshot-hash';
 import { recordAudit } from '../audit';
 import { calendarForDates } from '../calendar';
@@ -30,6 +31,7 @@ const LIST_ATTRIBUTES = [
   'id',
   'organizationId',
   'projectId',
+  'number',
   'startedById',
   'status',
   'settings',
@@ -59,11 +61,25 @@ async function queuePositions(organizationId: number): Promise<Map<number, numbe
   return new Map(queued.map((r, i) => [r.id, i + 1]));
 }
 
-async function findRun(actor: Actor, projectId: number, runId: number, full = false): Promise<SimulationRun> {
+/** The columns read: the list's, or with the snapshot and result (and the chart sample, unless not wanted). */
+type Columns = 'list' | 'full' | 'without-sample';
+const COLUMNS: Record<Columns, string[] | undefined> = {
+  list: [...LIST_ATTRIBUTES],
+  full: undefined,
+  'without-sample': [...LIST_ATTRIBUTES, 'inputSnapshot', 'result'],
+};
+
+async function findRun(
+  actor: Actor,
+  projectId: number,
+  runId: number,
+  columns: Columns | boolean = 'list',
+): Promise<SimulationRun> {
+  const which: Columns = columns === true ? 'full' : columns === false ? 'list' : columns;
   const run = Number.isInteger(runId)
     ? await SimulationRun.findOne({
         where: { id: runId, projectId, organizationId: actor.organizationId },
-        attributes: full ? undefined : [...LIST_ATTRIBUTES],
+        attributes: COLUMNS[which],
         include: [withStarter],
       })
     : null;
@@ -84,9 +100,15 @@ async function viewOf(run: SimulationRun): Promise<RunView> {
 function resolveSettings(input: unknown, baseDate: string, calendar: WorkCalendar): RunSettings {
   const data = parseOrThrow(runSettingsInputSchema, input ?? {});
   if (data.finishTarget && data.finishTarget < baseDate) {
-    throw badRequest(`finishTarget: the finish target must be on or after the base date ${baseDate}.`, [
-      { path: 'finishTarget', message: `Must be on or after the project's base date, ${baseDate}.` },
-    ]);
+    throw badRequest(
+      `finishTarget: the finish target must be on or after the base date, ${formatDate(baseDate)}.`,
+      [
+        {
+          path: 'finishTarget',
+          message: `Must be on or after the project's base date, ${formatDate(baseDate)}.`,
+        },
+      ],
+    );
   }
   return {
     iterations: data.iterations,
@@ -144,10 +166,18 @@ export async function startRun(
     throw badRequest(`The registers cannot be simulated yet. ${shown.join('; ')}${more}`, checked.issues);
   }
   const run = await sequelize.transaction(async (transaction) => {
+    // The project's row is locked while its next run number is taken, so two runs started at
+    // once get two numbers (the unique index on projectId and number holds it too).
+    await Project.findOne({ where: { id: project.id }, lock: transaction.LOCK.UPDATE, transaction });
+    const last = await SimulationRun.max<number | null, SimulationRun>('number', {
+      where: { projectId: project.id },
+      transaction,
+    });
     const created = await SimulationRun.create(
       {
         organizationId: actor.organizationId,
         projectId: project.id,
+        number: (last ?? 0) + 1,
         startedById: actor.userId,
         settings,
         inputSnapshot: JSON.stringify(snapshot),
@@ -203,11 +233,19 @@ export type RunOutcome = {
   snapshot: Model;
 };
 
-/** The stored result of a run that succeeded (409 while it has none). */
-export async function getRunOutcome(actor: Actor, projectId: number, runId: number): Promise<RunOutcome> {
+/**
+ * The stored result of a run that succeeded (409 while it has none). `withSample: false` leaves
+ * out the sample the outcome's charts draw from (large, and not read by the comparison).
+ */
+export async function getRunOutcome(
+  actor: Actor,
+  projectId: number,
+  runId: number,
+  { withSample = true }: { withSample?: boolean } = {},
+): Promise<RunOutcome> {
   assertMay(actor, 'run:read');
   const project = await findProject(actor, projectId);
-  const run = await findRun(actor, project.id, runId, true);
+  const run = await findRun(actor, project.id, runId, withSample ? 'full' : 'without-sample');
   if (run.status !== 'succeeded' || !run.result) {
     throw conflict(`Run ${run.id} has no result: it is ${run.status}.`, { status: run.status });
   }

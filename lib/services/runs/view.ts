@@ -5,25 +5,26 @@ import 'server-only';
 import type { SimulationRun } from '@/models/simulation-run';
 import type { RunView } from '@/lib/view-types/runs';
 import { engineDifference } from './engine-match';
+import { msLeftOf } from './progress-rate';
 
 export type { RunView };
 
 type Row = SimulationRun & { startedBy?: { id: number; name: string } | null };
 
 export function toRunView(run: Row, queuePosition: number | null = null, now = Date.now()): RunView {
-  const started = run.startedAt ? new Date(run.startedAt).getTime() : null;
   const p = run.progress;
-  const msLeft =
-    run.status === 'running' && started !== null && p > 0 && p < 1 ? ((now - started) * (1 - p)) / p : null;
   const settings = run.settings;
+  const planned = settings.precision ? settings.precision.maxIterations : settings.iterations;
+  const msLeft = run.status === 'running' && p < 1 ? msLeftOf(run.id, planned, now) : null;
   return {
     id: run.id,
     projectId: run.projectId,
+    number: run.number,
     status: run.status,
     settings,
     progress: p,
     iterationsDone: run.iterationsDone,
-    iterationsPlanned: settings.precision ? settings.precision.maxIterations : settings.iterations,
+    iterationsPlanned: planned,
     failureReason: run.failureReason ?? null,
     inputHash: run.inputHash,
     startedBy: run.startedBy ? { id: run.startedBy.id, name: run.startedBy.name } : null,

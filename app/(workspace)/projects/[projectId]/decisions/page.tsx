@@ -26,7 +26,7 @@ export default async function DecisionsPage({ params }: { params: Promise<{ proj
               className="text-cost underline"
               href={`/projects/${project.id}/runs/${baseline.runId}/brief`}
             >
-              run {baseline.runId}
+              run {baseline.runNumber}
             </Link>
             , approved {dateText(baseline.decidedAt)} by {baseline.sponsorName} ({baseline.stage}).
           </>

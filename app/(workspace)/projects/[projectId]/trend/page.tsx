@@ -29,8 +29,8 @@ export default async function TrendPage({ params }: { params: Promise<{ projectI
       ) : (
         <>
           <p data-testid="current-baseline">
-            Current baseline: <strong>run {current.runId}</strong>, approved {dateText(current.decidedAt)} by{' '}
-            {current.sponsorName}
+            Current baseline: <strong>run {current.runNumber}</strong>, approved {dateText(current.decidedAt)}{' '}
+            by {current.sponsorName}
             {current.selfApproved ? ' (self-approved)' : ''} at {current.stage}, {current.scenario}
             -mitigation: P80 <strong>{formatMoney(current.p80, project.currency)}</strong>, base{' '}
             {formatMoney(current.base, project.currency)}.

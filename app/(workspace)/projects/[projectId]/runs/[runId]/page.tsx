@@ -9,11 +9,10 @@ import { RunProgress } from '@/components/runs/run-progress';
 import { ModelNotices } from '@/components/runs/model-notices';
 import { RunStatusBadge } from '@/components/runs/run-status';
 import { settingsText } from '@/components/runs/settings-text';
+import { formatCount, formatDateTime } from '@/lib/format';
 import { loadRunPage, type RunParams } from './run-page';
 
 export const metadata = { title: 'Run outcome' };
-
-const when = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' });
 
 export default async function RunPage({ params }: { params: RunParams }) {
   const { actor, project, run } = await loadRunPage(params, '', 'run:read');
@@ -23,17 +22,16 @@ export default async function RunPage({ params }: { params: RunParams }) {
       <div className="flex items-end gap-4">
         <div className="space-y-0.5">
           <h1 className="flex items-center gap-3 text-xl font-semibold">
-            Run {run.id} <RunStatusBadge status={run.status} />
+            Run {run.number} <RunStatusBadge status={run.status} />
           </h1>
           <p className="text-sm text-ink-soft">
             {settingsText(run.settings)}
             {outcome && run.settings.precision
-              ? ` · stopped at ${outcome.result.iterations.toLocaleString('en-GB')} iterations`
+              ? ` · stopped at ${formatCount(outcome.result.iterations)} iterations`
               : ''}
           </p>
           <p className="text-xs text-ink-faint">
-            Started by {run.startedBy?.name ?? 'a former member'} on {when.format(new Date(run.createdAt))}{' '}
-            UTC · input{' '}
+            Started by {run.startedBy?.name ?? 'a former member'} on {formatDateTime(run.createdAt)} · input{' '}
             <span className="font-mono" title={run.inputHash}>
               {run.inputHash.slice(0, 12)}
             </span>

@@ -49,7 +49,7 @@ export default async function CompareRunsPage({
     <div className="space-y-5">
       <div className="flex items-end">
         <h1 className="text-xl font-semibold">
-          Run {comparison.a.run.id} and run {comparison.b.run.id}
+          Run {comparison.a.run.number} and run {comparison.b.run.number}
         </h1>
         <span className="ml-auto">{back}</span>
       </div>

@@ -98,10 +98,10 @@ export default async function BriefPage({ params }: { params: RunParams }) {
   const mayEdit = can(actor.role, 'project:write');
 
   return (
-    <article className="brief mx-auto max-w-[980px] space-y-5" aria-label={`Brief of run ${run.id}`}>
+    <article className="brief mx-auto max-w-[980px] space-y-5" aria-label={`Brief of run ${run.number}`}>
       <nav className="no-print flex flex-wrap items-center gap-2 text-sm" aria-label="Brief actions">
         <Link href={`/projects/${project.id}/runs/${run.id}`} className="text-cost underline">
-          ← Run {run.id}
+          ← Run {run.number}
         </Link>
         <span className="ml-auto" />
         <PrintButton />
@@ -115,7 +115,7 @@ export default async function BriefPage({ params }: { params: RunParams }) {
 
       <header className="space-y-1">
         <p className="text-sm text-ink-faint">
-          Brief for sponsors · {project.code} · run {run.id}
+          Brief for sponsors · {project.code} · run {run.number}
         </p>
         {/* The workspace layout holds the page's h1; the brief's own title is what prints. */}
         <h2 className="text-2xl font-semibold" data-testid="brief-title">
@@ -142,7 +142,7 @@ export default async function BriefPage({ params }: { params: RunParams }) {
                 projectId={project.id}
                 runId={run.id}
                 levelText={`${brief.contingency.level}, ${money(brief.contingency.value)}`}
-                approveRefusal={mayApprove ? null : selfApprovalRefusal(run.id)}
+                approveRefusal={mayApprove ? null : selfApprovalRefusal(run.number)}
                 selfApproval={mayApprove && ownRun}
               />
             </div>
