@@ -154,7 +154,12 @@ export function RegisterGrid({
 }: Props) {
   const apiRef = useRef<GridApi<GridRow> | null>(null);
   const undo = useRef(new UndoStack());
-  const [focusIssue, setFocusIssue] = useState<string | null>(null);
+  // The focused cell, by row key and field: its problem is read from the rows as they are now, so
+  // a value put right while the cell keeps focus clears the message at once.
+  const [focusCell, setFocusCell] = useState<{ key: string; field: string } | null>(null);
+  const focusIssue = focusCell
+    ? (rows.find((r) => r._key === focusCell.key)?._issues[focusCell.field] ?? null)
+    : null;
   const rowsRef = useRef(rows);
   useEffect(() => {
     rowsRef.current = rows;
@@ -306,12 +311,12 @@ export function RegisterGrid({
     (e: CellFocusedEvent<GridRow>) => {
       const api = apiRef.current;
       if (e.rowIndex === null || e.rowPinned) {
-        setFocusIssue(null);
+        setFocusCell(null);
         return;
       }
       const row = api?.getDisplayedRowAtIndex(e.rowIndex)?.data;
       const field = typeof e.column === 'object' && e.column ? e.column.getColId() : String(e.column ?? '');
-      setFocusIssue(row?._issues[field] ?? null);
+      setFocusCell(row ? { key: row._key, field } : null);
       onFocusRow?.(row?._key ?? null);
     },
     [onFocusRow],

@@ -11,6 +11,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { ApiError, callApi } from '@/components/forms/api';
 import type { ProjectView } from '@/lib/view-types/projects';
+import { readModelHeader } from '@/lib/registers/model-header';
 
 type Values = z.input<typeof projectSchema>;
 
@@ -49,12 +50,15 @@ export function NewProjectForm({
   });
   const e = formState.errors;
 
-  /** A model file names its project and currency: the form takes them (a typed name is kept). */
+  /**
+   * A model file names its project, currency, stage, estimate class and base date: the form takes
+   * them (a typed name is kept).
+   */
   async function chooseFile(chosen: File | null) {
     setFile(chosen);
     setFromFile(null);
     if (!chosen || !chosen.name.toLowerCase().endsWith('.json')) return;
-    const model = await readModelHeader(chosen);
+    const model = readModelHeader(await chosen.text());
     if (!model) {
       setFromFile(
         'This file is not a model file (JSON with "format": "outturn-model"); the import will say why.',
@@ -70,8 +74,28 @@ export function NewProjectForm({
       setValue('currency', model.currency, { shouldValidate: true });
       taken.push('currency');
     }
+    if (model.stage) {
+      setValue('stage', model.stage, { shouldValidate: true });
+      taken.push('stage');
+    }
+    if (model.estimateClass) {
+      setValue('estimateClass', model.estimateClass as Values['estimateClass'], { shouldValidate: true });
+      taken.push('estimate class');
+    }
+    if (model.baseDate) {
+      setValue('baseDate', model.baseDate, { shouldValidate: true });
+      taken.push('base date');
+    }
+    const missing = ['stage', 'estimate class', 'base date'].filter((f) => !taken.includes(f));
     setFromFile(
-      `${taken.length ? `Taken from the model file: ${taken.join(' and ')}. ` : ''}A model file holds no stage, estimate class or base date: check them here.`,
+      [
+        taken.length ? `Taken from the model file: ${listText(taken)}.` : '',
+        missing.length
+          ? `The file gives no ${listText(missing, 'or')}: check ${missing.length > 1 ? 'them' : 'it'} here.`
+          : '',
+      ]
+        .filter(Boolean)
+        .join(' '),
     );
   }
 
@@ -194,14 +218,7 @@ export function NewProjectForm({
   );
 }
 
-/** The name and currency at the top of a model file, or null when the file is not one. */
-async function readModelHeader(file: File): Promise<{ name?: string; currency?: string } | null> {
-  try {
-    const json = JSON.parse(await file.text()) as Record<string, unknown>;
-    if (json?.format !== 'outturn-model') return null;
-    const text = (v: unknown) => (typeof v === 'string' && v.trim() ? v.trim() : undefined);
-    return { name: text(json.name), currency: text(json.currency)?.toUpperCase().slice(0, 3) };
-  } catch {
-    return null;
-  }
+/** "a, b and c" */
+function listText(parts: string[], last = 'and'): string {
+  return parts.length < 2 ? parts.join('') : `${parts.slice(0, -1).join(', ')} ${last} ${parts.at(-1)}`;
 }

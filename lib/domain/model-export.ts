@@ -85,7 +85,7 @@ export type DriverRecord = {
 };
 
 export type RegisterRecords = {
-  project: { name: string; currency: string };
+  project: { name: string; currency: string; stage?: string; estimateClass?: number; baseDate?: string };
   items: readonly ItemRecord[];
   risks: readonly RiskRecord[];
   activities: readonly ActivityRecord[];
@@ -234,6 +234,8 @@ export function registersToModel(
     activities,
     correlations,
   };
+  const { stage, estimateClass, baseDate } = records.project;
+  if (stage || estimateClass || baseDate) model.project = { stage, estimateClass, baseDate };
   if (drivers.length) model.drivers = drivers;
   // The headline scenario, when there is a second one to choose from.
   if (risks.some((r) => r.post)) model.settings = { mitigation: options.riskValues ?? 'pre' };

@@ -37,7 +37,13 @@ async function loadRecords(actor: Actor, projectId: number): Promise<RegisterRec
   const codeOf = new Map(activities.map((a) => [a.id, a.code]));
   const activityCode = (id: number | null | undefined) => (id ? (codeOf.get(id) ?? null) : null);
   return {
-    project: { name: project.name, currency: project.currency },
+    project: {
+      name: project.name,
+      currency: project.currency,
+      stage: project.stage,
+      estimateClass: project.estimateClass,
+      baseDate: project.baseDate,
+    },
     activities: activities.map((a) => ({
       code: a.code,
       name: a.name,

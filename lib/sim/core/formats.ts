@@ -109,11 +109,21 @@ export interface ModelSettings {
 
 export type ContingencyLevel = 'P50' | 'P70' | 'P80' | 'P90';
 
+export interface ModelProjectHeader {
+  stage?: string;
+  /** AACE estimate class, 1–5. */
+  estimateClass?: number;
+  /** The day work starts, YYYY-MM-DD: working days count from it. */
+  baseDate?: string;
+}
+
 export interface Model {
   format: 'outturn-model';
   version: 1 | 2;
   name?: string;
   currency?: string;
+  /** What the project says of itself; the engine reads none of it (a new project takes it from the file). */
+  project?: ModelProjectHeader;
   items: ModelItem[];
   risks?: ModelRisk[];
   activities?: ModelActivity[];

@@ -153,6 +153,14 @@ export const modelSchema = z
     version: z.literal([1, 2]),
     name: z.string().optional(),
     currency: z.string().optional(),
+    // What the project says of itself; the engine reads none of it.
+    project: z
+      .strictObject({
+        stage: z.string().max(60).optional(),
+        estimateClass: z.number().int().min(1).max(5).optional(),
+        baseDate: z.iso.date({ message: 'Write the base date as YYYY-MM-DD.' }).optional(),
+      })
+      .optional(),
     items: z.array(itemSchema),
     risks: z.array(riskSchema).optional(),
     activities: z.array(activitySchema).optional(),
