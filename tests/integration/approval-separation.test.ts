@@ -33,7 +33,9 @@ describe('approving a run one started', () => {
     const runId = await succeededRun(owner, projectId);
     const res = await decide(owner, runId, 'approved');
     expect(res.status).toBe(403);
-    expect(res.json.error.message).toContain(`You started run ${runId}, so someone else must approve it`);
+    // Runs are named by their number within the project, not their id.
+    const { number } = (await owner.get(`/api/projects/${projectId}/runs/${runId}`)).json.run;
+    expect(res.json.error.message).toContain(`You started run ${number}, so someone else must approve it`);
     expect(res.json.error.message).toContain('separation of duties');
     expect(await count('Approvals', 'runId = ?', [runId])).toBe(0);
 

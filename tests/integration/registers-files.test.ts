@@ -96,7 +96,9 @@ describe('import and export', () => {
     const { name: _m, ...sent } = model;
     // The registers write version 2: a risk names its activities as a list.
     const { activity: _a, ...risk } = sent.risks[0];
-    expect(back).toEqual({ ...sent, version: 2, risks: [{ ...risk, activities: ['A2'] }] });
+    // The export also states the project's own settings (projectInput above).
+    const project = { stage: 'Feasibility', estimateClass: 3, baseDate: '2027-01-04' };
+    expect(back).toEqual({ ...sent, version: 2, project, risks: [{ ...risk, activities: ['A2'] }] });
     expect(
       await count('AuditEntries', "projectId = ? AND entity = 'model' AND action = 'import'", [projectId]),
     ).toBe(1);

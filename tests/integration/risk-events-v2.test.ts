@@ -43,7 +43,9 @@ describe('version 2 risk and line fields', () => {
     expect(exported.status).toBe(200);
     const { name: _n, ...back } = exported.json;
     // A post block makes two scenarios; the file names the headline one (before the response).
-    expect(back).toEqual({ ...MODEL, settings: { mitigation: 'pre' } });
+    // The export also states the project's own settings, as runs-fixtures creates the project.
+    const project = { stage: 'Feasibility', estimateClass: 3, baseDate: '2027-03-01' };
+    expect(back).toEqual({ ...MODEL, project, settings: { mitigation: 'pre' } });
   });
 
   it('reach the grid as cells, and the database as codes and distributions', async () => {
