@@ -15,6 +15,7 @@ import {
   ColumnAutoSizeModule,
   CustomEditorModule,
   EventApiModule,
+  LocaleModule,
   ModuleRegistry,
   PinnedRowModule,
   RenderApiModule,
@@ -44,6 +45,8 @@ import type { GridRow } from './use-register-rows';
 // export, other row models…) more than doubles the code a register tab loads before it can draw.
 ModuleRegistry.registerModules([
   ClientSideRowModelModule,
+  // The grid's own words (the empty grid's overlay) are ours, given through the locale text.
+  LocaleModule,
   ClientSideRowModelApiModule,
   TextEditorModule,
   SelectEditorModule,

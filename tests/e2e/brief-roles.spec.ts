@@ -97,7 +97,8 @@ test('an owner cannot approve a run they started until self-approval is allowed;
   const brief = new BriefPages(page);
   await brief.open(projectId, runId);
   await expect(page.getByTestId('self-approval-refused')).toContainText(
-    `You started run ${runId}, so someone else must approve it as the baseline`,
+    // The new project's first run is run 1: runs are named by their number in the project.
+    'You started run 1, so someone else must approve it as the baseline',
   );
   await expect(page.getByLabel('Approve as the baseline')).toBeDisabled();
   await page.screenshot({ path: '/tmp/brief-owner-refused.png' });

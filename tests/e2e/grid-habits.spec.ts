@@ -166,7 +166,7 @@ test('pasted figures keep their spreadsheet formats: £, €, m, spaces, % and a
       new ClipboardEvent('paste', { clipboardData: data, bubbles: true, cancelable: true }),
     );
   });
-  await expect(risks.cell(0, 'probability', 'Risk events')).toHaveText('30%');
+  await expect(risks.cell(0, 'probability', 'Risk events')).toHaveText('30 %'); // shown in the one percentage style
   await risks.waitSaved();
   const riskRows = (await (await page.request.get(`/api/projects/${id}/risks`)).json()).rows;
   expect(riskRows[0].probability).toBeCloseTo(0.3, 10);

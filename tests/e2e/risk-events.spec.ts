@@ -58,7 +58,7 @@ test('an estimator reads opportunities and the status rules, and picks a risk’
   await expect(cell(page, 1, '_direction')).toHaveClass(/text-opportunity/);
   if (shot) await page.screenshot({ path: `${shot}/risks-1280.png`, fullPage: true });
   const saving = await reveal(page, 1, 'delayLow');
-  await expect(saving).toHaveText('-10');
+  await expect(saving).toHaveText('−10'); // a true minus sign
   await expect(saving).toHaveClass(/text-opportunity/);
   await expect(saving).not.toHaveClass(/cell-invalid/);
   await expect(await reveal(page, 0, 'activityCodes')).toHaveText('A2, A3');

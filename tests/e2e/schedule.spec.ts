@@ -30,7 +30,7 @@ test('a planner types links in the notation and reads the health check on the sc
   const cell = (row: number, field: string) => grid.cell(row, field, 'Schedule');
   await expect(cell(1, 'predecessors')).toHaveText('A1 SS+2, A1 FF+7');
   await expect(cell(3, 'predecessors')).toHaveText('A3, A2-1, A1 SF+20');
-  await expect(cell(2, 'existence')).toHaveText('25%');
+  await expect(cell(2, 'existence')).toHaveText('25 %'); // the one percentage style
 
   const health = page.getByRole('region', { name: 'Health check of the network' });
   await expect(health).toContainText('A2 → A4 (FS−1)');
