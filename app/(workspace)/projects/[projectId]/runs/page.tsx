@@ -23,6 +23,7 @@ export default async function RunsPage({ params }: { params: Promise<{ projectId
             initialSeed={randomInt(1, MAX_SEED + 1)}
             baseDate={project.baseDate}
             currency={project.currency}
+            targets={{ cost: project.costTarget, finish: project.finishTarget }}
           />
         </Card>
       ) : (
