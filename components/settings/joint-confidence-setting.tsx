@@ -65,7 +65,7 @@ export function JointConfidenceSetting({ initial }: { initial: OrganizationSetti
           chance (the frontier), and marks the targets against them. {DEFAULT_JOINT_CONFIDENCE} % unless you
           choose otherwise; your organisation&rsquo;s funding policy may set the level.
         </p>
-        <div className="max-w-sm">
+        <div className="max-w-xs">
           <Field
             id="joint-confidence"
             label="Joint confidence (%)"
