@@ -5,7 +5,8 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Field, TextInput } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
-import { ApiError, callApi } from '@/components/forms/api';
+import { callApi } from '@/components/forms/api';
+import { saveFailure } from './save-failure';
 import {
   DEFAULT_JOINT_CONFIDENCE,
   MAX_JOINT_CONFIDENCE,
@@ -47,11 +48,7 @@ export function JointConfidenceSetting({ initial }: { initial: OrganizationSetti
         text: `Saved: runs started from now on draw their frontier at ${reply.organization.jointConfidence} % joint confidence. Runs already made keep theirs.`,
       });
     } catch (e) {
-      setStatus({
-        tone: 'invalid',
-        text:
-          e instanceof ApiError ? e.failure.message : 'The server could not be reached. Nothing was changed.',
-      });
+      setStatus(saveFailure(e));
     } finally {
       setBusy(false);
     }
