@@ -22,6 +22,9 @@ export class Project extends Model<InferAttributes<Project>, InferCreationAttrib
   declare description: CreationOptional<string | null>;
   declare assumptions: CreationOptional<string | null>;
   declare exclusions: CreationOptional<string | null>;
+  /** The cost and finish targets each new run starts with (the user may change them for one run). */
+  declare costTarget: CreationOptional<number | null>;
+  declare finishTarget: CreationOptional<string | null>;
   declare archivedAt: CreationOptional<Date | null>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
@@ -40,6 +43,8 @@ Project.init(
     description: { type: DataTypes.TEXT, allowNull: true },
     assumptions: { type: DataTypes.TEXT, allowNull: true },
     exclusions: { type: DataTypes.TEXT, allowNull: true },
+    costTarget: { type: DataTypes.DOUBLE, allowNull: true },
+    finishTarget: { type: DataTypes.DATEONLY, allowNull: true },
     archivedAt: { type: DataTypes.DATE, allowNull: true },
     version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
     createdAt: DataTypes.DATE,

@@ -40,6 +40,8 @@ export function NewProjectForm({
           stage: project.stage as Values['stage'],
           baseDate: project.baseDate,
           description: project.description ?? '',
+          costTarget: project.costTarget === null ? '' : String(project.costTarget),
+          finishTarget: project.finishTarget ?? '',
         }
       : {
           currency: 'EUR',
@@ -184,6 +186,32 @@ export function NewProjectForm({
           <TextInput id="p-desc" {...register('description')} />
         </Field>
       </div>
+      <Field
+        id="p-cost-target"
+        label={project ? `Cost target (${project.currency})` : 'Cost target'}
+        error={e.costTarget?.message}
+        hint="Optional; e.g. the budget. Each new run starts with it."
+      >
+        <TextInput
+          id="p-cost-target"
+          inputMode="decimal"
+          invalid={!!e.costTarget}
+          {...register('costTarget')}
+        />
+      </Field>
+      <Field
+        id="p-finish-target"
+        label="Finish target"
+        error={e.finishTarget?.message}
+        hint="Optional; e.g. the handover date. Each new run starts with it."
+      >
+        <TextInput
+          id="p-finish-target"
+          type="date"
+          invalid={!!e.finishTarget}
+          {...register('finishTarget')}
+        />
+      </Field>
       {withFile ? (
         <div className="col-span-2 space-y-1">
           <label htmlFor="p-file" className="block text-sm font-medium text-ink-soft">

@@ -69,7 +69,8 @@ const SELECT_FIELDS: {
 
 /**
  * The settings of a new run. The seed is drawn at random but always shown (and stored), so the
- * run can be repeated exactly. On start the page moves to the run, which shows its progress.
+ * run can be repeated exactly. The targets start as the project's own; changing or clearing them
+ * here holds for this run only. On start the page moves to the run, which shows its progress.
  */
 export function RunSettingsForm({
   projectId,
@@ -77,6 +78,7 @@ export function RunSettingsForm({
   baseDate,
   currency,
   health = null,
+  targets = { cost: null, finish: null },
 }: {
   projectId: number;
   initialSeed: number;
@@ -84,6 +86,8 @@ export function RunSettingsForm({
   currency: string;
   /** The schedule's health check; a run may start whatever it finds. */
   health?: { findings: HealthFinding[]; activityCount: number } | null;
+  /** The project's targets, offered as this run's (the user may change or clear them). */
+  targets?: { cost: number | null; finish: string | null };
 }) {
   const router = useRouter();
   const [failure, setFailure] = useState<string | null>(null);
@@ -102,8 +106,8 @@ export function RunSettingsForm({
       seed: initialSeed,
       sampling: 'lhs',
       riskValues: 'pre',
-      costTarget: '',
-      finishTarget: '',
+      costTarget: targets.cost === null ? '' : String(targets.cost),
+      finishTarget: targets.finish ?? '',
       confidence: 'P80',
       relativePercent: 0.5,
       maxIterations: 200_000,
@@ -159,14 +163,18 @@ export function RunSettingsForm({
       name: 'costTarget',
       id: 'cost-target',
       label: `Cost target (${currency})`,
-      hint: 'Optional; e.g. the budget',
+      hint:
+        targets.cost === null ? 'Optional; e.g. the budget' : "The project's target; change it for this run",
       input: { inputMode: 'decimal' },
     },
     {
       name: 'finishTarget',
       id: 'finish-target',
       label: 'Finish target',
-      hint: `Optional; on or after the base date, ${formatDate(baseDate)}`,
+      hint:
+        targets.finish === null
+          ? `Optional; on or after the base date, ${formatDate(baseDate)}`
+          : "The project's target; change it for this run",
       input: { type: 'date', min: baseDate },
     },
   ];

@@ -3,7 +3,8 @@
 import { useState } from 'react';
 import { Card } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
-import { ApiError, callApi } from '@/components/forms/api';
+import { callApi } from '@/components/forms/api';
+import { saveFailure } from './save-failure';
 import type { OrganizationSettings } from '@/lib/view-types/organization';
 
 /**
@@ -34,11 +35,7 @@ export function SelfApprovalSetting({ initial }: { initial: OrganizationSettings
       });
     } catch (e) {
       setAllowed(!next);
-      setStatus({
-        tone: 'invalid',
-        text:
-          e instanceof ApiError ? e.failure.message : 'The server could not be reached. Nothing was changed.',
-      });
+      setStatus(saveFailure(e));
     } finally {
       setBusy(false);
     }

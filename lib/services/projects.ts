@@ -32,6 +32,8 @@ export function toProjectView(p: Project): ProjectView {
     stage: p.stage,
     baseDate: p.baseDate,
     description: p.description ?? null,
+    costTarget: p.costTarget ?? null,
+    finishTarget: p.finishTarget ?? null,
     archived: Boolean(p.archivedAt),
     version: p.version,
   };

@@ -10,7 +10,12 @@ export const STAGES = [
   'Delivery',
 ] as const;
 
-export const projectSchema = z.object({
+/** Blank form fields mean "no target"; a typed amount may carry spaces or thousands commas. */
+const blankToNull = (v: unknown) => (v === '' || (typeof v === 'string' && v.trim() === '') ? null : v);
+const amount = (v: unknown) => (typeof v === 'string' ? Number(v.replace(/[\s,]/g, '')) : v);
+const costTargetMessage = 'Enter the cost target as an amount greater than 0, or leave it blank.';
+
+const projectFields = z.object({
   name: z.string().trim().min(2, { message: 'Enter a project name (at least 2 characters).' }).max(160),
   code: z
     .string()
@@ -32,7 +37,32 @@ export const projectSchema = z.object({
   stage: z.enum(STAGES, { message: `Choose a stage: ${STAGES.join(', ')}.` }),
   baseDate: z.iso.date({ message: 'Enter the base date as YYYY-MM-DD.' }),
   description: z.string().trim().max(4000).optional().nullable(),
+  // The targets each new run starts with; absent means "leave as they are", null means "none".
+  costTarget: z
+    .preprocess(
+      (v) => amount(blankToNull(v)),
+      z.number({ message: costTargetMessage }).positive({ message: costTargetMessage }).nullable(),
+    )
+    .optional(),
+  finishTarget: z
+    .preprocess(
+      blankToNull,
+      z.iso.date({ message: 'Enter the finish target as a date, YYYY-MM-DD, or leave it blank.' }).nullable(),
+    )
+    .optional(),
 });
+
+/** A finish target before the base date could never be met by any run. */
+function finishAfterBase(p: { baseDate: string; finishTarget?: string | null }, ctx: z.RefinementCtx) {
+  if (p.finishTarget && p.finishTarget < p.baseDate)
+    ctx.addIssue({
+      code: 'custom',
+      path: ['finishTarget'],
+      message: `The finish target must be on or after the base date, ${p.baseDate}.`,
+    });
+}
+
+export const projectSchema = projectFields.superRefine(finishAfterBase);
 export type ProjectInput = z.infer<typeof projectSchema>;
 
 /** The version of the record that the client last read: a change to an older one is refused (409). */
@@ -41,4 +71,6 @@ export const readVersionField = z
   .int({ message: 'Send the version of the project you last read (a whole number).' })
   .positive({ message: 'Send the version of the project you last read (a whole number).' });
 
-export const projectUpdateSchema = projectSchema.extend({ version: readVersionField });
+export const projectUpdateSchema = projectFields
+  .extend({ version: readVersionField })
+  .superRefine(finishAfterBase);

@@ -10,6 +10,9 @@ export type ProjectView = {
   stage: string;
   baseDate: string;
   description: string | null;
+  /** The cost target and finish target (YYYY-MM-DD) each new run starts with; null when none. */
+  costTarget: number | null;
+  finishTarget: string | null;
   archived: boolean;
   version: number;
 };

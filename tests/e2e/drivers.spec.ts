@@ -1,6 +1,7 @@
 import { expect, test } from '@playwright/test';
 import { AuthPages, DEMO_PASSWORD, demoEmail } from './pages/auth';
 import { DriversPage } from './pages/drivers';
+import { OutcomePage } from './pages/outcome';
 import { RunsPages } from './pages/runs';
 
 /** A small building project whose WBS branch 3 holds the substructure lines. */
@@ -105,4 +106,12 @@ test('an estimator adds a driver over a WBS branch and starts a run that complet
       applies: ['3.1', '3.2', 'A1'],
     },
   ]);
+
+  // The outcome's allocation table adds up to the contingency on screen, lines 3.1 and 3.2 included.
+  const outcome = new OutcomePage(page);
+  await outcome.open(projectId, runId);
+  const { amounts } = await outcome.expectAllocationAddsUp();
+  expect(amounts.length).toBeGreaterThan(1);
+  await expect(outcome.allocation()).toContainText('3.1');
+  await expect(outcome.allocation()).toContainText('3.2');
 });

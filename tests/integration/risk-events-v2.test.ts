@@ -229,6 +229,7 @@ describe('the status rules and a stored run', () => {
       seed: 2026,
       sampling: 'lhs',
       contingencyLevel: 'P80',
+      jointConfidence: 0.7,
     });
     const dir = mkdtempSync(path.join(tmpdir(), 'outturn-v2-'));
     const file = path.join(dir, 'snapshot.json');

@@ -38,7 +38,14 @@ describe('a stored run is reproducible from its snapshot', () => {
       /^attachment; filename=".+-run-\d+\.model\.json"$/,
     );
     const snapshot = JSON.parse(download.text);
-    expect(snapshot.settings).toEqual({ iterations, seed, sampling: 'lhs', contingencyLevel: 'P80' });
+    // A new organisation's joint confidence is the default, 70 %.
+    expect(snapshot.settings).toEqual({
+      iterations,
+      seed,
+      sampling: 'lhs',
+      contingencyLevel: 'P80',
+      jointConfidence: 0.7,
+    });
 
     // The stored hash is SHA-256 of the snapshot's canonical JSON (computed here independently).
     const [stored] = await rows<{ inputHash: string; result: string }>(

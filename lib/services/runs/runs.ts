@@ -16,6 +16,7 @@ import { snapshotHash } from '@/lib/runs/snapshot-hash';
 import { recordAudit } from '../audit';
 import { calendarForDates } from '../calendar';
 import { exportModelFile } from '../model-file';
+import { jointConfidenceOf } from '../organization-settings';
 import { findProject } from '../projects';
 import { assertWritable } from '../write-access';
 import { abortActive, dequeue, isActive } from './queue';
@@ -125,7 +126,7 @@ function resolveSettings(input: unknown, baseDate: string, calendar: WorkCalenda
 }
 
 /** The model file the run will read: the registers, the targets and the run's settings. */
-function snapshotOf(model: Model, settings: RunSettings): Model {
+function snapshotOf(model: Model, settings: RunSettings, jointConfidence: number): Model {
   const targets: Model['targets'] = {};
   if (settings.costTarget !== null) targets.cost = settings.costTarget;
   if (settings.durationTarget !== null) targets.duration = settings.durationTarget;
@@ -140,6 +141,8 @@ function snapshotOf(model: Model, settings: RunSettings): Model {
       sampling: settings.sampling,
       // The contingency is allocated at the level the run was asked for.
       contingencyLevel: settings.confidence,
+      // The frontier of cost and finish pairs is drawn at the organisation's chosen joint confidence.
+      jointConfidence,
     },
   };
 }
@@ -158,7 +161,7 @@ export async function startRun(
   if (model.items.length === 0 && (model.risks ?? []).length === 0 && (model.activities ?? []).length === 0) {
     throw badRequest('There is nothing to simulate yet: add line items, risk events or activities first.');
   }
-  const snapshot = snapshotOf(model, settings);
+  const snapshot = snapshotOf(model, settings, await jointConfidenceOf(actor.organizationId));
   const checked = validateModel(snapshot);
   if (!checked.ok) {
     const shown = checked.issues.slice(0, 5).map((i) => `${i.path}: ${i.message}`);

@@ -29,6 +29,28 @@ export class OutcomePage {
     return moneyValue(await this.allocation().getByTestId(`allocation-${which}`).innerText());
   }
 
+  /**
+   * Checks that the allocation table adds up to the contingency shown in the headline figures, and
+   * returns its figures. Each figure is rounded to a whole unit of currency on screen, so the rows
+   * may miss the printed sum by up to half a unit each (common practice for rounded tables).
+   */
+  async expectAllocationAddsUp() {
+    const amounts = await this.allocationAmounts();
+    const sum = await this.allocationFigure('sum');
+    const contingency = await this.allocationFigure('contingency');
+    const difference = await this.allocationFigure('difference');
+    const rounding = 0.5 * (amounts.length + 3);
+    expect(Math.abs(amounts.reduce((s, a) => s + a, 0) - sum)).toBeLessThanOrEqual(rounding);
+    // The rows add up to the contingency, less the Monte Carlo difference the table states.
+    expect(Math.abs(sum - contingency - difference)).toBeLessThanOrEqual(rounding);
+    // The allocation's contingency is the one in the headline figures (the P-value less the base).
+    expect(contingency).toBe(moneyValue(await this.page.getByTestId('contingency').innerText()));
+    // The window's mean lies close to the P-value (Euler allocation, Tasche 1999: the shares add up
+    // to the contingency within Monte Carlo error); here within 5 % of it.
+    expect(Math.abs(difference)).toBeLessThan(0.05 * Math.abs(contingency));
+    return { amounts, sum, contingency, difference };
+  }
+
   mitigation() {
     return this.page.getByTestId('mitigation-compare');
   }

@@ -36,6 +36,7 @@ export default async function RunsPage({ params }: { params: Promise<{ projectId
             baseDate={project.baseDate}
             currency={project.currency}
             health={health}
+            targets={{ cost: project.costTarget, finish: project.finishTarget }}
           />
         </Card>
       ) : (
