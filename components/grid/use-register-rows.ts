@@ -8,7 +8,7 @@
 // a row this page saved a moment ago is at the version that save returned, not the one the
 // edit was made on. Two quick edits of one row are two saves, never a conflict with oneself.
 
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { ApiError, callApi } from '@/components/forms/api';
 import { rowIssues, type RegisterKind } from '@/lib/validation/registers';
@@ -54,6 +54,10 @@ export const newKey = () => `n${Date.now().toString(36)}${(counter++).toString(3
 
 export { registerQueryKey };
 
+const subscribeToNothing = () => () => {};
+const isBrowser = () => true;
+const isServer = () => false;
+
 /** What the grid says about drafts kept from an earlier visit. */
 function keptNotice(count: number): Notice {
   if (!count) return null;
@@ -85,20 +89,30 @@ export function useRegisterRows(
     queryKey,
     queryFn: async () => (await callApi<{ rows: SavedRow[] }>(url)).rows,
   });
-  // Drafts kept from an earlier visit come back with the page (the grid is not drawn before
-  // the saved rows arrive, so the server's first render never differs from the browser's).
+  // Drafts kept from an earlier visit come back once the page has hydrated: the server sends
+  // the saved rows with the page, and reading the browser's store during the first render would
+  // make that render differ from the server's.
   const owner = useDraftOwner();
   const scope = useMemo(
     () => (owner === null ? null : { userId: owner, projectId, kind }),
     [owner, projectId, kind],
   );
-  const [kept] = useState(() =>
-    scope && typeof window !== 'undefined' ? loadDrafts(scope) : { drafts: [], order: [] },
-  );
-  const [drafts, setDrafts] = useState<Map<string, Draft>>(() => new Map(kept.drafts));
+  const [drafts, setDrafts] = useState<Map<string, Draft>>(() => new Map());
   const [mine, setMine] = useState<Map<string, Record<string, unknown>>>(new Map());
-  const [newOrder, setNewOrder] = useState<Map<string, number>>(() => new Map(kept.order));
-  const [notice, setNotice] = useState<Notice>(() => keptNotice(kept.drafts.length));
+  const [newOrder, setNewOrder] = useState<Map<string, number>>(() => new Map());
+  const [notice, setNotice] = useState<Notice>(null);
+  // The scope whose stored drafts have been read: nothing is written back before they are.
+  const [loadedScope, setLoadedScope] = useState<string | null>(null);
+  const scopeKey = scope ? `${scope.userId}:${scope.projectId}:${scope.kind}` : null;
+  // False while hydrating (the server's snapshot), true after: the store is read only then.
+  const hydrated = useSyncExternalStore(subscribeToNothing, isBrowser, isServer);
+  if (hydrated && scope && scopeKey && loadedScope !== scopeKey) {
+    const kept = loadDrafts(scope);
+    setLoadedScope(scopeKey);
+    setDrafts(new Map(kept.drafts));
+    setNewOrder(new Map(kept.order));
+    setNotice(keptNotice(kept.drafts.length));
+  }
   const [pending, setPending] = useState(0);
   const queue = useRef<Promise<unknown>>(Promise.resolve());
   const own = useRef(new OwnVersions());
@@ -107,11 +121,11 @@ export function useRegisterRows(
 
   // Every change of the drafts is kept; a draft of a row someone has since deleted is dropped.
   useEffect(() => {
-    if (!scope) return;
+    if (!scope || loadedScope !== scopeKey) return;
     const present = query.data ? new Set(query.data.map(rowKey)) : null;
     const live = [...drafts].filter(([key, d]) => d.isNew || !present || present.has(key));
     saveDrafts(scope, { drafts: live, order: [...newOrder].filter(([k]) => drafts.has(k)) });
-  }, [scope, drafts, newOrder, query.data]);
+  }, [scope, scopeKey, loadedScope, drafts, newOrder, query.data]);
 
   const issuesOf = useCallback(
     (values: Record<string, unknown>, all: Record<string, unknown>[]) => ({
