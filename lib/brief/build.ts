@@ -169,6 +169,7 @@ export function buildBrief(source: BriefSource, { drivers = 10, risks = 8 } = {}
     : 'P80';
 
   const calendar = source.run.calendar ?? MONDAY_TO_FRIDAY;
+  const scenario = scenarioBrief(result, snapshot, source.run.riskValues === 'post' ? 'post' : 'pre');
   const cost = totalBrief(result.cost);
   const within = result.cost.probabilityWithinTarget;
   if (within && snapshot.targets?.cost !== undefined)
@@ -209,14 +210,14 @@ export function buildBrief(source: BriefSource, { drivers = 10, risks = 8 } = {}
     duration,
     contingency: { ...contingencyAt(result.cost, level), level },
     joint: result.joint ? { probability: result.joint.probability, ci95: result.joint.ci95 } : null,
-    scenario: scenarioBrief(result, snapshot, source.run.riskValues === 'post' ? 'post' : 'pre'),
+    scenario,
     finish: result.duration
       ? finishBrief(result.duration, project.baseDate, level, finishTarget, calendar)
       : null,
     drivers: driversOf(result.sensitivity.cost, names, drivers),
     finishDrivers: result.duration ? driversOf(result.sensitivity.duration, names, drivers) : [],
     allocation: result.allocation ? allocationByTopWbs(result.allocation, snapshot) : null,
-    topRisks: topRiskExposures(snapshot, risks),
+    topRisks: topRiskExposures(snapshot, risks, scenario.used),
     classCheck,
     scheduleHealth: {
       findings: scheduleHealth(snapshot.activities ?? []),

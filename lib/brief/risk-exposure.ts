@@ -5,6 +5,8 @@
  *
  * (the expected value of a Bernoulli(p) occurrence times an independent impact). Read from the
  * run's input snapshot, not the live register, so that the brief matches the run it reports.
+ * After the responses (post-mitigation), a risk's post values stand where it has them; a missing
+ * one keeps the value before the response, as the engine reads it.
  */
 import { createDistribution, type DistSpec, type ModelRisk } from '@/lib/sim';
 
@@ -28,22 +30,28 @@ function meanOf(spec: DistSpec | undefined, where: string, field: string): numbe
 }
 
 /** Every risk of the model with its expected cost, the largest first (ties by id). */
-export function riskExposures(model: WithRisks): RiskExposure[] {
+export function riskExposures(model: WithRisks, scenario: 'pre' | 'post' = 'pre'): RiskExposure[] {
   return (model.risks ?? [])
     .map((r) => {
-      const meanCost = meanOf(r.cost, `risks.${r.id}`, 'cost') ?? 0;
+      const after = scenario === 'post' ? r.post : undefined;
+      const probability = after?.probability ?? r.probability;
+      const meanCost = meanOf(after?.cost ?? r.cost, `risks.${r.id}`, 'cost') ?? 0;
       return {
         id: r.id,
         name: r.name ?? r.id,
-        probability: r.probability,
+        probability,
         meanCost,
-        expectedCost: r.probability * meanCost,
-        meanDelay: meanOf(r.delay, `risks.${r.id}`, 'delay'),
+        expectedCost: probability * meanCost,
+        meanDelay: meanOf(after?.delay ?? r.delay, `risks.${r.id}`, 'delay'),
       };
     })
     .sort((a, b) => b.expectedCost - a.expectedCost || a.id.localeCompare(b.id));
 }
 
-export function topRiskExposures(model: WithRisks, count = 8): RiskExposure[] {
-  return riskExposures(model).slice(0, count);
+export function topRiskExposures(
+  model: WithRisks,
+  count = 8,
+  scenario: 'pre' | 'post' = 'pre',
+): RiskExposure[] {
+  return riskExposures(model, scenario).slice(0, count);
 }

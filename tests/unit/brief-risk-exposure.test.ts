@@ -46,3 +46,39 @@ describe('risk exposure (probability × mean cost impact)', () => {
     expect(topRiskExposures({ risks: undefined })).toEqual([]);
   });
 });
+
+describe('risk exposure after the responses', () => {
+  const model = {
+    risks: [
+      // Before: 0.4 × triangular mean (100 + 400 + 700)/3 = 0.4 × 400 = 160. After: probability 0.1
+      // and a triangular (50, 200, 350) with mean 200, so 0.1 × 200 = 20 (triangular mean,
+      // Johnson, Kotz & Balakrishnan 1995, ch. 26).
+      {
+        id: 'R1',
+        probability: 0.4,
+        cost: { type: 'triangular' as const, low: 100, mode: 400, high: 700 },
+        post: { probability: 0.1, cost: { type: 'triangular' as const, low: 50, mode: 200, high: 350 } },
+      },
+      // Only the probability changes: the cost keeps its value before the response, uniform mean
+      // (0 + 600)/2 = 300, so 0.5 × 300 = 150 before and 0.2 × 300 = 60 after.
+      {
+        id: 'R2',
+        probability: 0.5,
+        cost: { type: 'uniform' as const, low: 0, high: 600 },
+        post: { probability: 0.2 },
+      },
+    ],
+  };
+
+  it('reads the post values where a risk has them and keeps the others', () => {
+    expect(riskExposures(model).map((r) => [r.id, r.expectedCost])).toEqual([
+      ['R1', 160],
+      ['R2', 150],
+    ]);
+    const after = riskExposures(model, 'post');
+    expect(after.map((r) => r.id)).toEqual(['R2', 'R1']);
+    expect(after[0].expectedCost).toBeCloseTo(60, 9);
+    expect(after[1].expectedCost).toBeCloseTo(20, 9);
+    expect(after[1].probability).toBe(0.1);
+  });
+});

@@ -464,7 +464,9 @@ export async function renderBriefPdf(
   if (brief.duration)
     driversSection(w, brief.finishDrivers, 'Top drivers of finish (rank correlation, every kind of input)');
 
-  w.heading('Top risk events by expected cost');
+  w.heading(
+    `Top risk events by expected cost${brief.scenario.used === 'post' ? ', after the responses' : ''}`,
+  );
   if (!brief.topRisks.length) w.paragraph('The run had no risk events.', { colour: C.soft });
   else
     w.table(

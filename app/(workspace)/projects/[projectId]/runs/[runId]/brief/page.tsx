@@ -254,7 +254,9 @@ export default async function BriefPage({ params }: { params: RunParams }) {
         </Section>
       ) : null}
 
-      <Section title="Top risk events by expected cost">
+      <Section
+        title={`Top risk events by expected cost${brief.scenario.used === 'post' ? ', after the responses' : ''}`}
+      >
         <RiskTable risks={brief.topRisks} currency={project.currency} />
       </Section>
 
