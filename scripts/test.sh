@@ -20,6 +20,10 @@ export PORT=$((3100 + slot * 10)) MAIL_UI_PORT=$((2581 + slot * 10)) SMTP_PORT=$
 export STRIPE_FAKE_PORT=$((12112 + slot * 10))
 export APP_URL="http://localhost:$PORT" NEXTAUTH_URL="http://localhost:$PORT"
 export RUN="$ROOT/.data/run-test-$slot"
+# A private Redis for the tests of queue mode (workers, two web instances); the test app server
+# itself runs embedded, as `npm start` does.
+redis_port=$((6400 + slot))
+export REDIS_TEST_URL="redis://127.0.0.1:$redis_port"
 # The tests stand where a reverse proxy would: the app believes the X-Forwarded-For they send.
 export TRUSTED_PROXIES="127.0.0.1,::1"
 mkdir -p "$RUN"
@@ -37,6 +41,7 @@ bash scripts/db.sh start
 mariadb --no-defaults --socket="$ROOT/.data/mariadb/mysqld.sock" -uroot -e "DROP DATABASE IF EXISTS \`$DB_NAME\`"
 bash scripts/db.sh start "$DB_NAME" >/dev/null
 bash scripts/services.sh start
+bash scripts/redis.sh start "$redis_port"
 bash scripts/migrate.sh
 bash scripts/build.sh
 
@@ -44,6 +49,7 @@ server_pid=""
 cleanup() {
   [ -n "$server_pid" ] && kill "$server_pid" 2>/dev/null || true
   bash scripts/services.sh stop || true
+  bash scripts/redis.sh stop "$redis_port" >/dev/null || true
 }
 trap cleanup EXIT
 node_modules/.bin/next start -p "$PORT" >"$RUN/test-server.log" 2>&1 &
