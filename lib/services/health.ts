@@ -1,0 +1,120 @@
+import 'server-only';
+/**
+ * Is this web instance usable? For load balancers and orchestrators: no session, nothing
+ * secret, nothing of any organisation. The database must answer; in queue mode Redis too (runs
+ * are enqueued there). Without a worker the app still serves, but runs only wait: degraded.
+ * Every probe has a short time limit, and one answer serves every probe of the next second,
+ * so a balancer polling hard (or many at once) costs one round of checks per second.
+ */
+import { QueryTypes } from 'sequelize';
+import { Queue } from 'bullmq';
+import { sequelize } from '@/models';
+import { queuePrefix, redisConnection, redisUrl, RUN_QUEUE } from '@/lib/queue/redis';
+import { queueCounts } from '@/lib/services/runs/queue';
+
+export type Probe = { ok: boolean; ms: number };
+export type QueueCounts = { waiting: number; active: number; delayed: number; failed: number };
+export type Health = {
+  status: 'ok' | 'degraded' | 'down';
+  mode: 'embedded' | 'queue';
+  database: Probe;
+  redis: Probe | 'not used';
+  /** null when the counts could not be read (Redis down). */
+  queue: QueueCounts | null;
+  /** Worker processes connected to the run queue; in embedded mode this process is the one. */
+  workers: number | null;
+};
+
+export const PROBE_MS = 1_500;
+const CACHE_MS = 1_000;
+
+async function timed(check: () => Promise<unknown>): Promise<Probe> {
+  const started = performance.now();
+  let timer: NodeJS.Timeout | undefined;
+  const limit = new Promise<never>((_, reject) => {
+    timer = setTimeout(() => reject(new Error('timed out')), PROBE_MS);
+  });
+  try {
+    await Promise.race([check(), limit]);
+    return { ok: true, ms: Math.round(performance.now() - started) };
+  } catch {
+    return { ok: false, ms: Math.round(performance.now() - started) };
+  } finally {
+    clearTimeout(timer);
+  }
+}
+
+const pingDatabase = () => sequelize.query('SELECT 1', { type: QueryTypes.SELECT });
+
+type HealthHolder = { outturnHealthQueue?: Queue; outturnHealth?: { at: number; answer: Promise<Health> } };
+const holder = globalThis as unknown as HealthHolder;
+
+/** A read-only handle on the run queue, on its own connection (it never blocks the others). */
+function runQueue(): Queue {
+  return (holder.outturnHealthQueue ??= new Queue(RUN_QUEUE, {
+    connection: redisConnection('health'),
+    prefix: queuePrefix(),
+  }));
+}
+
+async function queueHealth(): Promise<Pick<Health, 'redis' | 'queue' | 'workers'>> {
+  const connection = redisConnection('health');
+  // The shared connections queue commands while Redis is away: ask only when connected, so
+  // probes during an outage answer at once and pile nothing up.
+  const ready = () =>
+    connection.status === 'ready' ? Promise.resolve() : Promise.reject(new Error('not ready'));
+  const redis = await timed(async () => {
+    await ready();
+    await connection.ping();
+  });
+  if (!redis.ok) return { redis, queue: null, workers: null };
+  let queue: QueueCounts | null = null;
+  let workers: number | null = null;
+  await timed(async () => {
+    const queueOf = runQueue();
+    const [counts, seen] = await Promise.all([
+      queueOf.getJobCounts('waiting', 'active', 'delayed', 'failed'),
+      queueOf.getWorkersCount(),
+    ]);
+    queue = {
+      waiting: counts.waiting,
+      active: counts.active,
+      delayed: counts.delayed,
+      failed: counts.failed,
+    };
+    workers = seen;
+  });
+  return { redis, queue, workers };
+}
+
+/** The embedded mode's queue: this process's own (it neither delays nor keeps failed jobs). */
+function embeddedHealth(): Pick<Health, 'redis' | 'queue' | 'workers'> {
+  const { waiting, active } = queueCounts();
+  return { redis: 'not used', queue: { waiting, active, delayed: 0, failed: 0 }, workers: 1 };
+}
+
+/** Runs every check now. */
+export async function checkHealth(): Promise<Health> {
+  const queueMode = redisUrl() !== null;
+  const [database, rest] = await Promise.all([
+    timed(pingDatabase),
+    queueMode ? queueHealth() : Promise.resolve(embeddedHealth()),
+  ]);
+  const redisDown = rest.redis !== 'not used' && !rest.redis.ok;
+  const status =
+    !database.ok || redisDown
+      ? 'down'
+      : queueMode && (rest.queue === null || !rest.workers)
+        ? 'degraded'
+        : 'ok';
+  return { status, mode: queueMode ? 'queue' : 'embedded', database, ...rest };
+}
+
+/** The answer of the last second, or a fresh one (probes arriving together share it). */
+export function currentHealth(now = Date.now()): Promise<Health> {
+  const last = holder.outturnHealth;
+  if (last && now - last.at < CACHE_MS) return last.answer;
+  const answer = checkHealth();
+  holder.outturnHealth = { at: now, answer };
+  return answer;
+}
