@@ -20,6 +20,10 @@ export async function register() {
     // The sweeper keeps its timer there (lib/services/runs/recover.ts).
     const sweeper = globalThis as unknown as { outturnRunSweeper?: NodeJS.Timeout };
     onShutdown('background', 'run sweeper', () => clearInterval(sweeper.outturnRunSweeper));
+    // Queue mode: the rate limits' connection opens now, so that the first sign-ins after a
+    // start count in Redis rather than in this process's memory (lib/limits/rate-limiter.ts).
+    const { limitsStore } = await import('./lib/limits/rate-limiter');
+    limitsStore();
     const { closeRedisConnections } = await import('./lib/queue/redis');
     const { sequelize } = await import('./lib/db/sequelize');
     onShutdown('connections', 'redis', () => closeRedisConnections());

@@ -19,7 +19,10 @@ export type LimitSpec = {
   duration: number;
 };
 
-/** The shared Redis connection of queue mode, or null in embedded mode. */
+/**
+ * The shared Redis connection of queue mode, or null in embedded mode. instrumentation.ts opens
+ * it at start: a limiter treats a connection that is not ready yet like one that is down.
+ */
 export function limitsStore(): Redis | null {
   return redisUrl() ? redisConnection('limits') : null;
 }

@@ -11,7 +11,7 @@ const LEVELS = ['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent'] as
 const levelSchema = z.enum(LEVELS);
 
 /** LOG_LEVEL, or info when it is unset; an unknown level is reported once and info is used. */
-export function logLevel(value = process.env.LOG_LEVEL): (typeof LEVELS)[number] {
+export function logLevel(value: string | undefined): (typeof LEVELS)[number] {
   const trimmed = value?.trim().toLowerCase();
   if (!trimmed) return 'info';
   const parsed = levelSchema.safeParse(trimmed);
@@ -20,7 +20,7 @@ export function logLevel(value = process.env.LOG_LEVEL): (typeof LEVELS)[number]
 
 function createLogger(): Logger {
   const logger = pino({
-    level: logLevel(),
+    level: logLevel(process.env.LOG_LEVEL),
     base: { pid: process.pid, service: process.env.OUTTURN_SERVICE ?? 'outturn' },
     timestamp: pino.stdTimeFunctions.isoTime,
     // "level":"info" rather than pino's number: readable without a lookup table.

@@ -8,6 +8,7 @@ import 'server-only';
  */
 import { QueryTypes } from 'sequelize';
 import { Queue } from 'bullmq';
+import type { Redis } from 'ioredis';
 import { sequelize } from '@/models';
 import { queuePrefix, redisConnection, redisUrl, RUN_QUEUE } from '@/lib/queue/redis';
 import { queueCounts } from '@/lib/services/runs/queue';
@@ -44,34 +45,54 @@ async function timed(check: () => Promise<unknown>): Promise<Probe> {
   }
 }
 
+/**
+ * Whether the connection is (or within `ms` becomes) ready. The shared connections queue
+ * commands while Redis is away: asking only once connected means probes during an outage pile
+ * nothing up, and the first probe after start waits for the connection instead of failing.
+ */
+function whenReady(connection: Redis, ms: number): Promise<boolean> {
+  if (connection.status === 'ready') return Promise.resolve(true);
+  return new Promise((resolve) => {
+    const done = (ready: boolean) => {
+      clearTimeout(timer);
+      connection.off('ready', onReady);
+      resolve(ready);
+    };
+    const onReady = () => done(true);
+    const timer = setTimeout(() => done(false), ms);
+    connection.on('ready', onReady);
+  });
+}
+
 const pingDatabase = () => sequelize.query('SELECT 1', { type: QueryTypes.SELECT });
 
-type HealthHolder = { outturnHealthQueue?: Queue; outturnHealth?: { at: number; answer: Promise<Health> } };
+type HealthHolder = {
+  outturnHealthQueue?: { connection: Redis; prefix: string; queue: Queue };
+  outturnHealth?: { at: number; answer: Promise<Health> };
+};
 const holder = globalThis as unknown as HealthHolder;
 
 /** A read-only handle on the run queue, on its own connection (it never blocks the others). */
-function runQueue(): Queue {
-  return (holder.outturnHealthQueue ??= new Queue(RUN_QUEUE, {
-    connection: redisConnection('health'),
-    prefix: queuePrefix(),
-  }));
+function runQueue(connection: Redis): Queue {
+  const prefix = queuePrefix();
+  const held = holder.outturnHealthQueue;
+  if (held && held.connection === connection && held.prefix === prefix) return held.queue;
+  const queue = new Queue(RUN_QUEUE, { connection, prefix });
+  holder.outturnHealthQueue = { connection, prefix, queue };
+  return queue;
 }
 
 async function queueHealth(): Promise<Pick<Health, 'redis' | 'queue' | 'workers'>> {
   const connection = redisConnection('health');
-  // The shared connections queue commands while Redis is away: ask only when connected, so
-  // probes during an outage answer at once and pile nothing up.
-  const ready = () =>
-    connection.status === 'ready' ? Promise.resolve() : Promise.reject(new Error('not ready'));
   const redis = await timed(async () => {
-    await ready();
+    if (!(await whenReady(connection, PROBE_MS))) throw new Error('not connected');
     await connection.ping();
   });
   if (!redis.ok) return { redis, queue: null, workers: null };
   let queue: QueueCounts | null = null;
   let workers: number | null = null;
   await timed(async () => {
-    const queueOf = runQueue();
+    const queueOf = runQueue(connection);
     const [counts, seen] = await Promise.all([
       queueOf.getJobCounts('waiting', 'active', 'delayed', 'failed'),
       queueOf.getWorkersCount(),
