@@ -12,11 +12,12 @@ import type { Redis } from 'ioredis';
 import { sequelize } from '@/models';
 import { queuePrefix, redisConnection, redisUrl, RUN_QUEUE } from '@/lib/queue/redis';
 import { queueCounts } from '@/lib/services/runs/queue';
+import { healthStatus, type HealthStatus } from '@/lib/server/health-status';
 
 export type Probe = { ok: boolean; ms: number };
 export type QueueCounts = { waiting: number; active: number; delayed: number; failed: number };
 export type Health = {
-  status: 'ok' | 'degraded' | 'down';
+  status: HealthStatus;
   mode: 'embedded' | 'queue';
   database: Probe;
   redis: Probe | 'not used';
@@ -121,13 +122,12 @@ export async function checkHealth(): Promise<Health> {
     timed(pingDatabase),
     queueMode ? queueHealth() : Promise.resolve(embeddedHealth()),
   ]);
-  const redisDown = rest.redis !== 'not used' && !rest.redis.ok;
-  const status =
-    !database.ok || redisDown
-      ? 'down'
-      : queueMode && (rest.queue === null || !rest.workers)
-        ? 'degraded'
-        : 'ok';
+  const status = healthStatus({
+    databaseOk: database.ok,
+    redisOk: rest.redis === 'not used' ? null : rest.redis.ok,
+    queueRead: rest.queue !== null,
+    workers: rest.workers,
+  });
   return { status, mode: queueMode ? 'queue' : 'embedded', database, ...rest };
 }
 

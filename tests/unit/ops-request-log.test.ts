@@ -36,8 +36,8 @@ describe('the request id', () => {
 });
 
 describe('the route wrapper', () => {
-  const ok = handle(async () => Response.json({ fine: true }));
-  const missing = handle(async () => {
+  const ok = handle(async (_request: Request) => Response.json({ fine: true }));
+  const missing = handle(async (_request: Request) => {
     throw notFound('Project');
   });
 
@@ -56,7 +56,7 @@ describe('the route wrapper', () => {
   });
 
   it('gives a request without a sane id a new one, and hides an unexpected error behind a 500', async () => {
-    const broken = handle(async () => {
+    const broken = handle(async (_request: Request) => {
       throw new Error("boom near 'secret'");
     });
     const res = await broken(
