@@ -43,5 +43,5 @@ export function describeError(error: unknown, depth = 0, withStack = false): Log
 
 /** Logs an error nobody expected, with its stack, on the given (request's, run's…) logger. */
 export function logUnexpected(logger: Logger, what: string, error: unknown, fields: object = {}): void {
-  logger.error({ ...fields, err: describeError(error, 0, true) }, what);
+  logger.error({ ...fields, error: describeError(error, 0, true) }, what);
 }

@@ -2,6 +2,7 @@ import { NextResponse } from 'next/server';
 import type { Logger } from 'pino';
 import { AppError, badRequest, forbidden, isAppError } from '@/lib/errors';
 import { requestLogger } from '@/lib/log/logger';
+import { withLogContext } from '@/lib/log/context';
 import { REQUEST_ID_HEADER, requestIdFrom } from '@/lib/log/request-id';
 import { logUnexpected } from './log-error';
 import { loggablePath } from './loggable-path';
@@ -54,7 +55,8 @@ export function handle<Args extends unknown[]>(
     let response: Response;
     try {
       assertSameOrigin(request);
-      response = await fn(...args);
+      // Every line logged while the handler runs, however deep, carries the request's id.
+      response = await withLogContext({ requestId }, () => fn(...args));
     } catch (error) {
       response = errorResponse(error, logger);
     }

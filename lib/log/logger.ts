@@ -6,6 +6,7 @@ import 'server-only';
  */
 import pino, { type Logger } from 'pino';
 import { z } from 'zod';
+import { currentLogContext } from './context';
 
 const LEVELS = ['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent'] as const;
 const levelSchema = z.enum(LEVELS);
@@ -18,13 +19,21 @@ export function logLevel(value: string | undefined): (typeof LEVELS)[number] {
   return parsed.success ? parsed.data : 'info';
 }
 
-function createLogger(): Logger {
-  const logger = pino({
+/** The logger's settings; `destination` (default stdout) for tests. */
+export function createLogger(destination?: pino.DestinationStream): Logger {
+  const options: pino.LoggerOptions = {
     level: logLevel(process.env.LOG_LEVEL),
     base: { pid: process.pid, service: process.env.OUTTURN_SERVICE ?? 'outturn' },
     timestamp: pino.stdTimeFunctions.isoTime,
     // "level":"info" rather than pino's number: readable without a lookup table.
     formatters: { level: (label) => ({ level: label }) },
+    // The request's fields (lib/log/context.ts), unless the logger is a child already bound to them.
+    mixin: (_object, _level, instance) => {
+      const context = currentLogContext();
+      if (!context) return {};
+      const bound = instance.bindings();
+      return Object.fromEntries(Object.entries(context).filter(([key]) => !(key in bound)));
+    },
     // A context object that carries one of these by mistake never prints it.
     redact: {
       paths: [
@@ -39,7 +48,8 @@ function createLogger(): Logger {
       ],
       censor: '[hidden]',
     },
-  });
+  };
+  const logger = destination ? pino(options, destination) : pino(options);
   const raw = process.env.LOG_LEVEL?.trim();
   if (raw && logLevel(raw) !== raw.toLowerCase()) {
     logger.warn({ LOG_LEVEL: raw }, `LOG_LEVEL ${raw} is not one of ${LEVELS.join(', ')}: logging at info.`);

@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Queue, Worker } from 'bullmq';
 import { Redis } from 'ioredis';
 import { APP_URL, uniqueEmail } from './helpers/http';
+import { closeDb, count } from './helpers/db';
 import { sparePort, startAppInstance, waitForLine, type AppInstance } from './helpers/app-instance';
 import { RUN_QUEUE } from '@/lib/queue/redis';
 
@@ -76,6 +77,7 @@ describe('a second web instance in queue mode (REDIS_URL = the test run’s Redi
     const keys = await redis.keys(`${prefix}:*`);
     if (keys.length) await redis.del(...keys);
     redis?.disconnect();
+    await closeDb();
   });
 
   it('reports the run queue’s counts, and degraded while no worker is connected', async () => {
@@ -142,15 +144,43 @@ describe('a second web instance in queue mode (REDIS_URL = the test run’s Redi
     expect(await redis.get(`${prefix}:limits:reset-ip:10.77.0.1`)).toBe('1');
   });
 
-  it('stops on SIGTERM within a few seconds, closing its work and connections, with exit code 0', async () => {
-    const { code, ms } = await app.stop('SIGTERM');
+  it('on SIGTERM answers the request in flight, then closes its work and connections and exits 0', async () => {
+    // A sign-up whose body is still arriving when the signal comes: the request is in flight,
+    // and the handler needs the database after the signal, so the pool must still be open.
+    const email = uniqueEmail('ops-shutdown');
+    const encoder = new TextEncoder();
+    let sendRest!: () => void;
+    const body = new ReadableStream<Uint8Array>({
+      start(controller) {
+        controller.enqueue(encoder.encode(`{"name":"Late","organizationName":"Late Ltd",`));
+        sendRest = () => {
+          controller.enqueue(encoder.encode(`"email":"${email}","password":"correct horse battery"}`));
+          controller.close();
+        };
+      },
+    });
+    const init = { method: 'POST', headers: { 'content-type': 'application/json' }, body, duplex: 'half' };
+    const inFlight = fetch(`${app.url}/api/sign-up`, init as RequestInit);
+    await sleep(500);
+    const stopped = app.stop('SIGTERM');
+    await waitForLine(app, (l) => l.msg === 'shutting down: no new work, finishing what is in hand');
+    await sleep(300);
+    sendRest();
+    const reply = await inFlight;
+    expect(reply.status).toBe(202);
+    expect(await count('Users', 'email = ?', [email])).toBe(1);
+
+    const { code, ms } = await stopped;
     expect(code).toBe(0);
     expect(ms).toBeLessThan(10_000);
-    const steps = app
-      .lines()
-      .filter((l) => l.msg === 'shutdown step done')
-      .map((l) => l.step);
+    const lines = app.lines();
+    const steps = lines.filter((l) => l.msg === 'shutdown step done').map((l) => l.step);
     expect(steps).toEqual(['mail sender', 'run sweeper', 'redis', 'database']);
-    expect(app.lines().some((l) => l.msg === 'shut down' && l.code === 0)).toBe(true);
+    // The database closed only after the request in flight was answered.
+    const answered = lines.findIndex((l) => l.msg === 'request' && l.path === '/api/sign-up');
+    const closed = lines.findIndex((l) => l.msg === 'shutdown step done' && l.step === 'database');
+    expect(answered).toBeGreaterThanOrEqual(0);
+    expect(answered).toBeLessThan(closed);
+    expect(lines.some((l) => l.msg === 'shut down' && l.code === 0)).toBe(true);
   });
 });

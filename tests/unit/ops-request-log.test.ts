@@ -2,7 +2,8 @@
 // and the log level read from the environment.
 import { describe, expect, it } from 'vitest';
 import { isSaneRequestId, requestIdFrom, REQUEST_ID_HEADER } from '@/lib/log/request-id';
-import { logLevel } from '@/lib/log/logger';
+import { createLogger, logLevel } from '@/lib/log/logger';
+import { withLogContext } from '@/lib/log/context';
 import { loggablePath } from '@/lib/http/loggable-path';
 import { describeError } from '@/lib/http/log-error';
 import { handle } from '@/lib/http/route';
@@ -106,5 +107,45 @@ describe('LOG_LEVEL', () => {
     expect(logLevel(' warn ')).toBe('warn');
     expect(logLevel('silent')).toBe('silent');
     expect(logLevel('verbose')).toBe('info');
+  });
+});
+
+describe('the log lines', () => {
+  /** A logger writing into an array, one raw JSON line per entry. */
+  function capture() {
+    const lines: string[] = [];
+    const logger = createLogger({ write: (line: string) => void lines.push(line) });
+    return { logger, lines, parsed: () => lines.map((l) => JSON.parse(l) as Record<string, unknown>) };
+  }
+
+  it('are one JSON object per line, with the level’s name, an ISO time and the message', () => {
+    const { logger, lines, parsed } = capture();
+    logger.info({ runId: 7 }, 'run started');
+    expect(lines).toHaveLength(1);
+    expect(lines[0].endsWith('\n')).toBe(true);
+    expect(parsed()[0]).toMatchObject({ level: 'info', runId: 7, msg: 'run started', service: 'outturn' });
+    expect(new Date(String(parsed()[0].time)).toISOString()).toBe(parsed()[0].time);
+  });
+
+  it('carry the request’s id from anywhere inside the request, once even through a bound child', async () => {
+    const { logger, lines, parsed } = capture();
+    await withLogContext({ requestId: 'req-1' }, async () => {
+      await Promise.resolve();
+      logger.warn('deep in a service');
+      logger.child({ requestId: 'req-1', component: 'mail' }).info('bound child');
+    });
+    logger.info('outside any request');
+    expect(parsed().map((l) => l.requestId)).toEqual(['req-1', 'req-1', undefined]);
+    expect(lines[1].match(/"requestId"/g)).toHaveLength(1);
+  });
+
+  it('never print a password, token, cookie or authorization value given by mistake', () => {
+    const { logger, lines } = capture();
+    logger.info(
+      { password: 'hunter2', user: { token: 'abc123def', cookie: 'sid=1' }, authorization: 'Bearer x' },
+      'oops',
+    );
+    expect(lines[0]).not.toMatch(/hunter2|abc123def|sid=1|Bearer x/);
+    expect(lines[0]).toContain('[hidden]');
   });
 });
