@@ -79,3 +79,8 @@ export async function abortActive(runId: number, waitMs = 10_000): Promise<boole
 export function isActive(runId: number): boolean {
   return state.active.has(runId);
 }
+
+/** How many runs wait and how many execute in this process (read-only, for the health check). */
+export function queueCounts(): { waiting: number; active: number } {
+  return { waiting: state.waiting.length, active: state.active.size };
+}
