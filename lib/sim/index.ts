@@ -33,7 +33,10 @@ export { ENGINE_VERSION } from './core/version';
 export { prepareRun, resolveRun, type PreparedRun } from './core/engine';
 export {
   boundedChunks,
+  chunkIterations,
   firstPassPart,
+  FirstPassFold,
+  SecondPassFold,
   secondPassRequest,
   secondPassPart,
   finishBounded,

@@ -8,6 +8,14 @@ export interface RunOptions extends SimulationOptions {
   threads?: number;
   onProgress?: (progress: { done: number; total: number }) => void;
   signal?: AbortSignal;
+  /**
+   * Run in bounded memory (../core/bounded): two passes over the blocks, memory independent of
+   * the iterations. Default: for runs of more than BOUNDED_FROM iterations without a precision
+   * goal (a precision goal's rounds need every iteration's totals, and its cap keeps them small).
+   */
+  bounded?: boolean;
+  /** Blocks per chunk of a bounded run; the default (CHUNK_BLOCKS) but in tests. */
+  chunkBlocks?: number;
   /** Path of the bundled worker; default `.build/sim-worker.mjs` under the working directory. */
   workerFile?: string;
 }

@@ -22,6 +22,12 @@ export function chunkBlocksOf(c: number, iterations: number, chunkBlocks: number
   return out;
 }
 
+/** Iterations in chunk c of a run of `iterations`. */
+export function chunkIterations(c: number, iterations: number, chunkBlocks = CHUNK_BLOCKS): number {
+  const size = chunkBlocks * BLOCK_SIZE;
+  return Math.max(0, Math.min(size, iterations - c * size));
+}
+
 export function checkChunkRange(iterations: number, chunkBlocks: number, from: number, to: number): void {
   const chunks = boundedChunks(iterations, chunkBlocks);
   if (!(Number.isInteger(from) && Number.isInteger(to) && from >= 0 && from < to && to <= chunks))

@@ -22,7 +22,7 @@ import { finishBounded } from './finish';
 import { secondPassRequest } from './request';
 import { secondPassPart } from './second-pass';
 
-export { boundedChunks, CHUNK_BLOCKS } from './chunks';
+export { boundedChunks, chunkIterations, CHUNK_BLOCKS } from './chunks';
 export { firstPassPart, FirstPassFold } from './first-pass';
 export { secondPassRequest } from './request';
 export { secondPassPart, SecondPassFold } from './second-pass';
