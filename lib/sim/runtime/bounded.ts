@@ -48,7 +48,7 @@ export async function runBounded(
   let done = 0;
   const progress = (k: number) => {
     done += k;
-    onProgress?.({ done, total });
+    onProgress?.({ done, total, iterations: Math.min(done, n) });
   };
 
   let first: FirstPassPart[];
