@@ -6,16 +6,19 @@
  *  - keeps the values that fall in the requested buckets (the order statistics' exact values);
  *  - adds Σ(x − mean)² (the standard deviation, two passes as in ../stats/summary);
  *  - adds each tornado row's Σ k·R, R the mid-rank of the total's bucket in the merged histogram;
- *  - sums each input's cost over the iterations inside the allocation window's inner buckets
- *    (recomputed for those iterations, as ../stats/allocation does), and keeps them per iteration
- *    for the two end buckets, whose exact ends are known only at the finish;
+ *  - sums each input's cost over the iterations inside the allocation window's inner buckets,
+ *    and keeps them per iteration for the two end buckets, whose exact ends are known only at the
+ *    finish: read from the block's allocation band (../stats/allocation-band) when it holds them
+ *    all, else recomputed for those iterations from the run key (../stats/allocation); which way
+ *    depends only on the block and the request;
  *  - counts the iterations surely within both joint P-values, keeps the (cost, duration) pairs
  *    on a boundary bucket, and bins the cost of each iteration by frontier duration.
  */
 
-import { blockLength, simulateBlock } from '../block';
+import { BLOCK_SIZE, blockLength, simulateBlock } from '../block';
 import type { PreparedRun } from '../engine';
-import { tappedAllocationSums } from '../stats/allocation';
+import { allocationLevel, allocationSlots, tappedAllocationSums } from '../stats/allocation';
+import { type AllocationBand, bandCapacity, type BandRoom } from '../stats/allocation-band';
 import { allocateBlockBuffers, type BlockBuffers, checkChunkRange, chunkBlocksOf, sinkOf } from './chunks';
 import { perTotal, totalsOf } from './first-pass';
 import { Histogram } from './histogram';
@@ -24,6 +27,9 @@ import type { PerTotal, SecondPassChunk, SecondPassPart, SecondPassRequest, Tota
 
 export class SecondPassFold {
   private readonly buffers: BlockBuffers;
+  /** Room for a block's allocation band (../stats/allocation-band), reused block after block. */
+  private readonly room: BandRoom;
+  private readonly slots: number;
   private readonly names: TotalName[];
   private readonly keep: Map<TotalName, Set<number>>;
   private readonly kept: Map<TotalName, Map<number, number>>;
@@ -47,6 +53,9 @@ export class SecondPassFold {
       );
     checkChunkRange(request.iterations, request.chunkBlocks, fromChunk, toChunk);
     this.buffers = allocateBlockBuffers(run.plan);
+    this.slots = allocationSlots(run.plan);
+    const capacity = bandCapacity(BLOCK_SIZE);
+    this.room = { index: new Int32Array(capacity), costs: new Float64Array(capacity * this.slots) };
     this.names = totalsOf(run);
     this.keep = new Map(this.names.map((t) => [t, new Set(request.keep[t] ?? [])]));
     this.kept = new Map(this.names.map((t) => [t, new Map()]));
@@ -90,12 +99,15 @@ export class SecondPassFold {
     }
     const n = blockLength(b, settings.iterations);
     const sink = sinkOf(this.buffers, plan.sensitivity.length, n);
-    simulateBlock(plan, key, settings.sampling, b, n, sink);
+    const { band } = simulateBlock(plan, key, settings.sampling, b, n, {
+      ...sink,
+      band: { level: allocationLevel(plan), room: this.room },
+    });
     const values = sink as unknown as Record<TotalName, Float64Array>;
     this.keepValues(values, n);
     this.addSquares(chunk, values, n);
     this.addCross(chunk, sink.grades, values, n);
-    this.addAllocation(chunk, b, n, values.cost);
+    this.addAllocation(chunk, b, n, values.cost, band);
     if (this.joint) this.addJoint(values.cost, values.duration, n);
     return n;
   }
@@ -149,8 +161,13 @@ export class SecondPassFold {
     }
   }
 
-  private addAllocation(chunk: SecondPassChunk, b: number, n: number, cost: Float64Array): void {
-    const { plan, key, settings } = this.run;
+  private addAllocation(
+    chunk: SecondPassChunk,
+    b: number,
+    n: number,
+    cost: Float64Array,
+    band?: AllocationBand,
+  ): void {
     const { loKey, hiKey } = this.request.window;
     const inner: number[] = [];
     const edges: number[] = [];
@@ -159,14 +176,61 @@ export class SecondPassFold {
       if (k > loKey && k < hiKey) inner.push(i);
       else if (k === loKey || k === hiKey) edges.push(i);
     }
-    const sums = tappedAllocationSums(plan, key, settings.sampling, b, n, inner);
+    const inBand = (i: number) => band !== undefined && cost[i] >= band.lo && cost[i] <= band.hi;
+    const sums =
+      inner.every(inBand) && edges.every(inBand)
+        ? this.fromBand(band!, inner, edges, chunk)
+        : this.fromTaps(b, n, inner, edges, cost, chunk);
     if (chunk.allocation.length === 0) chunk.allocation = Array.from(sums);
     else for (let s = 0; s < sums.length; s++) chunk.allocation[s] += sums[s];
+  }
+
+  /** The window's iterations read from the block's band (every one of them is in it). */
+  private fromBand(
+    band: AllocationBand,
+    inner: number[],
+    edges: number[],
+    chunk: SecondPassChunk,
+  ): Float64Array {
+    const { index, costs } = this.room;
+    const { m } = band;
+    const slots = this.slots;
+    const at = new Map<number, number>();
+    for (let j = 0; j < m; j++) at.set(index[j], j);
+    const sums = new Float64Array(slots + 1);
+    const js = inner.map((i) => at.get(i)!);
+    for (let s = 0; s < slots; s++) {
+      let acc = 0;
+      for (const j of js) acc += costs[s * m + j];
+      sums[s] = acc;
+    }
+    sums[slots] = inner.length;
+    for (const i of edges) {
+      const j = at.get(i)!;
+      const one = new Array<number>(slots + 1);
+      for (let s = 0; s < slots; s++) one[s] = costs[s * m + j];
+      one[slots] = 1;
+      chunk.edges.push({ cost: this.buffers.cost[i], sums: one });
+    }
+    return sums;
+  }
+
+  /** The window's iterations recomputed from the run key (../stats/allocation). */
+  private fromTaps(
+    b: number,
+    n: number,
+    inner: number[],
+    edges: number[],
+    cost: Float64Array,
+    chunk: SecondPassChunk,
+  ): Float64Array {
+    const { plan, key, settings } = this.run;
     for (const i of edges)
       chunk.edges.push({
         cost: cost[i],
         sums: Array.from(tappedAllocationSums(plan, key, settings.sampling, b, n, [i])),
       });
+    return tappedAllocationSums(plan, key, settings.sampling, b, n, inner);
   }
 
   private addJoint(cost: Float64Array, duration: Float64Array, n: number): void {
