@@ -40,6 +40,8 @@ export {
   secondPassRequest,
   secondPassPart,
   finishBounded,
+  combineFirstParts,
+  FirstPartsGathering,
   simulateBounded,
   BOUNDED_FROM,
   CHUNK_BLOCKS,

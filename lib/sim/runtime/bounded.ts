@@ -9,6 +9,7 @@ import {
   boundedChunks,
   chunkIterations,
   finishBounded,
+  FirstPartsGathering,
   FirstPassFold,
   SecondPassFold,
   secondPassRequest,
@@ -84,18 +85,22 @@ export async function runBounded(
       throw e;
     }
   };
-  first = await guard(
+  // Parts arrive per chunk; adjacent ones are combined at once, so the chunks' histograms do not
+  // pile up here.
+  const gathering = new FirstPartsGathering();
+  await guard(
     Promise.all(
       all.map((c) =>
         pool
           .run<FirstPassPart>({ kind: 'bounded-first', iterations: n, chunk: c, chunkBlocks, tables }, signal)
           .then((part) => {
+            gathering.add(part);
             progress(chunkIterations(c, n, chunkBlocks));
-            return part;
           }),
       ),
     ),
   );
+  first = gathering.parts();
   throwIfAborted();
   const request = secondPassRequest(run, first);
   second = await guard(

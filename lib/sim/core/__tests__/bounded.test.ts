@@ -4,6 +4,8 @@
 import { describe, expect, it } from 'vitest';
 import {
   boundedChunks,
+  combineFirstParts,
+  FirstPartsGathering,
   finishBounded,
   firstPassPart,
   secondPassPart,
@@ -186,6 +188,16 @@ describe('bounded run', () => {
     const second = secondPassPart(run, request, 0, 3);
     expect(roundTrip(second)).toEqual(second);
     expect(JSON.stringify(second).length).toBeLessThan(200_000);
+  });
+
+  it('combines adjacent first parts, gathered in any order, into the one-part first pass', () => {
+    // Plumbing: histograms and counts merge exactly, chunks stay in order.
+    const gathering = new FirstPartsGathering();
+    for (const c of [2, 0, 1]) gathering.add(firstPassPart(run, c, c + 1, CHUNK));
+    expect(gathering.parts()).toEqual([firstPassPart(run, 0, 3, CHUNK)]);
+    expect(() => combineFirstParts(firstPassPart(run, 0, 1, CHUNK), firstPassPart(run, 2, 3, CHUNK))).toThrow(
+      /not adjacent/,
+    );
   });
 
   it('refuses parts that do not cover the run once', () => {

@@ -8,6 +8,7 @@
  *   secondPassRequest(run, firstParts)                        → SecondPassRequest
  *   secondPassPart(run, request, fromChunk, toChunk)          → SecondPassPart
  *   finishBounded(run, firstParts, request, secondParts, info) → SimulationResult
+ *   combineFirstParts(a, b)                                   → FirstPassPart over both (adjacent)
  *   simulateBounded(model, options)                           → SimulationResult (all in this thread)
  *
  * `run` is prepareRun(model, { iterations, seed, sampling }) (../engine).
@@ -27,6 +28,7 @@ export { firstPassPart, FirstPassFold } from './first-pass';
 export { secondPassRequest } from './request';
 export { secondPassPart, SecondPassFold } from './second-pass';
 export { finishBounded } from './finish';
+export { combineFirstParts, FirstPartsGathering } from './merge';
 export type * from './parts';
 export type { HistogramJson } from './histogram';
 

@@ -105,3 +105,64 @@ export function wantedRanks(plan: Plan, n: number, total: TotalName): number[] {
   if (total === 'cost') out.push(...windowRanks(plan, n));
   return out;
 }
+
+/**
+ * Two first parts over adjacent chunk ranges as one part over both (a ends where b starts): the
+ * chunks side by side, histograms and counts merged. Exact, so a run's result does not change;
+ * lets a coordinator hold one growing part instead of every chunk's histograms.
+ */
+export function combineFirstParts(a: FirstPassPart, b: FirstPassPart): FirstPassPart {
+  if (a.toChunk !== b.fromChunk || a.iterations !== b.iterations || a.chunkBlocks !== b.chunkBlocks)
+    throw new RangeError(
+      `first pass: parts [${a.fromChunk}, ${a.toChunk}) and [${b.fromChunk}, ${b.toChunk}) are not adjacent parts of one run`,
+    );
+  const per = <T>(make: (t: TotalName) => T): PerTotal<T> =>
+    Object.fromEntries(TOTAL_NAMES.map((t) => [t, a.fine[t] ? make(t) : null])) as PerTotal<T>;
+  return {
+    format: 'outturn-bounded-first',
+    iterations: a.iterations,
+    chunkBlocks: a.chunkBlocks,
+    fromChunk: a.fromChunk,
+    toChunk: b.toChunk,
+    chunks: [...a.chunks, ...b.chunks],
+    fine: per((t) => mergeHistograms([a.fine[t], b.fine[t]])!),
+    min: per((t) => Math.min(a.min[t]!, b.min[t]!)),
+    max: per((t) => Math.max(a.max[t]!, b.max[t]!)),
+    withinTarget: {
+      cost: a.withinTarget.cost + b.withinTarget.cost,
+      duration: a.withinTarget.duration + b.withinTarget.duration,
+      both: a.withinTarget.both + b.withinTarget.both,
+    },
+  };
+}
+
+/** Parts gathered as they arrive, in any order, adjacent ones combined (combineFirstParts). */
+export class FirstPartsGathering {
+  private readonly byStart = new Map<number, FirstPassPart>();
+  private readonly byEnd = new Map<number, FirstPassPart>();
+
+  add(part: FirstPassPart): void {
+    let p = part;
+    const left = this.byEnd.get(p.fromChunk);
+    if (left) {
+      this.remove(left);
+      p = combineFirstParts(left, p);
+    }
+    const right = this.byStart.get(p.toChunk);
+    if (right) {
+      this.remove(right);
+      p = combineFirstParts(p, right);
+    }
+    this.byStart.set(p.fromChunk, p);
+    this.byEnd.set(p.toChunk, p);
+  }
+
+  parts(): FirstPassPart[] {
+    return [...this.byStart.values()].sort((a, b) => a.fromChunk - b.fromChunk);
+  }
+
+  private remove(p: FirstPassPart): void {
+    this.byStart.delete(p.fromChunk);
+    this.byEnd.delete(p.toChunk);
+  }
+}
