@@ -12,6 +12,7 @@ import {
   secondPassRequest,
   simulateBounded,
 } from '../bounded';
+import { assertFinite } from '../bounded/finite';
 import { prepareRun, simulateSync } from '../engine';
 import { firstIterationBlocks } from '../first-iterations';
 import type { Model, SimulationResult } from '../formats';
@@ -198,6 +199,16 @@ describe('bounded run', () => {
     expect(() => combineFirstParts(firstPassPart(run, 0, 1, CHUNK), firstPassPart(run, 2, 3, CHUNK))).toThrow(
       /not adjacent/,
     );
+  });
+
+  it('refuses to put a number JSON cannot carry into a part', () => {
+    // JSON turns NaN and ±Infinity into null: such a part would not come back as it went.
+    expect(JSON.parse(JSON.stringify([NaN]))).toEqual([null]);
+    expect(() => assertFinite('chunk 4', 1, [2, NaN])).toThrow(
+      /chunk 4 holds a number that is not finite \(NaN\)/,
+    );
+    expect(() => assertFinite('chunk 4', null, Infinity)).toThrow(/Infinity/);
+    expect(() => assertFinite('chunk 4', 1, [2, 3], null)).not.toThrow();
   });
 
   it('refuses parts that do not cover the run once', () => {

@@ -15,6 +15,7 @@ import {
   CHUNK_BLOCKS,
   sinkOf,
 } from './chunks';
+import { assertFinite } from './finite';
 import { Histogram } from './histogram';
 import { coarseOfFine, fineKey } from './keys';
 import type { FirstPassChunk, FirstPassPart, PerTotal, TotalName } from './parts';
@@ -112,6 +113,18 @@ export class FirstPassFold {
     if (!this.current) return;
     const { chunk, coarse, coarseDuration } = this.current;
     chunk.coarse = { cost: coarse.toJSON(), duration: coarseDuration?.toJSON() ?? null };
+    const { sums } = chunk;
+    assertFinite(
+      `the first pass of chunk ${chunk.chunk}`,
+      sums.cost,
+      sums.duration,
+      sums.altCost,
+      sums.altDuration,
+      chunk.gradeSums,
+      chunk.pairSums,
+      chunk.durationSums,
+      chunk.swingSums,
+    );
     this.chunks.push(chunk);
     this.current = null;
   }

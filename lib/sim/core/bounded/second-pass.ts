@@ -21,6 +21,7 @@ import { allocationLevel, allocationSlots, tappedAllocationSums } from '../stats
 import { type AllocationBand, bandCapacity, type BandRoom } from '../stats/allocation-band';
 import { allocateBlockBuffers, type BlockBuffers, checkChunkRange, chunkBlocksOf, sinkOf } from './chunks';
 import { perTotal, totalsOf } from './first-pass';
+import { assertFinite } from './finite';
 import { Histogram } from './histogram';
 import { coarseOfFine, fineKey } from './keys';
 import type { PerTotal, SecondPassChunk, SecondPassPart, SecondPassRequest, TotalName } from './parts';
@@ -256,6 +257,16 @@ export class SecondPassFold {
   }
 
   finish(): SecondPassPart {
+    for (const c of this.chunks)
+      assertFinite(
+        `the second pass of chunk ${c.chunk}`,
+        c.squares.cost,
+        c.squares.duration,
+        c.cross,
+        c.allocation,
+        ...c.edges.map((e) => e.sums),
+        ...c.edges.map((e) => e.cost),
+      );
     const kept = perTotal(this.run, (t) => {
       const m = this.kept.get(t)!;
       const values = [...m.keys()].sort((a, b) => a - b);
