@@ -17,17 +17,18 @@
 
 import type { BlockSummary } from '../block';
 import type { PreparedRun } from '../engine';
-import type { Interval, PercentileKey, ScenarioSummary, SimulationResult, TotalSummary } from '../formats';
+import type { PercentileKey, ScenarioSummary, SimulationResult } from '../formats';
 import { achievedCorrelations, resultWarnings, type RunInfo, sensitivityOf } from '../rollup';
 import { allocationOf } from '../stats/allocation';
-import { CHECKPOINTS } from '../stats/convergence';
-import { percentileRank, quantileIntervalRanks } from '../stats/order-statistics';
-import { contingencyOf, PERCENTILES } from '../stats/percentiles';
+import { percentileRank } from '../stats/order-statistics';
+import { PERCENTILES } from '../stats/percentiles';
 import { rankCorrelationsFromSums, type RankSums } from '../stats/sensitivity';
 import { wilsonInterval } from '../stats/wilson';
 import { type Cumulative, Histogram } from './histogram';
-import { bucketMiddle, COARSE_SHIFT, fineKey } from './keys';
-import { JOINT_LEVELS, mergeFirstParts, type MergedFirst, orderedChunks, windowRanks } from './merge';
+import { bucketMiddle, COARSE_SHIFT } from './keys';
+import { convergenceOf } from './convergence';
+import { OrderStatistics, totalSummary } from './totals';
+import { JOINT_LEVELS, mergeFirstParts, orderedChunks, windowRanks } from './merge';
 import type {
   FirstPassChunk,
   FirstPassPart,
@@ -36,77 +37,6 @@ import type {
   SecondPassRequest,
   TotalName,
 } from './parts';
-
-/** Exact values of ranks from a merged histogram and the values kept in its buckets. */
-class OrderStatistics {
-  private readonly byKey = new Map<number, { values: number[]; counts: number[] }>();
-
-  constructor(
-    private readonly h: Cumulative,
-    kept: { values: number[]; counts: number[] }[],
-  ) {
-    const merged = new Map<number, number>();
-    for (const k of kept)
-      for (let j = 0; j < k.values.length; j++)
-        merged.set(k.values[j], (merged.get(k.values[j]) ?? 0) + k.counts[j]);
-    for (const v of [...merged.keys()].sort((a, b) => a - b)) {
-      const key = fineKey(v);
-      let bucket = this.byKey.get(key);
-      if (!bucket) this.byKey.set(key, (bucket = { values: [], counts: [] }));
-      bucket.values.push(v);
-      bucket.counts.push(merged.get(v)!);
-    }
-  }
-
-  /** The value of 1-based rank k. */
-  at(k: number): number {
-    const j = this.h.bucketOfRank(k);
-    const bucket = this.byKey.get(this.h.keys[j]);
-    let left = k - this.h.below[j];
-    if (bucket)
-      for (let i = 0; i < bucket.values.length; i++) {
-        left -= bucket.counts[i];
-        if (left <= 0) return bucket.values[i];
-      }
-    throw new Error(`bounded run: rank ${k} lies in a bucket whose values were not kept`);
-  }
-}
-
-function totalSummary(
-  stats: OrderStatistics,
-  n: number,
-  mean: number,
-  squares: number,
-  range: [number, number],
-  base: number,
-  within: number | null,
-): TotalSummary {
-  const percentiles = Object.fromEntries(
-    PERCENTILES.map(([k, p]) => [k, stats.at(percentileRank(n, p))]),
-  ) as Record<PercentileKey, number>;
-  const intervals = Object.fromEntries(
-    PERCENTILES.map(([k, p]) => [k, quantileIntervalRanks(n, p).map((r) => stats.at(r)) as Interval]),
-  ) as Record<PercentileKey, Interval>;
-  const shifted = (k: PercentileKey): Interval => [intervals[k][0] - base, intervals[k][1] - base];
-  return {
-    base,
-    mean,
-    sd: n > 1 ? Math.sqrt(squares / (n - 1)) : 0,
-    min: range[0],
-    max: range[1],
-    percentiles,
-    percentileCI95: intervals,
-    contingency: {
-      P50: contingencyOf({ base, percentiles }, 'P50'),
-      P80: contingencyOf({ base, percentiles }, 'P80'),
-      P90: contingencyOf({ base, percentiles }, 'P90'),
-    },
-    contingencyCI95: { P50: shifted('P50'), P80: shifted('P80'), P90: shifted('P90') },
-    ...(within !== null
-      ? { probabilityWithinTarget: { value: within / n, ci95: wilsonInterval(within, n) } }
-      : {}),
-  };
-}
 
 /** A chunk's sums in the shape of a block's, for the roll-up's reductions. */
 function asBlock(c: FirstPassChunk): BlockSummary {
@@ -130,60 +60,6 @@ function rankSumsOf(h: Cumulative): RankSums {
     srr += h.counts[j] * r * r;
   }
   return { sr, srr };
-}
-
-/** Chunk ends to read the convergence at: every chunk's, or CHECKPOINTS of them spread evenly. */
-function checkpointChunks(chunks: number): number[] {
-  if (chunks <= CHECKPOINTS) return Array.from({ length: chunks }, (_, c) => c);
-  const out: number[] = [];
-  for (let k = 1; k <= CHECKPOINTS; k++) {
-    const c = Math.round((chunks * k) / CHECKPOINTS) - 1;
-    if (c !== out[out.length - 1]) out.push(c);
-  }
-  return out;
-}
-
-function convergenceOf(merged: MergedFirst, which: 'cost' | 'duration', exact: TotalSummary) {
-  const series = {
-    P50: [] as number[],
-    P50ci95: [] as Interval[],
-    P80: [] as number[],
-    P80ci95: [] as Interval[],
-  };
-  const iterations: number[] = [];
-  const running = new Histogram();
-  let m = 0;
-  let c = 0;
-  for (const at of checkpointChunks(merged.chunks.length)) {
-    for (; c <= at; c++) {
-      running.merge(merged.chunks[c].coarse[which]!);
-      m += merged.chunks[c].n;
-    }
-    iterations.push(m);
-    // The last checkpoint is the whole run, whose P-values are known exactly.
-    const h = m === merged.n ? null : running.toJSON();
-    for (const [p, est, ci, name] of [
-      [0.5, series.P50, series.P50ci95, 'P50'],
-      [0.8, series.P80, series.P80ci95, 'P80'],
-    ] as const) {
-      if (!h) {
-        est.push(exact.percentiles[name]);
-        ci.push(exact.percentileCI95[name]);
-        continue;
-      }
-      const value = (rank: number) => {
-        let left = rank;
-        for (let j = 0; j < h.keys.length; j++) {
-          left -= h.counts[j];
-          if (left <= 0) return bucketMiddle(h.keys[j], COARSE_SHIFT);
-        }
-        return bucketMiddle(h.keys[h.keys.length - 1], COARSE_SHIFT);
-      };
-      est.push(value(percentileRank(m, p)));
-      ci.push(quantileIntervalRanks(m, p).map(value) as Interval);
-    }
-  }
-  return { iterations, series };
 }
 
 export function finishBounded(
