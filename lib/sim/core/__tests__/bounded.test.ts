@@ -218,6 +218,21 @@ describe('bounded run', () => {
     expect(() => firstPassPart(run, 2, 4, CHUNK)).toThrow(/not a range/);
   });
 
+  it('runs a cost-only model under Monte Carlo sampling to the in-memory P-values', () => {
+    // Plumbing: no schedule, no second scenario, no targets; the same iterations either way.
+    const costOnly: Model = { format: 'outturn-model', version: 2, items: model.items.slice(0, 3) };
+    const o = { iterations: 7_001, seed: 3, sampling: 'mc' as const };
+    const b = simulateBounded(costOnly, o, 1);
+    const m = simulateSync(costOnly, o);
+    expect(b.cost.percentiles).toEqual(m.cost.percentiles);
+    expect(b.cost.percentileCI95).toEqual(m.cost.percentileCI95);
+    expect(b.duration).toBeUndefined();
+    expect(b.joint).toBeUndefined();
+    expect(b.mitigation).toBeUndefined();
+    expect(b.allocation!.iterations).toBe(m.allocation!.iterations);
+    expect(b.convergence.iterations).toEqual([2000, 4000, 6000, 7001]);
+  });
+
   it('runs in one call as simulateBounded', () => {
     expect(simulateBounded(model, options, CHUNK).cost.percentiles).toEqual(bounded.cost.percentiles);
   });
