@@ -46,24 +46,25 @@ export function summarize(result: SimulationResult, currency: string | null): Ru
 function progressWriter(runId: number, cap: number | null) {
   let last = 0;
   let pending: Promise<unknown> = Promise.resolve();
-  let latest: { done: number; total: number } | null = null;
+  let latest: { done: number; total: number; iterations?: number } | null = null;
   let writing = false;
   const write = () => {
     if (!latest || writing) return;
-    const { done, total } = latest;
+    const { done, total, iterations } = latest;
     latest = null;
     writing = true;
     last = Date.now();
     pending = SimulationRun.update(
       // With a precision goal the rounds grow as needed, so progress is measured against the cap.
-      { progress: Math.min(1, done / (cap ?? total)), iterationsDone: done },
+      // A bounded run's work is two passes over its iterations: `iterations` counts them once.
+      { progress: Math.min(1, done / (cap ?? total)), iterationsDone: iterations ?? done },
       { where: { id: runId, status: 'running' } },
     )
       .catch((e) => console.error(`run ${runId}: progress not written`, e))
       .finally(() => (writing = false));
   };
   return {
-    report(p: { done: number; total: number }) {
+    report(p: { done: number; total: number; iterations?: number }) {
       noteProgress(runId, p.done);
       latest = p;
       if (Date.now() - last >= PROGRESS_INTERVAL_MS) write();
