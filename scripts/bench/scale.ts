@@ -428,7 +428,7 @@ async function main() {
   const queueParts = ['b', 'c'].filter((p) => PARTS.has(p));
   if (queueParts.length && !hasWorker) {
     console.log(
-      `\n${queueParts.join(' and ')}) skipped: this checkout has no \`npm run worker\` (queue mode's worker).`,
+      `\n${queueParts.map((p) => `${p})`).join(' and ')} skipped: this checkout has no \`npm run worker\` (queue mode's worker).`,
     );
   } else {
     if (PARTS.has('b')) {
