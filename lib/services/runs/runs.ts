@@ -210,16 +210,17 @@ export async function startRun(
 export async function listRuns(actor: Actor, projectId: number, { limit = 100 } = {}): Promise<RunView[]> {
   assertMay(actor, 'run:read');
   const project = await findProject(actor, projectId);
-  const [runs, positions] = await Promise.all([
-    SimulationRun.findAll({
-      where: { projectId: project.id, organizationId: actor.organizationId },
-      attributes: [...LIST_ATTRIBUTES],
-      include: [withStarter],
-      order: [['id', 'DESC']],
-      limit,
-    }),
-    queuePositions(actor.organizationId),
-  ]);
+  const runs = await SimulationRun.findAll({
+    where: { projectId: project.id, organizationId: actor.organizationId },
+    attributes: [...LIST_ATTRIBUTES],
+    include: [withStarter],
+    order: [['id', 'DESC']],
+    limit,
+  });
+  // Places in the queue only matter to queued runs: most lists have none, and skip the read.
+  const positions = runs.some((r) => r.status === 'queued')
+    ? await queuePositions(actor.organizationId)
+    : new Map<number, number>();
   return runs.map((r) => toRunView(r, positions.get(r.id) ?? null));
 }
 
