@@ -54,7 +54,7 @@ export async function baseEstimatesOf(
     }) as unknown as Promise<ItemColumns[]>,
     Activity.findAll({
       where,
-      attributes: ['id', 'projectId', 'code', 'duration', 'predecessors'],
+      attributes: ['id', 'projectId', 'code', 'duration', 'predecessors', 'existence'],
       order,
       raw: true,
     }) as unknown as Promise<ActivityColumns[]>,
@@ -68,7 +68,10 @@ export async function baseEstimatesOf(
     out.set(projectId, {
       baseEstimate: baseEstimate(
         lines.map((l) => itemBaseCells(l, codeById)),
-        acts.map((a) => activityBaseCells(a) as Pick<ActivityRow, 'code' | 'distType' | 'predecessors'>),
+        acts.map((a) => ({
+          ...(activityBaseCells(a) as Pick<ActivityRow, 'code' | 'distType' | 'predecessors'>),
+          existence: a.existence,
+        })),
       ),
       lineCount: lines.length,
     });

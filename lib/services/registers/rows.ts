@@ -217,7 +217,7 @@ export function riskAttributes(d: RiskData) {
 }
 
 /** The columns of an activity that the project's base durations depend on. */
-export type ActivityBaseColumns = Pick<Activity, 'code' | 'duration' | 'predecessors'>;
+export type ActivityBaseColumns = Pick<Activity, 'code' | 'duration' | 'predecessors' | 'existence'>;
 
 /** The cells of an activity's row that base durations are read from (the projects list reads only these). */
 export function activityBaseCells(r: ActivityBaseColumns) {
