@@ -7,7 +7,7 @@ import 'server-only';
  */
 
 import { availableParallelism } from 'node:os';
-import { Op, type InferAttributes } from 'sequelize';
+import type { InferAttributes } from 'sequelize';
 import { SimulationCancelledError, type SimulationResult } from '@/lib/sim';
 import { runSimulation } from '@/lib/sim/runtime';
 import { Project, SimulationRun, User, sequelize } from '@/models';
