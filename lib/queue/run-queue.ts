@@ -26,8 +26,8 @@ export const RUN_JOB_ATTEMPTS = 2;
 /** The channel on which a web instance tells every worker that a run was cancelled. */
 export const cancelChannel = () => `${queuePrefix()}:run-cancelled`;
 
-const holder = globalThis as unknown as { outturnRunQueue?: Map<string, Queue> };
-const queues: Map<string, Queue> = (holder.outturnRunQueue ??= new Map());
+const holder = globalThis as unknown as { outturnBullQueues?: Map<string, Queue> };
+const queues: Map<string, Queue> = (holder.outturnBullQueues ??= new Map());
 
 /** The queue of runs under this process's prefix (one shared instance per prefix). */
 export function runQueue(): Queue {
