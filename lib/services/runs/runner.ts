@@ -53,21 +53,22 @@ export function summarize(result: SimulationResult, currency: string | null): Ru
 function progressWriter(runId: number, token: string, cap: number | null, lost: () => void) {
   let last = 0;
   let pending: Promise<unknown> = Promise.resolve();
-  let latest: { done: number; total: number } | null = null;
+  let latest: { done: number; total: number; iterations?: number } | null = null;
   let first: ProgressMarks['first'] | null = null;
   let writing = false;
   const write = () => {
     if (!latest || !first || writing) return;
-    const { done, total } = latest;
+    const { done, total, iterations } = latest;
     latest = null;
     writing = true;
     last = Date.now();
     pending = SimulationRun.update(
       {
         // With a precision goal the rounds grow as needed, so progress is measured against the cap.
+        // A bounded run's work is two passes over its iterations: `iterations` counts them once.
         progress: Math.min(1, done / (cap ?? total)),
-        iterationsDone: done,
-        progressMarks: { first, latest: { at: last, done } },
+        iterationsDone: iterations ?? done,
+        progressMarks: { first, latest: { at: last, done: iterations ?? done } },
       },
       { where: { id: runId, status: 'running', attemptToken: token } },
     )
@@ -78,8 +79,8 @@ function progressWriter(runId: number, token: string, cap: number | null, lost: 
       .finally(() => (writing = false));
   };
   return {
-    report(p: { done: number; total: number }) {
-      first ??= { at: Date.now(), done: p.done };
+    report(p: { done: number; total: number; iterations?: number }) {
+      first ??= { at: Date.now(), done: p.iterations ?? p.done };
       latest = p;
       if (Date.now() - last >= PROGRESS_INTERVAL_MS) write();
     },

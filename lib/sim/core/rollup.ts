@@ -65,7 +65,11 @@ export function rankTotals(cost: Float64Array, duration: Float64Array | null, sh
   };
 }
 
-function achievedCorrelations(plan: Plan, blocks: BlockSummary[], n: number): AchievedCorrelation[] {
+export function achievedCorrelations(
+  plan: Plan,
+  blocks: Pick<BlockSummary, 'pairSums'>[],
+  n: number,
+): AchievedCorrelation[] {
   return plan.correlations.map((c, k) => {
     if (c.va < 0) return { a: c.a, b: c.b, target: c.target, used: c.used, achieved: null };
     let sa = 0;
@@ -143,22 +147,15 @@ export function rollUp(
   // Tornado: rank correlation, share, swing, and the schedule sensitivity index.
   const cross = second.map((s) => s.cross);
   const rho = rankCorrelations(plan.sensitivity, blocks, cross, totals.costRanks, totals.durationRanks);
-  const swing = swingOf(plan, blocks);
-  const ssi = scheduleSensitivity(plan, blocks, critical, n, durationSummary?.sd ?? 0);
-  const pick = (which: 'cost' | 'duration'): SensitivityEntry[] => {
-    const idx = plan.sensitivity.map((s, i) => (s[which] ? i : -1)).filter((i) => i >= 0);
-    const byId = new Map(idx.map((i) => [plan.sensitivity[i].id, i]));
-    return tornado(
-      idx.map((i) => plan.sensitivity[i].id),
-      idx.map((i) => rho[which][i]),
-    ).map((e) => {
-      const i = byId.get(e.id)!;
-      const input = plan.sensitivity[i];
-      const entry: SensitivityEntry = { ...e, kind: input.kind, swing: swing[which][i] };
-      if (which === 'duration' && input.activity >= 0) entry.ssi = ssi[input.activity];
-      return entry;
-    });
-  };
+  const sensitivity = sensitivityOf(
+    plan,
+    blocks,
+    rho,
+    critical,
+    n,
+    durationSummary?.sd ?? 0,
+    !!totals.durationRanks,
+  );
 
   // Convergence.
   const checkpoints = checkpointsFor(n);
@@ -186,25 +183,66 @@ export function rollUp(
       second.map((s) => s.allocation),
       costSummary,
     ),
-    sensitivity: { cost: pick('cost'), duration: totals.durationRanks ? pick('duration') : [] },
+    sensitivity,
     criticality,
     achievedCorrelations: achievedCorrelations(plan, blocks, n),
-    warnings: [
-      ...plan.warnings,
-      ...(info.warnings ?? []),
-      ...(info.sampling === 'lhs'
-        ? [
-            'Under Latin hypercube sampling the intervals of the P-values (from order statistics) ' +
-              'are conservative: the true precision is at least as good as shown.',
-          ]
-        : []),
-    ],
+    warnings: resultWarnings(plan, info),
     convergence,
   };
 }
 
+/** The plan's warnings, the run's, and the note on intervals under Latin hypercube sampling. */
+export function resultWarnings(plan: Plan, info: Pick<RunInfo, 'sampling' | 'warnings'>): string[] {
+  return [
+    ...plan.warnings,
+    ...(info.warnings ?? []),
+    ...(info.sampling === 'lhs'
+      ? [
+          'Under Latin hypercube sampling the intervals of the P-values (from order statistics) ' +
+            'are conservative: the true precision is at least as good as shown.',
+        ]
+      : []),
+  ];
+}
+
+/**
+ * The tornado's entries from the rank correlations, with each input's swing and, for activities
+ * in the duration tornado, the schedule sensitivity index. `blocks` any consecutive groups of
+ * blocks (chunks) with their sums, in order; `critical` the criticality counts.
+ */
+export function sensitivityOf(
+  plan: Plan,
+  blocks: Pick<BlockSummary, 'swingSums' | 'durationSums'>[],
+  rho: { cost: Float64Array; duration: Float64Array },
+  critical: Float64Array,
+  n: number,
+  durationSd: number,
+  hasDuration: boolean,
+): SimulationResult['sensitivity'] {
+  const swing = swingOf(plan, blocks);
+  const ssi = scheduleSensitivity(plan, blocks, critical, n, durationSd);
+  const pick = (which: 'cost' | 'duration'): SensitivityEntry[] => {
+    const idx = plan.sensitivity.map((s, i) => (s[which] ? i : -1)).filter((i) => i >= 0);
+    const byId = new Map(idx.map((i) => [plan.sensitivity[i].id, i]));
+    return tornado(
+      idx.map((i) => plan.sensitivity[i].id),
+      idx.map((i) => rho[which][i]),
+    ).map((e) => {
+      const i = byId.get(e.id)!;
+      const input = plan.sensitivity[i];
+      const entry: SensitivityEntry = { ...e, kind: input.kind, swing: swing[which][i] };
+      if (which === 'duration' && input.activity >= 0) entry.ssi = ssi[input.activity];
+      return entry;
+    });
+  };
+  return { cost: pick('cost'), duration: hasDuration ? pick('duration') : [] };
+}
+
 /** Mean total where each input's grade is ≤ 0.1 and where it is ≥ 0.9, from the blocks' sums. */
-function swingOf(plan: Plan, blocks: BlockSummary[]): { cost: Interval[]; duration: Interval[] } {
+export function swingOf(
+  plan: Plan,
+  blocks: Pick<BlockSummary, 'swingSums'>[],
+): { cost: Interval[]; duration: Interval[] } {
   const rows = plan.sensitivity.length;
   const sums = new Float64Array(6 * rows);
   for (const b of blocks) for (let k = 0; k < sums.length; k++) sums[k] += b.swingSums[k];
@@ -222,9 +260,9 @@ function swingOf(plan: Plan, blocks: BlockSummary[]): { cost: Interval[]; durati
  * Schedule sensitivity index of each activity: criticality × sd(activity duration) / sd(project
  * duration) (the activity's sampled duration, drivers and risk delays included).
  */
-function scheduleSensitivity(
+export function scheduleSensitivity(
   plan: Plan,
-  blocks: BlockSummary[],
+  blocks: Pick<BlockSummary, 'durationSums'>[],
   critical: Float64Array,
   n: number,
   projectSd: number,

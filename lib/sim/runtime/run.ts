@@ -28,6 +28,8 @@ import { allocateRound, blockSink, type RoundStore } from '../core/run-data';
 import { nextRound } from '../core/round-plan';
 import type { SimulationResult } from '../core/formats';
 import { warmUp } from './warm-up';
+import { BOUNDED_FROM } from '../core/bounded';
+import { runBounded } from './bounded';
 
 const yieldToEventLoop = () => new Promise<void>((resolve) => setImmediate(resolve));
 
@@ -46,6 +48,9 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
   const resolved = resolveRun(modelJson, options);
   const { settings, key, model } = resolved;
   const threads = Math.max(1, Math.floor(options.threads ?? availableParallelism()));
+  const bounded = options.bounded ?? (settings.iterations > BOUNDED_FROM && !settings.precision);
+  if (bounded && settings.precision)
+    throw new RangeError('A run to a precision goal keeps its iterations in memory: it cannot be bounded.');
   // A single block is not worth starting threads for.
   const pooled = threads > 1 && settings.iterations > blockLength(0, settings.iterations);
   const rounds: RoundStore[] = [];
@@ -57,6 +62,7 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
       const file = requireWorkerFile(options.workerFile ?? defaultWorkerFile());
       pool = createTaskPool(file, threads, { model, key: Array.from(key), sampling: settings.sampling });
     }
+    if (bounded) return await runBounded(resolved, options, pool, started);
     // While the workers start and compile their copy: the plan here, and the beta-PERT tables
     // once for all threads.
     const run: PreparedRun = { ...resolved, plan: compileModel(model) };
