@@ -8,11 +8,26 @@ import 'server-only';
 import { Queue } from 'bullmq';
 import { RUN_QUEUE, queuePrefix, redisConnection } from './redis';
 
+/** Where a split run's parent job is: which attempt holds the run, its pass, its parts' chunks. */
+export type SplitState = { token: string; pass: 1 | 2; ranges: [number, number][]; startedAt: number };
+
 /**
- * What a job asks a worker to do. 'run' executes a whole run; further kinds (a part of a run
- * split across workers) join this union, and the worker dispatches on `kind`.
+ * What a job asks a worker to do; the worker dispatches on `kind`. 'run' executes a run (a big
+ * one as the parent of its parts, `split` then saying where it is); 'run-part' computes one pass
+ * of the bounded form over a range of chunks for its parent (lib/queue/split-run.ts).
  */
-export type RunJobData = { kind: 'run'; runId: number; organizationId: number };
+export type RunJobData = { kind: 'run'; runId: number; organizationId: number; split?: SplitState };
+export type RunPartJobData = {
+  kind: 'run-part';
+  runId: number;
+  organizationId: number;
+  /** The attempt of the run the part belongs to: a part of an earlier attempt does nothing. */
+  token: string;
+  pass: 1 | 2;
+  from: number;
+  to: number;
+};
+export type QueueJobData = RunJobData | RunPartJobData;
 
 /** One job per run: adding the same run twice is one job. */
 export const runJobId = (runId: number) => `run-${runId}`;
@@ -65,8 +80,11 @@ export async function isRunJobLive(runId: number): Promise<boolean> {
  */
 export async function cancelRunJob(runId: number): Promise<void> {
   const job = await runQueue().getJob(runJobId(runId));
-  // An active job is locked by its worker and cannot be removed; the message below stops it.
-  await job?.remove().catch(() => undefined);
+  // Only a job that waits is removed: an active one is locked by its worker, and a split run's
+  // parent waiting for its parts ends when they do; the message below stops them all.
+  const state = await job?.getState();
+  if (job && (state === 'waiting' || state === 'delayed' || state === 'prioritized'))
+    await job.remove().catch(() => undefined);
   await redisConnection('queue').publish(cancelChannel(), String(runId));
 }
 

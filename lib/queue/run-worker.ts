@@ -19,8 +19,17 @@ import { SimulationRun, sequelize } from '@/models';
 import { executeRun } from '@/lib/services/runs/runner';
 import { MAX_ATTEMPTS, claimRunForWorker } from '@/lib/services/runs/claim';
 import { notifyFinished } from '@/lib/services/runs/runner';
+import { splitRangesFor } from '@/lib/services/runs/split';
 import { RUN_QUEUE, closeRedisConnections, queuePrefix, redisConnection } from './redis';
-import { cancelChannel, closeRunQueues, runQueue, type RunJobData } from './run-queue';
+import {
+  cancelChannel,
+  closeRunQueues,
+  runQueue,
+  type QueueJobData,
+  type RunJobData,
+  type RunPartJobData,
+} from './run-queue';
+import { beginSplit, continueSplit, processPart } from './split-run';
 
 /** A job's lock lasts this long unless renewed (every half of it) by a live worker. */
 export const LOCK_MS = 15_000;
@@ -62,26 +71,52 @@ export async function startRunWorker(): Promise<RunWorker> {
   const concurrency = workerConcurrency();
   await runQueue().setGlobalConcurrency(maxRunning());
 
-  // The engines this process runs, by run id: a cancel or a shutdown aborts them.
-  const active = new Map<number, AbortController>();
+  // The engines this process runs (whole runs and parts), by run id: a cancel or a shutdown aborts them.
+  const active = new Map<number, Set<AbortController>>();
   let closing = false;
+  const track = (runId: number) => {
+    const controller = new AbortController();
+    if (!active.has(runId)) active.set(runId, new Set());
+    active.get(runId)!.add(controller);
+    if (closing) controller.abort();
+    return {
+      signal: controller.signal,
+      done: () => {
+        active.get(runId)?.delete(controller);
+        if (active.get(runId)?.size === 0) active.delete(runId);
+      },
+    };
+  };
 
   const subscriber = redisConnection('cancel-subscriber');
   await subscriber.subscribe(cancelChannel());
   subscriber.on('message', (channel, message) => {
-    if (channel === cancelChannel()) active.get(Number(message))?.abort();
+    if (channel !== cancelChannel()) return;
+    for (const controller of active.get(Number(message)) ?? []) controller.abort();
   });
+
+  /** Back to the delayed set without using an attempt; `afterMs` 0: another worker may take it now. */
+  async function putBack(job: Job, token: string, afterMs: number): Promise<never> {
+    await job.moveToDelayed(Date.now() + afterMs, token);
+    throw new DelayedError();
+  }
 
   async function processRun(job: Job<RunJobData>, token: string) {
     const { runId } = job.data;
-    const controller = new AbortController();
-    active.set(runId, controller);
-    if (closing) controller.abort();
+    // A split run's parent, resumed when its parts are done.
+    if (job.data.split) return continueSplit(job, token);
+    const claim = await claimRunForWorker(runId);
+    if (claim.kind === 'busy') return putBack(job, token, BUSY_RETRY_MS);
+    if (claim.kind === 'started') {
+      const ranges = await splitRangesFor(runId);
+      if (ranges) return beginSplit(job, token, claim.token, ranges);
+    }
+    const tracked = track(runId);
     let lastProgress = 0;
     try {
       const outcome = await executeRun(runId, {
-        claim: () => claimRunForWorker(runId),
-        signal: controller.signal,
+        claim: async () => claim,
+        signal: tracked.signal,
         handingBack: () => closing,
         onProgress: (p) => {
           if (Date.now() - lastProgress < JOB_PROGRESS_MS) return;
@@ -89,24 +124,34 @@ export async function startRunWorker(): Promise<RunWorker> {
           job.updateProgress(Math.round(p * 1000) / 10).catch(() => undefined);
         },
       });
-      if (outcome === 'busy' || outcome === 'handed-back') {
-        // Back to the delayed set without using an attempt; a handed-back run may start at once elsewhere.
-        await job.moveToDelayed(Date.now() + (outcome === 'busy' ? BUSY_RETRY_MS : 0), token);
-        throw new DelayedError();
-      }
+      if (outcome === 'handed-back') return putBack(job, token, 0);
       return outcome;
     } finally {
-      active.delete(runId);
+      tracked.done();
     }
   }
 
-  const worker = new Worker<RunJobData>(
+  async function processRunPart(job: Job<RunPartJobData>, token: string) {
+    const tracked = track(job.data.runId);
+    try {
+      const part = await processPart(job, tracked.signal);
+      // Stopped by a shutdown rather than a cancel: the part is computed again elsewhere.
+      if (part === null && closing) return putBack(job, token, 0);
+      return part;
+    } finally {
+      tracked.done();
+    }
+  }
+
+  const worker = new Worker<QueueJobData>(
     RUN_QUEUE,
     async (job, token) => {
       if (!token) throw new Error(`job ${job.id}: no lock token`);
       switch (job.data.kind) {
         case 'run':
-          return processRun(job, token);
+          return processRun(job as Job<RunJobData>, token);
+        case 'run-part':
+          return processRunPart(job as Job<RunPartJobData>, token);
         default:
           throw new UnrecoverableError(
             `job ${job.id}: unknown kind "${(job.data as { kind: string }).kind}"`,
@@ -128,6 +173,8 @@ export async function startRunWorker(): Promise<RunWorker> {
   worker.on('failed', (job, error) => {
     if (!job) return;
     console.error(`job ${job.id} failed (attempt ${job.attemptsMade}):`, error.message);
+    // A part that fails for good is the parent's to report (split-run.ts).
+    if (job.data.kind !== 'run') return;
     if (job.attemptsMade >= (job.opts.attempts ?? 1) || error instanceof UnrecoverableError) {
       failRun(job.data.runId).catch((e) => console.error(`run ${job.data.runId}: not failed`, e));
     }
@@ -137,7 +184,7 @@ export async function startRunWorker(): Promise<RunWorker> {
     worker,
     async close() {
       closing = true;
-      for (const controller of active.values()) controller.abort();
+      for (const controllers of active.values()) for (const c of controllers) c.abort();
       // Stops taking jobs and waits for the active ones, which hand their runs back.
       await worker.close();
       await subscriber.unsubscribe().catch(() => undefined);

@@ -12,6 +12,7 @@ import { SimulationCancelledError, type SimulationResult } from '@/lib/sim';
 import { runSimulation } from '@/lib/sim/runtime';
 import { Project, SimulationRun, User, sequelize } from '@/models';
 import type { ProgressMarks, RunSummary } from '@/models/simulation-run';
+import type { RunSettings } from '@/lib/validation/runs';
 import { formatMoney } from '@/lib/runs/format';
 import { CURRENT_ENGINE } from './engine-match';
 import { sampleOfRun } from './sample';
@@ -50,9 +51,12 @@ export function summarize(result: SimulationResult, currency: string | null): Ru
  * attempt. A write that finds the row taken (cancelled from a web instance, or handed to another
  * attempt) calls `lost`, so the engine stops at once rather than running on for nothing.
  */
-function progressWriter(runId: number, token: string, cap: number | null, lost: () => void) {
+function progressWriter(runId: number, token: string, planned: number, cap: number | null, lost: () => void) {
   let last = 0;
   let pending: Promise<unknown> = Promise.resolve();
+  // The marks of the time left count the share of the work done in planned iterations (a bounded
+  // run's two passes would otherwise count twice); with a precision goal, against the cap.
+  const share = (done: number, total: number) => Math.min(1, done / (cap ?? total));
   let latest: { done: number; total: number; iterations?: number } | null = null;
   let first: ProgressMarks['first'] | null = null;
   let writing = false;
@@ -66,9 +70,9 @@ function progressWriter(runId: number, token: string, cap: number | null, lost: 
       {
         // With a precision goal the rounds grow as needed, so progress is measured against the cap.
         // A bounded run's work is two passes over its iterations: `iterations` counts them once.
-        progress: Math.min(1, done / (cap ?? total)),
+        progress: share(done, total),
         iterationsDone: iterations ?? done,
-        progressMarks: { first, latest: { at: last, done: iterations ?? done } },
+        progressMarks: { first, latest: { at: last, done: share(done, total) * planned } },
       },
       { where: { id: runId, status: 'running', attemptToken: token } },
     )
@@ -80,7 +84,7 @@ function progressWriter(runId: number, token: string, cap: number | null, lost: 
   };
   return {
     report(p: { done: number; total: number; iterations?: number }) {
-      first ??= { at: Date.now(), done: p.iterations ?? p.done };
+      first ??= { at: Date.now(), done: share(p.done, p.total) * planned };
       latest = p;
       if (Date.now() - last >= PROGRESS_INTERVAL_MS) write();
     },
@@ -92,7 +96,7 @@ function progressWriter(runId: number, token: string, cap: number | null, lost: 
 /** Waits between tries of the final write: a database that blinks must not leave a run 'running'. */
 export const FINAL_WRITE_DELAYS_MS = [500, 1000, 2000, 4000, 8000];
 
-async function withRetries<T>(what: string, write: () => Promise<T>): Promise<T> {
+export async function withRetries<T>(what: string, write: () => Promise<T>): Promise<T> {
   for (let attempt = 0; ; attempt++) {
     try {
       return await write();
@@ -105,7 +109,7 @@ async function withRetries<T>(what: string, write: () => Promise<T>): Promise<T>
   }
 }
 
-const reasonOf = (e: unknown) =>
+export const reasonOf = (e: unknown) =>
   e instanceof Error && e.message ? e.message : 'The engine stopped with an unexpected error.';
 
 /** Queues the "run finished" mail to whoever started the run. */
@@ -150,6 +154,49 @@ export async function notifyFinished(runId: number) {
     // A mail that cannot be queued must not change the run's outcome.
     console.error(`run ${runId}: finish notice not queued`, e);
   }
+}
+
+/**
+ * The final write of an attempt: made only while the row is 'running' and names this attempt, so
+ * it happens once. When every try fails, the stale-run sweeper (recover.ts) ends the run.
+ */
+export async function writeOutcome(
+  runId: number,
+  token: string,
+  values: Partial<InferAttributes<SimulationRun>>,
+): Promise<void> {
+  await withRetries(`run ${runId}: outcome`, () =>
+    SimulationRun.update(
+      { ...values, finishedAt: new Date(), progressMarks: null },
+      { where: { id: runId, status: 'running', attemptToken: token } },
+    ),
+  ).catch((e) => console.error(`run ${runId}: outcome not written`, e));
+}
+
+/** The row of a run that succeeded: refused (thrown) when a figure is not a number. */
+export async function succeeded(
+  snapshot: unknown,
+  s: RunSettings,
+  result: SimulationResult,
+  currency: string | null,
+): Promise<Partial<InferAttributes<SimulationRun>>> {
+  const unusable = nonFiniteReason(result);
+  if (unusable) throw new Error(unusable);
+  // The chart sample is computed here, where the run executes, never by the web tier.
+  const sample = await sampleOfRun(snapshot, {
+    iterations: result.iterations,
+    seed: s.seed,
+    sampling: s.sampling,
+    ...CURRENT_ENGINE,
+  });
+  return {
+    status: 'succeeded',
+    progress: 1,
+    iterationsDone: result.iterations,
+    result: JSON.stringify(result),
+    resultSample: JSON.stringify(sample),
+    summary: summarize(result, currency),
+  };
 }
 
 /** What a claim of a run found: started (with this attempt's token), or why not. */
@@ -216,16 +263,11 @@ export async function executeRun(runId: number, attempt: Attempt): Promise<Attem
   // A row taken from this attempt stops the engine as a cancel does; the outcome is not written.
   const lost = new AbortController();
   const stop = AbortSignal.any([signal, lost.signal]);
-  const progress = progressWriter(run.id, token, s.precision?.maxIterations ?? null, () => lost.abort());
+  const cap = s.precision?.maxIterations ?? null;
+  const progress = progressWriter(run.id, token, cap ?? s.iterations, cap, () => lost.abort());
   const finish = async (values: Partial<InferAttributes<SimulationRun>>) => {
     await progress.settle();
-    // When every try fails, the stale-run sweeper (recover.ts) ends the run with a reason.
-    await withRetries(`run ${run.id}: outcome`, () =>
-      SimulationRun.update(
-        { ...values, finishedAt: new Date(), progressMarks: null },
-        { where: { id: run.id, status: 'running', attemptToken: token } },
-      ),
-    ).catch((e) => console.error(`run ${run.id}: outcome not written`, e));
+    await writeOutcome(run.id, token, values);
   };
   try {
     const result = await runSimulation(snapshot, {
@@ -243,22 +285,7 @@ export async function executeRun(runId: number, attempt: Attempt): Promise<Attem
       },
     });
     if (stop.aborted) throw new SimulationCancelledError();
-    const unusable = nonFiniteReason(result);
-    if (unusable) throw new Error(unusable);
-    const sample = await sampleOfRun(snapshot, {
-      iterations: result.iterations,
-      seed: s.seed,
-      sampling: s.sampling,
-      ...CURRENT_ENGINE,
-    });
-    await finish({
-      status: 'succeeded',
-      progress: 1,
-      iterationsDone: result.iterations,
-      result: JSON.stringify(result),
-      resultSample: JSON.stringify(sample),
-      summary: summarize(result, project?.currency ?? null),
-    });
+    await finish(await succeeded(snapshot, s, result, project?.currency ?? null));
   } catch (e) {
     if (stop.aborted || e instanceof SimulationCancelledError) {
       if (signal.aborted && attempt.handingBack?.()) {
