@@ -121,8 +121,14 @@ describe('runs executed by queue workers', () => {
 
   it('a cancel reaches the worker: the engine stops, and the worker goes on serving', async () => {
     const env = usePrefix('cancel');
-    await worker(env);
     const { actor, projectId } = await ownerOf('queue-cancel');
+    // With no worker yet, a cancelled run's waiting job is taken out of the queue.
+    const waiting = await startRun(actor, projectId, { iterations: 20_000, seed: 2 });
+    expect(await runQueue().getJobState(runJobId(waiting.id))).toBe('waiting');
+    expect((await cancelRun(actor, projectId, waiting.id)).status).toBe('cancelled');
+    expect(await runQueue().getJobState(runJobId(waiting.id))).toBe('unknown');
+
+    await worker(env);
     const run = await startRun(actor, projectId, { iterations: 900_000, seed: 3 });
     await waitFor(run.id, (r) => r.status === 'running' && r.iterationsDone > 0);
     const cancelled = await cancelRun(actor, projectId, run.id);
