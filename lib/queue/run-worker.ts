@@ -1,7 +1,8 @@
 import 'server-only';
 /**
  * The queue worker: takes run jobs from BullMQ and executes each with the same executeRun as the
- * embedded server. Limits: OUTTURN_WORKER_CONCURRENCY runs at once in this process, at most
+ * embedded server; a big run's job instead becomes the parent of 'run-part' jobs that any worker
+ * computes (split-run.ts). Limits: OUTTURN_WORKER_CONCURRENCY runs at once in this process, at most
  * OUTTURN_MAX_RUNNING across every worker (BullMQ's global concurrency), and MAX_RUNNING_PER_ORG
  * per organisation (the claim counts in MariaDB; a run of a full organisation goes back to the
  * delayed set without using an attempt). A cancel arrives on a Redis channel and, as a backstop,
