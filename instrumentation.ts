@@ -10,7 +10,8 @@ export async function register() {
     const { startMailSender, stopMailSender } = await import('./lib/mail/sender');
     startMailSender();
     onShutdown('background', 'mail sender', () => stopMailSender());
-    // Runs left 'running' by the previous process are marked failed; queued ones start again.
+    // Embedded, runs left 'running' by the previous process are marked failed; queued ones start
+    // again (in queue mode their jobs are added again, and running runs are the workers').
     const { recoverInterruptedRuns, startRunSweeper } = await import('./lib/services/runs/recover');
     await recoverInterruptedRuns().catch((e) =>
       logUnexpected(componentLogger('runs'), 'Interrupted runs not recovered', e),

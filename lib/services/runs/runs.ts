@@ -19,8 +19,7 @@ import { exportModelFile } from '../model-file';
 import { jointConfidenceOf } from '../organization-settings';
 import { findProject } from '../projects';
 import { assertWritable } from '../write-access';
-import { abortActive, dequeue, isActive } from './queue';
-import { schedule } from './runner';
+import { runExecutor } from './executor';
 import type { RunSample } from './sample';
 import { toRunView, type RunView } from './view';
 
@@ -44,6 +43,7 @@ const LIST_ATTRIBUTES = [
   'engineVersion',
   'modelNotices',
   'blockSize',
+  'progressMarks',
   'startedAt',
   'finishedAt',
   'createdAt',
@@ -203,7 +203,7 @@ export async function startRun(
     );
     return created;
   });
-  schedule({ runId: run.id, organizationId: actor.organizationId });
+  await runExecutor().schedule({ runId: run.id, organizationId: actor.organizationId });
   return { ...(await viewOf(await findRun(actor, project.id, run.id))), notices };
 }
 
@@ -287,11 +287,11 @@ export async function cancelRun(actor: Actor, projectId: number, runId: number):
       status: run.status,
     });
   }
-  dequeue(run.id);
-  if (isActive(run.id)) await abortActive(run.id);
+  // Embedded, the engine has stopped and its runner marked the run when this returns; in queue
+  // mode the worker hears of it, and the row is marked here (its runner's writes then miss).
+  await runExecutor().stop(run.id);
   await sequelize.transaction(async (transaction) => {
-    // A queued run, or one this process no longer executes, is cancelled here; an active one
-    // was marked by its runner when the engine stopped.
+    // A queued run, or one no engine executes any more, is cancelled here.
     await SimulationRun.update(
       { status: 'cancelled', finishedAt: new Date() },
       { where: { id: run.id, status: { [Op.in]: ['queued', 'running'] } }, transaction },
