@@ -5,6 +5,7 @@ import 'server-only';
  * in MariaDB stays the record: a job carries only what finds the row.
  */
 
+import { componentLogger } from '@/lib/log';
 import { Queue } from 'bullmq';
 import { RUN_QUEUE, queuePrefix, redisConnection } from './redis';
 
@@ -50,7 +51,7 @@ export function runQueue(): Queue {
   let queue = queues.get(prefix);
   if (!queue) {
     queue = new Queue(RUN_QUEUE, { connection: redisConnection('queue'), prefix });
-    queue.on('error', (e) => console.error('Run queue:', e.message));
+    queue.on('error', (e) => componentLogger('run-queue').error({ err: e.message }, 'Run queue error'));
     queues.set(prefix, queue);
   }
   return queue;

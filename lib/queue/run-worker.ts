@@ -14,6 +14,8 @@ import 'server-only';
  * no more jobs, aborts its engines, gives its runs back to the queue and closes.
  */
 
+import { componentLogger, runLogger } from '@/lib/log';
+import { logUnexpected } from '@/lib/http/log-error';
 import { DelayedError, UnrecoverableError, Worker, type Job } from 'bullmq';
 import { Op } from 'sequelize';
 import { SimulationRun, sequelize } from '@/models';
@@ -170,14 +172,19 @@ export async function startRunWorker(): Promise<RunWorker> {
       maxStalledCount: MAX_ATTEMPTS,
     },
   );
-  worker.on('error', (e) => console.error('Run worker:', e.message));
+  worker.on('error', (e) => componentLogger('run-worker').error({ err: e.message }, 'Run worker error'));
   worker.on('failed', (job, error) => {
     if (!job) return;
-    console.error(`job ${job.id} failed (attempt ${job.attemptsMade}):`, error.message);
+    runLogger(job.data.runId).warn(
+      { jobId: job.id, attempt: job.attemptsMade, err: error.message },
+      'Job failed',
+    );
     // A part that fails for good is the parent's to report (split-run.ts).
     if (job.data.kind !== 'run') return;
     if (job.attemptsMade >= (job.opts.attempts ?? 1) || error instanceof UnrecoverableError) {
-      failRun(job.data.runId).catch((e) => console.error(`run ${job.data.runId}: not failed`, e));
+      failRun(job.data.runId).catch((e) =>
+        logUnexpected(runLogger(job.data.runId), 'Run not marked failed', e),
+      );
     }
   });
 

@@ -13,6 +13,8 @@ import 'server-only';
  * the parts' counts in a Redis hash. The result is the engine's to the bit whatever the split.
  */
 
+import { runLogger } from '@/lib/log';
+import { logUnexpected } from '@/lib/http/log-error';
 import { WaitingChildrenError, type Job } from 'bullmq';
 import {
   FirstPassFold,
@@ -152,7 +154,7 @@ export async function continueSplit(job: Job<RunJobData>, lockToken: string): Pr
       });
       await writeOutcome(runId, token, await succeeded(held.snapshot, held.settings, result, held.currency));
     } catch (e) {
-      console.error(`run ${runId} failed:`, e);
+      logUnexpected(runLogger(runId), 'Split run failed', e);
       await writeOutcome(runId, token, { status: 'failed', failureReason: reasonOf(e) });
     }
     await notifyFinished(runId);

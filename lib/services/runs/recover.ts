@@ -7,6 +7,8 @@ import 'server-only';
  * is one job, and a queue that lost its jobs gets them back.
  */
 
+import { componentLogger } from '@/lib/log';
+import { logUnexpected } from '@/lib/http/log-error';
 import { Op, type WhereOptions } from 'sequelize';
 import { SimulationRun } from '@/models';
 import { runExecutor } from './executor';
@@ -83,7 +85,7 @@ export function startRunSweeper() {
   const holder = globalThis as unknown as { outturnRunSweeper?: NodeJS.Timeout };
   if (holder.outturnRunSweeper) return;
   holder.outturnRunSweeper = setInterval(() => {
-    sweepStaleRuns().catch((e) => console.error('Stale runs not swept:', e));
+    sweepStaleRuns().catch((e) => logUnexpected(componentLogger('runs'), 'Stale runs not swept', e));
   }, SWEEP_EVERY_MS);
   holder.outturnRunSweeper.unref();
 }

@@ -6,6 +6,8 @@ import 'server-only';
  * database.
  */
 
+import { componentLogger, runLogger } from '@/lib/log';
+import { logUnexpected } from '@/lib/http/log-error';
 import { availableParallelism } from 'node:os';
 import type { InferAttributes } from 'sequelize';
 import { SimulationCancelledError, type SimulationResult } from '@/lib/sim';
@@ -79,7 +81,7 @@ function progressWriter(runId: number, token: string, planned: number, cap: numb
       .then(([written]) => {
         if (!written) lost();
       })
-      .catch((e) => console.error(`run ${runId}: progress not written`, e))
+      .catch((e) => logUnexpected(runLogger(runId), 'Progress not written', e))
       .finally(() => (writing = false));
   };
   return {
@@ -103,7 +105,7 @@ export async function withRetries<T>(what: string, write: () => Promise<T>): Pro
     } catch (e) {
       const delay = FINAL_WRITE_DELAYS_MS[attempt];
       if (delay === undefined) throw e;
-      console.error(`${what} not written, trying again in ${delay} ms`, e);
+      logUnexpected(componentLogger('runs'), `${what} not written, trying again in ${delay} ms`, e);
       await new Promise((resolve) => setTimeout(resolve, delay));
     }
   }
@@ -152,7 +154,7 @@ export async function notifyFinished(runId: number) {
     );
   } catch (e) {
     // A mail that cannot be queued must not change the run's outcome.
-    console.error(`run ${runId}: finish notice not queued`, e);
+    logUnexpected(runLogger(runId), 'Finish notice not queued', e);
   }
 }
 
@@ -170,7 +172,7 @@ export async function writeOutcome(
       { ...values, finishedAt: new Date(), progressMarks: null },
       { where: { id: runId, status: 'running', attemptToken: token } },
     ),
-  ).catch((e) => console.error(`run ${runId}: outcome not written`, e));
+  ).catch((e) => logUnexpected(runLogger(runId), 'Outcome not written', e));
 }
 
 /** The row of a run that succeeded: refused (thrown) when a figure is not a number. */
@@ -295,7 +297,7 @@ export async function executeRun(runId: number, attempt: Attempt): Promise<Attem
       }
       await finish({ status: 'cancelled', failureReason: null });
     } else {
-      console.error(`run ${run.id} failed:`, e);
+      logUnexpected(runLogger(run.id), 'Run failed', e);
       await finish({ status: 'failed', failureReason: reasonOf(e) });
     }
   }
