@@ -6,7 +6,7 @@ import 'server-only';
  */
 
 import { randomUUID } from 'node:crypto';
-import { Op, QueryTypes } from 'sequelize';
+import { Op, QueryTypes, Transaction } from 'sequelize';
 import { SimulationRun, sequelize } from '@/models';
 import { CURRENT_ENGINE } from './engine-match';
 import { MAX_RUNNING_PER_ORG } from './queue';
@@ -45,9 +45,13 @@ export async function claimQueuedRun(runId: number): Promise<Claim> {
  * claiming runs of one organisation at once count each other, the run starts only while fewer
  * than MAX_RUNNING_PER_ORG others run. A run found 'running' was held by a worker that died (the
  * queue handed its job on): it starts again from scratch, unless it has had MAX_ATTEMPTS.
+ * READ COMMITTED: under MariaDB's default (repeatable read) the count below would read the
+ * snapshot of the transaction's first read, taken before the organisation's lock was granted, and
+ * miss a run another worker started meanwhile.
  */
 export async function claimRunForWorker(runId: number): Promise<Claim> {
-  return sequelize.transaction(async (transaction) => {
+  const isolationLevel = Transaction.ISOLATION_LEVELS.READ_COMMITTED;
+  return sequelize.transaction({ isolationLevel }, async (transaction) => {
     const run = await SimulationRun.findByPk(runId, {
       attributes: ['id', 'organizationId', 'status', 'attempts'],
       transaction,
