@@ -102,6 +102,8 @@ async function main() {
     seed,
     sampling,
     threads,
+    // Nothing else runs in this process: its own thread computes too, beside threads − 1 workers.
+    computeHere: true,
     ...(precision ? { precision } : {}),
     onProgress: showProgress
       ? ({ done, total }) =>

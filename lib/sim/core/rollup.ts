@@ -45,14 +45,25 @@ export interface RankedTotals {
   /** The other mitigation scenario's totals, in iteration order (when some risk has a post block). */
   altCost?: Float64Array | null;
   altDuration?: Float64Array | null;
+  /** Their sorted copies when already at hand (another thread may have sorted them). */
+  altSorted?: { cost: Float64Array; duration: Float64Array | null };
 }
 
 /** `shared`: put the ranks on SharedArrayBuffers, for worker threads to read. */
 export function rankTotals(cost: Float64Array, duration: Float64Array | null, shared = false): RankedTotals {
+  return rankedTotalsOf(cost, duration, sortOrder(cost), duration ? sortOrder(duration) : null, shared);
+}
+
+/** rankTotals from sort orders computed elsewhere (each total's may come from another thread). */
+export function rankedTotalsOf(
+  cost: Float64Array,
+  duration: Float64Array | null,
+  costOrder: SortOrder,
+  durationOrder: SortOrder | null,
+  shared = false,
+): RankedTotals {
   const ranksArray = (n: number) =>
     new Float64Array(shared ? new SharedArrayBuffer(8 * n) : new ArrayBuffer(8 * n));
-  const costOrder = sortOrder(cost);
-  const durationOrder = duration ? sortOrder(duration) : null;
   return {
     cost,
     costSorted: costOrder.sorted,
@@ -271,7 +282,7 @@ function mitigationOf(plan: Plan, totals: RankedTotals): NonNullable<SimulationR
     cost: totals.costSorted,
     duration: totals.durationSorted,
   });
-  const other = scenarioOf(totals.altCost!, totals.altDuration);
+  const other = scenarioOf(totals.altCost!, totals.altDuration, totals.altSorted);
   return plan.headline === 'post'
     ? { used: 'post', pre: other, post: headline }
     : { used: 'pre', pre: headline, post: other };
