@@ -107,16 +107,23 @@ function achievedCorrelations(plan: Plan, blocks: BlockSummary[], n: number): Ac
 }
 
 /**
- * `blocks` in block order; `second[k]` the second pass over blocks[k] (blockSecondPass): rank
- * cross sums and allocation sums.
+ * The parts of the result that need only the blocks' sums and the ranked totals, not the second
+ * pass: a threaded run computes them while other threads run the second pass.
  */
-export function rollUp(
-  plan: Plan,
-  blocks: BlockSummary[],
-  totals: RankedTotals,
-  second: BlockSecondPass[],
-  info: RunInfo,
-): SimulationResult {
+export interface TotalsRollUp {
+  costSummary: SimulationResult['cost'];
+  durationSummary: SimulationResult['duration'];
+  joint: SimulationResult['joint'];
+  criticality: Record<string, number>;
+  swing: { cost: Interval[]; duration: Interval[] };
+  ssi: Float64Array;
+  convergence: SimulationResult['convergence'];
+  mitigation: SimulationResult['mitigation'];
+  achieved: AchievedCorrelation[];
+}
+
+/** `blocks` in block order. */
+export function rollUpTotals(plan: Plan, blocks: BlockSummary[], totals: RankedTotals): TotalsRollUp {
   const { cost, costSorted, duration, durationSorted, costOrder, durationOrder } = totals;
   const n = cost.length;
   const costSummary = summarizeTotal(cost, costSorted, plan.base.cost, plan.targets.cost);
@@ -136,7 +143,8 @@ export function rollUp(
     let both = 0;
     const tc = plan.targets.cost;
     const td = plan.targets.duration;
-    for (let i = 0; i < n; i++) if (cost[i] <= tc && duration[i] <= td) both++;
+    // Added as 0 or 1, not branched on: which iteration meets both is a coin toss to the processor.
+    for (let i = 0; i < n; i++) both += +(cost[i] <= tc) & +(duration[i] <= td);
     joint = {
       probability: both / n,
       ci95: wilsonInterval(both, n),
@@ -151,11 +159,50 @@ export function rollUp(
   const criticality: Record<string, number> = {};
   plan.activities.forEach((a, i) => (criticality[a.id] = critical[i] / n));
 
+  // The tornado's swing, and the schedule sensitivity index.
+  const swing = swingOf(plan, blocks);
+  const ssi = scheduleSensitivity(plan, blocks, critical, n, durationSummary?.sd ?? 0);
+
+  // Convergence.
+  const checkpoints = checkpointsFor(n);
+  const convergence: SimulationResult['convergence'] = {
+    iterations: checkpoints,
+    cost: convergenceSeries(costOrder.positions, costSorted, checkpoints),
+  };
+  if (durationOrder)
+    convergence.duration = convergenceSeries(durationOrder.positions, durationOrder.sorted, checkpoints);
+
+  return {
+    costSummary,
+    durationSummary,
+    joint,
+    criticality,
+    swing,
+    ssi,
+    convergence,
+    mitigation: plan.hasPost ? mitigationOf(plan, totals) : undefined,
+    achieved: achievedCorrelations(plan, blocks, n),
+  };
+}
+
+/**
+ * `blocks` in block order; `second[k]` the second pass over blocks[k] (blockSecondPass): rank
+ * cross sums and allocation sums. `early`: rollUpTotals of the same, when computed already.
+ */
+export function rollUp(
+  plan: Plan,
+  blocks: BlockSummary[],
+  totals: RankedTotals,
+  second: BlockSecondPass[],
+  info: RunInfo,
+  early: TotalsRollUp = rollUpTotals(plan, blocks, totals),
+): SimulationResult {
+  const n = totals.cost.length;
+  const { costSummary, durationSummary, joint, criticality, swing, ssi, convergence, mitigation } = early;
+
   // Tornado: rank correlation, share, swing, and the schedule sensitivity index.
   const cross = second.map((s) => s.cross);
   const rho = rankCorrelations(plan.sensitivity, blocks, cross, totals.costRanks, totals.durationRanks);
-  const swing = swingOf(plan, blocks);
-  const ssi = scheduleSensitivity(plan, blocks, critical, n, durationSummary?.sd ?? 0);
   const pick = (which: 'cost' | 'duration'): SensitivityEntry[] => {
     const idx = plan.sensitivity.map((s, i) => (s[which] ? i : -1)).filter((i) => i >= 0);
     const byId = new Map(idx.map((i) => [plan.sensitivity[i].id, i]));
@@ -171,15 +218,6 @@ export function rollUp(
     });
   };
 
-  // Convergence.
-  const checkpoints = checkpointsFor(n);
-  const convergence: SimulationResult['convergence'] = {
-    iterations: checkpoints,
-    cost: convergenceSeries(costOrder.positions, costSorted, checkpoints),
-  };
-  if (durationOrder)
-    convergence.duration = convergenceSeries(durationOrder.positions, durationOrder.sorted, checkpoints);
-
   // Keys in the order docs/result-format.md lists them (JSON keeps insertion order).
   return {
     format: 'outturn-result',
@@ -191,7 +229,7 @@ export function rollUp(
     cost: costSummary,
     ...(durationSummary ? { duration: durationSummary } : {}),
     ...(joint ? { joint } : {}),
-    ...(plan.hasPost ? { mitigation: mitigationOf(plan, totals) } : {}),
+    ...(mitigation ? { mitigation } : {}),
     allocation: allocationOf(
       plan,
       second.map((s) => s.allocation),
@@ -199,7 +237,7 @@ export function rollUp(
     ),
     sensitivity: { cost: pick('cost'), duration: totals.durationRanks ? pick('duration') : [] },
     criticality,
-    achievedCorrelations: achievedCorrelations(plan, blocks, n),
+    achievedCorrelations: early.achieved,
     warnings: [
       ...plan.warnings,
       ...(info.warnings ?? []),

@@ -11,6 +11,7 @@ import { packBetaTables } from '../core/math/beta-quantile-table';
 import { type SortOrder, sortOrder } from '../core/math/ranks';
 import {
   blocksBetween,
+  inBlockOrder,
   type PreparedRun,
   rankRun,
   resolveRun,
@@ -21,7 +22,7 @@ import {
   secondPassInput,
   secondPassInThread,
 } from '../core/engine';
-import { type RankedTotals, rankedTotalsOf } from '../core/rollup';
+import { type RankedTotals, rankedTotalsOf, rollUpTotals, type TotalsRollUp } from '../core/rollup';
 import { type BlockSecondPass, blockSecondPass, concatRounds } from '../core/run-data';
 import { SimulationCancelledError } from '../core/errors';
 import { type Claims, claimNext, createClaims, doneSoFar, markDone, stopClaims } from './claims';
@@ -117,6 +118,7 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
     throwIfAborted();
     let second: BlockSecondPass[];
     let totals: RankedTotals;
+    let early: TotalsRollUp | undefined;
     if (!pool) {
       totals = rankRun(run, rounds);
       second = secondPassInThread(run, rounds, totals, blocks);
@@ -127,7 +129,7 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
       const { costRanks, durationRanks, window } = input;
       const bands = bandsOf(blocks);
       second = [];
-      for (const store of rounds) {
+      for (const [r, store] of rounds.entries()) {
         const all = blocksBetween(store.start, store.total);
         const recompute = all.map((b) => recomputes(bands, input, b));
         const claims = createClaims();
@@ -145,6 +147,9 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
             signal,
           ),
         );
+        // While the workers start on the second pass, the parts of the result that do not need
+        // it; then this thread takes its share of what is left (with computeHere).
+        if (r === 0) early = rollUpTotals(plan, inBlockOrder(blocks), totals);
         const compute = (k: number) => {
           const b = all[k];
           passes[k] = blockSecondPass(plan, store, b, blockLength(b, store.total), input, recompute[k]);
@@ -155,7 +160,7 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
       }
       second = allocationFromBands(run, rounds, second, bands, input);
     }
-    return resultOf(run, blocks, totals, second, { elapsedMs: performance.now() - started, warnings });
+    return resultOf(run, blocks, totals, second, { elapsedMs: performance.now() - started, warnings }, early);
   } finally {
     if (pool) await pool.close();
   }
