@@ -7,7 +7,11 @@
 import { availableParallelism } from 'node:os';
 import { type BlockSummary, blockLength, simulateBlock } from '../core/block';
 import { compileModel } from '../core/compile';
-import { packBetaTables } from '../core/math/beta-quantile-table';
+import {
+  type PackedBetaTables,
+  packBetaTables,
+  packedBetaTablesBytes,
+} from '../core/math/beta-quantile-table';
 import { type SortOrder, sortOrder } from '../core/math/ranks';
 import {
   blocksBetween,
@@ -61,19 +65,41 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
   const warnings: string[] = [];
   let pool: TaskPool | null = null;
   try {
-    if (pooled) {
-      const file = requireWorkerFile(options.workerFile ?? defaultWorkerFile());
-      pool = createTaskPool(file, workers, { model, key: Array.from(key), sampling: settings.sampling });
-    }
-    // While the workers start and compile their copy: the plan here, and the beta-PERT tables
-    // once for all threads.
     const run: PreparedRun = { ...resolved, plan: compileModel(model) };
     const { plan } = run;
-    const tables = pool ? packBetaTables(plan.betaShapes) : null;
+    let tables: PackedBetaTables | null = null;
+    // The first round's store and claims exist before the workers do: they get them with their
+    // start and begin computing as soon as they have loaded.
+    let first: { store: RoundStore; claims: Claims } | null = null;
+    let round = nextRound(settings, plan, 0, rounds, warnings);
+    if (pooled && round !== null) {
+      const file = requireWorkerFile(options.workerFile ?? defaultWorkerFile());
+      first = { store: allocateRound(plan, 0, round, true), claims: createClaims() };
+      const todo = blocksBetween(0, round);
+      const buffer = new SharedArrayBuffer(packedBetaTablesBytes(plan.betaShapes.length));
+      const ready = new Int32Array(new SharedArrayBuffer(Int32Array.BYTES_PER_ELEMENT));
+      pool = createTaskPool(file, workers, {
+        model,
+        key: Array.from(key),
+        sampling: settings.sampling,
+        first: {
+          ...first,
+          blocks: todo,
+          warm: todo.length >= WARM_UP_FROM,
+          tables: { buffer, shapes: Float64Array.from(plan.betaShapes.flat()) },
+          ready,
+        },
+      });
+      // While the workers start and compile their copy: the beta-PERT tables, once for all threads.
+      tables = packBetaTables(plan.betaShapes, buffer);
+      Atomics.store(ready, 0, 1);
+      Atomics.notify(ready, 0);
+    }
     let done = 0;
-    for (let round = nextRound(settings, plan, 0, rounds, warnings); round !== null;) {
+    for (; round !== null;) {
       const total = round;
-      const store = allocateRound(plan, done, total, pooled);
+      const isFirst = done === 0 && first !== null;
+      const store = isFirst ? first!.store : allocateRound(plan, done, total, pooled);
       const todo = blocksBetween(done, total);
       const warm = done === 0 && todo.length >= WARM_UP_FROM;
       if (!pool) {
@@ -89,12 +115,12 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
         }
       } else {
         const p = pool;
-        const claims = createClaims();
+        const claims = isFirst ? first!.claims : createClaims();
         const from = done;
         const report = () => onProgress?.({ done: from + doneSoFar(claims), total });
         const tasks = Array.from({ length: workers }, () =>
           p.run<BlockSummary[]>(
-            { kind: 'blocks', blocks: todo, claims, store, tables: tables!, warm },
+            { kind: 'blocks', blocks: todo, claims, store, tables: tables!, warm, first: isFirst },
             signal,
           ),
         );

@@ -26,6 +26,23 @@ export interface WorkerData {
   model: Model;
   key: number[];
   sampling: Sampling;
+  /** The first round's work, given at start (see FirstRound). */
+  first?: FirstRound;
+}
+
+/**
+ * The first round's blocks, handed over with the worker's start: it claims them as soon as it
+ * has loaded and compiled, instead of waiting for the parent's thread (busy computing blocks
+ * itself) to pass it a task. Its first `blocks` task then collects what it computed.
+ */
+export interface FirstRound {
+  blocks: number[];
+  claims: Claims;
+  store: RoundStore;
+  warm: boolean;
+  /** Packed by the parent after the worker starts: `ready[0]` turns 1 once they are in. */
+  tables: PackedBetaTables;
+  ready: Int32Array;
 }
 
 export type WorkerTask =
@@ -39,6 +56,8 @@ export type WorkerTask =
       tables: PackedBetaTables;
       /** Run the warm-up blocks first (a run long enough to be worth it). */
       warm: boolean;
+      /** The round given at start (WorkerData.first): its blocks computed so far come back too. */
+      first: boolean;
     }
   | {
       /** The second pass, once the totals are ranked: cross sums and allocation sums. */
@@ -66,26 +85,46 @@ const key = Uint32Array.from(data.key);
 let tablesIn = false;
 let warm = false;
 
+function prepare(tables: PackedBetaTables, warmFirst: boolean): void {
+  if (!tablesIn) unpackBetaTables(tables);
+  tablesIn = true;
+  if (warmFirst && !warm) warmUp(plan, data.sampling);
+  warm ||= warmFirst;
+}
+
+/** Claims and computes blocks until none is left, into `out`. */
+function computeBlocks(
+  blocks: number[],
+  claims: Claims,
+  store: RoundStore,
+  out: BlockSummary[],
+): BlockSummary[] {
+  for (let k = claimNext(claims, blocks.length); k >= 0; k = claimNext(claims, blocks.length)) {
+    const n = blockLength(blocks[k], store.total);
+    out.push(simulateBlock(plan, key, data.sampling, blocks[k], n, blockSink(store, blocks[k], n)));
+    markDone(claims, n);
+  }
+  return out;
+}
+
+/** The first round's blocks this worker computed before any task reached it. */
+let firstDone: BlockSummary[] = [];
+if (data.first) {
+  const { ready, tables, warm: warmFirst, blocks, claims, store } = data.first;
+  Atomics.wait(ready, 0, 0);
+  prepare(tables, warmFirst);
+  firstDone = computeBlocks(blocks, claims, store, []);
+}
+
 export default function runTask(task: WorkerTask): WorkerReply {
   if (task.kind === 'order') return sortOrder(task.values);
   if (task.kind === 'sort') return task.values.slice().sort();
   const { store, blocks, claims } = task;
   if (task.kind === 'blocks') {
-    if (!tablesIn) {
-      unpackBetaTables(task.tables);
-      tablesIn = true;
-    }
-    if (task.warm && !warm) {
-      warmUp(plan, data.sampling);
-      warm = true;
-    }
-    const out: BlockSummary[] = [];
-    for (let k = claimNext(claims, blocks.length); k >= 0; k = claimNext(claims, blocks.length)) {
-      const n = blockLength(blocks[k], store.total);
-      out.push(simulateBlock(plan, key, data.sampling, blocks[k], n, blockSink(store, blocks[k], n)));
-      markDone(claims, n);
-    }
-    return out;
+    prepare(task.tables, task.warm);
+    const out = task.first ? firstDone : [];
+    if (task.first) firstDone = [];
+    return computeBlocks(blocks, claims, store, out);
   }
   const input: SecondPassInput = { ...task.input, key, sampling: data.sampling };
   const out: ClaimedSecondPass[] = [];
