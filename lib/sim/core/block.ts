@@ -124,6 +124,8 @@ interface Workspace {
   free: Float64Array;
   free2: Float64Array;
   tmp: Float64Array;
+  /** A risk's delays per iteration, kept apart from its costs (in tmp) for the other scenario. */
+  delayTmp: Float64Array;
   sizes: Float64Array;
   occurred: Uint8Array;
   perm: Int32Array;
@@ -196,6 +198,7 @@ function workspaceFor(plan: Plan, n: number): Workspace {
     free: column(),
     free2: column(),
     tmp: column(),
+    delayTmp: column(),
     sizes: column(),
     occurred: new Uint8Array(stride),
     perm: new Int32Array(stride),
@@ -619,25 +622,33 @@ export function simulateBlock(
     slot: number,
     /** Where its cost per iteration is kept for the band (headline scenario), else null. */
     keepInto: Float64Array | null,
+    /**
+     * The same impact was just applied to the other scenario: its occurrences, costs (in tmp)
+     * and delays (in delayTmp) are still at hand and are added again rather than drawn again.
+     */
+    again: boolean,
   ) => {
     const p = x.probability;
     if (p <= 0) return;
-    if (u) occurrenceGrades(u, p, occurred, sizes, n);
+    if (again) {
+      // Nothing to draw.
+    } else if (u) occurrenceGrades(u, p, occurred, sizes, n);
     else {
       occurred.fill(1, 0, n);
       sizes.fill(0.5, 0, n);
     }
     if (x.cost) {
-      x.cost.quantileInto(sizes, tmp, n);
+      if (!again) x.cost.quantileInto(sizes, tmp, n);
       addWhere(cost, tmp, occurred, n);
       if (tap && slot >= 0) tap.sums[slot] += sumWhere(tmp, occurred, n);
       if (keepInto) addWhere(keepInto, tmp, occurred, n);
     }
     if (x.delay && activities.length) {
-      x.delay.quantileInto(uDelay ?? sizes, tmp, n);
+      const { delayTmp } = ws;
+      if (!again) x.delay.quantileInto(uDelay ?? sizes, delayTmp, n);
       for (let j = 0; j < activities.length; j++) {
-        if (plan.version === 1) addPositiveWhere(durations[activities[j]], tmp, occurred, n);
-        else addWhere(durations[activities[j]], tmp, occurred, n);
+        if (plan.version === 1) addPositiveWhere(durations[activities[j]], delayTmp, occurred, n);
+        else addWhere(durations[activities[j]], delayTmp, occurred, n);
       }
     }
   };
@@ -658,12 +669,25 @@ export function simulateBlock(
       ws.durationColumn,
       postHeadline ? -1 : slot,
       preOwn,
+      false,
     );
     if (!hasPost) continue;
     const postSlot = postHeadline ? slot : -1;
     const postOwn = postHeadline ? own : null;
+    // Without a post block the risk acts after mitigation as before: the same draws, added again.
     const postRisk = risk.post ?? risk.pre;
-    applyRisk(postRisk, u, uDelay, risk.activities, postCost, ws.postDurationColumn, postSlot, postOwn);
+    const again = risk.post === null;
+    applyRisk(
+      postRisk,
+      u,
+      uDelay,
+      risk.activities,
+      postCost,
+      ws.postDurationColumn,
+      postSlot,
+      postOwn,
+      again,
+    );
     const m = risk.mitigationCost;
     if (m) {
       if (risk.vMitigation < 0) {
