@@ -134,7 +134,14 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
           markDone(claims, n);
         };
         const theirs = await shareWork(claims, tasks, todo.length, here ? compute : null, report);
-        blocks.push(...mine, ...theirs.flat());
+        const got = [...mine, ...theirs.flat()];
+        // A worker that failed while computing blocks it had claimed leaves them out: never a
+        // result without them.
+        if (got.length !== todo.length)
+          throw new Error(
+            `A worker thread failed: ${todo.length - got.length} of ${todo.length} blocks missing.`,
+          );
+        blocks.push(...got);
         onProgress?.({ done: total, total });
       }
       rounds.push(store);
@@ -182,6 +189,10 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
         };
         for (const list of await shareWork(claims, tasks, all.length, here ? compute : null))
           for (const [k, s] of list) passes[k] = s;
+        // (Array.prototype.some would skip the holes a missing block leaves.)
+        for (let k = 0; k < all.length; k++)
+          if (!passes[k])
+            throw new Error(`A worker thread failed: the second pass over block ${all[k]} is missing.`);
         second.push(...passes);
       }
       second = allocationFromBands(run, rounds, second, bands, input);
