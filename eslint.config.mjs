@@ -127,6 +127,25 @@ export default tseslint.config(
     rules: { '@typescript-eslint/no-explicit-any': 'off' },
   },
   {
+    // The console guard (tests/e2e/fixtures.ts) holds only for specs that take its test.
+    files: ['tests/e2e/**/*.spec.ts'],
+    rules: {
+      '@typescript-eslint/no-restricted-imports': [
+        'error',
+        {
+          paths: [
+            {
+              name: '@playwright/test',
+              importNames: ['test', 'expect'],
+              allowTypeImports: true,
+              message: "Take test and expect from './fixtures', which fails a test on a console error.",
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
     files: ['**/*.cjs'],
     languageOptions: {
       sourceType: 'commonjs',

@@ -1,8 +1,19 @@
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   // Sequelize loads its driver dynamically and piscina spawns workers from files:
-  // both must stay plain Node modules rather than be bundled.
-  serverExternalPackages: ['sequelize', 'mariadb', 'piscina', 'pdfkit', 'exceljs', 'nodemailer', 'esbuild'],
+  // both must stay plain Node modules rather than be bundled. BullMQ (queue mode) names optional
+  // clients it loads only when asked for, which a bundler would try to resolve.
+  serverExternalPackages: [
+    'sequelize',
+    'mariadb',
+    'piscina',
+    'pdfkit',
+    'exceljs',
+    'nodemailer',
+    'esbuild',
+    'bullmq',
+    'ioredis',
+  ],
   poweredByHeader: false,
   // A second test slot builds into its own folder (see scripts/test.sh).
   distDir: process.env.NEXT_DIST_DIR || '.next',

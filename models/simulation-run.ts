@@ -16,6 +16,9 @@ import type { User } from './user';
 export const RUN_STATUSES = ['queued', 'running', 'succeeded', 'failed', 'cancelled'] as const;
 export type RunStatus = (typeof RUN_STATUSES)[number];
 
+/** The first and the latest progress report of a running run, for the time left. */
+export type ProgressMarks = { first: { at: number; done: number }; latest: { at: number; done: number } };
+
 /** The headline figures of a finished run, kept apart from the (large) result. */
 export type RunSummary = {
   iterations: number;
@@ -53,6 +56,11 @@ export class SimulationRun extends Model<
   /** What the registers → model export left out or changed (closed risks, their correlations…). */
   declare modelNotices: CreationOptional<string[] | null>;
   declare blockSize: CreationOptional<number | null>;
+  /** The claim of the attempt executing the run; its writes require the row to still name it. */
+  declare attemptToken: CreationOptional<string | null>;
+  /** How many times the run was started (a run whose worker died is started again). */
+  declare attempts: CreationOptional<number>;
+  declare progressMarks: CreationOptional<ProgressMarks | null>;
   declare startedAt: CreationOptional<Date | null>;
   declare finishedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
@@ -79,6 +87,9 @@ SimulationRun.init(
     engineVersion: { type: DataTypes.STRING(32), allowNull: true },
     modelNotices: { type: DataTypes.JSON, allowNull: true },
     blockSize: { type: DataTypes.INTEGER, allowNull: true },
+    attemptToken: { type: DataTypes.CHAR(36), allowNull: true },
+    attempts: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
+    progressMarks: { type: DataTypes.JSON, allowNull: true },
     startedAt: { type: DataTypes.DATE, allowNull: true },
     finishedAt: { type: DataTypes.DATE, allowNull: true },
     createdAt: DataTypes.DATE,

@@ -1,7 +1,8 @@
 // Bundles the simulation engine's worker thread (lib/sim/runtime/worker.ts) into
 // .build/sim-worker.mjs, the file the engine's thread pool loads, and, run as a script, the
 // command line (scripts/simulate.ts) into .build/simulate.mjs, so that `npm run simulate` starts
-// plain JavaScript instead of compiling TypeScript on every start. The engine never builds them
+// plain JavaScript instead of compiling TypeScript on every start, and the queue worker
+// (scripts/worker.ts) into .build/outturn-worker.mjs for `npm run worker`. The engine never builds them
 // itself; this script does, run by scripts/build.sh before `next build`, by the simulate and
 // bench scripts, and (the worker alone, as the unit tests' global set-up, through the default
 // export) by Vitest. It writes beside each target and renames, so a process loading a file
@@ -41,6 +42,27 @@ export function buildCli(root = process.cwd()) {
   return bundle(root, ['scripts', 'simulate.ts'], 'simulate.mjs', { external: ['piscina'] });
 }
 
+/**
+ * The queue worker (scripts/worker.ts, `npm run worker`): the server code it shares with the app
+ * (services, models) bundled in, with the `@/` paths of tsconfig.json; packages stay in
+ * node_modules. `server-only` guards server modules against client bundles; a worker is server
+ * code, so it gets the package's empty module (as under the react-server condition).
+ */
+export function buildQueueWorker(root = process.cwd()) {
+  const serverOnly = {
+    name: 'server-only',
+    setup(b) {
+      b.onResolve({ filter: /^server-only$/ }, () => ({
+        path: path.join(root, 'node_modules', 'server-only', 'empty.js'),
+      }));
+    },
+  };
+  return bundle(root, ['scripts', 'worker.ts'], 'outturn-worker.mjs', {
+    packages: 'external',
+    plugins: [serverOnly],
+  });
+}
+
 /** Vitest's global set-up: the unit tests run the engine's threads on a fresh worker. */
 export default async function setup() {
   await buildWorker();
@@ -48,6 +70,6 @@ export default async function setup() {
 
 if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
   // On stderr: the command line's stdout is its summary alone.
-  for (const outfile of [await buildWorker(), await buildCli()])
+  for (const outfile of [await buildWorker(), await buildCli(), await buildQueueWorker()])
     console.error(`built ${path.relative(process.cwd(), outfile)}`);
 }

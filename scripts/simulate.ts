@@ -1,9 +1,11 @@
 // Command line (run from its bundle, .build/simulate.mjs, built by scripts/build-worker.mjs):
 // npm run simulate -- MODEL.json [--iterations N] [--seed S] [--sampling mc|lhs]
 //                                   [--threads T] [--out RESULT.json]
-//                                   [--precision PCT [--level Pk] [--max-iterations N]]
+//                                   [--precision PCT [--level Pk] [--max-iterations N]] [--bounded]
 // With --precision the run doubles its iterations until the chosen P-value (P80 unless --level
 // says otherwise) of cost, and of duration, is known to ±PCT % (95% interval), up to the cap.
+// With --bounded (the default above 1,000,000 iterations) the run keeps its memory bounded: two
+// passes over the iterations, nothing kept per iteration (docs/architecture.md, bounded runs).
 // Prints a short summary; with --out writes the result file. A model that fails validation
 // exits with status 1 and a message per offending entry, and nothing is written.
 
@@ -16,7 +18,8 @@ import { BUILD_WORKER_COMMAND, defaultWorkerFile, runSimulation } from '../lib/s
 
 const USAGE =
   'usage: npm run simulate -- MODEL.json [--iterations N] [--seed S] [--sampling mc|lhs] [--threads T] [--out RESULT.json]\n' +
-  '       [--precision PCT [--level Pk] [--max-iterations N]]   (e.g. --precision 0.5 --level P90)';
+  '       [--precision PCT [--level Pk] [--max-iterations N]]   (e.g. --precision 0.5 --level P90)\n' +
+  '       [--bounded]   (memory independent of the iterations; the default above 1,000,000)';
 
 /** Default cap of a run to a precision goal. */
 const DEFAULT_MAX_ITERATIONS = 1_000_000;
@@ -55,6 +58,7 @@ async function main() {
         precision: { type: 'string' },
         level: { type: 'string' },
         'max-iterations': { type: 'string' },
+        bounded: { type: 'boolean' },
         help: { type: 'boolean', short: 'h' },
       },
     });
@@ -75,6 +79,7 @@ async function main() {
     fail(`--sampling must be mc or lhs (got "${sampling}")\n${USAGE}`, 2);
   }
   const precision = precisionGoal(values.precision, values.level, values['max-iterations']);
+  if (precision && values.bounded) fail(`--bounded does not go with --precision\n${USAGE}`, 2);
   const seed =
     values.seed === undefined ? undefined : /^-?\d+$/.test(values.seed) ? Number(values.seed) : values.seed;
 
@@ -99,9 +104,14 @@ async function main() {
     // Nothing else runs in this process: its own thread computes too, beside threads − 1 workers.
     computeHere: true,
     ...(precision ? { precision } : {}),
+    ...(values.bounded ? { bounded: true } : {}),
     onProgress: showProgress
-      ? ({ done, total }) =>
-          process.stderr.write(`\r${Math.round((100 * done) / total)}% of ${total} iterations`)
+      ? ({ done, total, iterations: drawn }) =>
+          process.stderr.write(
+            drawn === undefined
+              ? `\r${Math.round((100 * done) / total)}% of ${total} iterations`
+              : `\r${Math.round((100 * done) / total)}% of two passes over ${total / 2} iterations`,
+          )
       : undefined,
   }).catch((e: unknown) => {
     if (!(e instanceof ModelValidationError)) throw e;

@@ -37,6 +37,14 @@ echo "== Unit tests"
 node_modules/.bin/vitest run --project unit
 
 echo "== Test database and services"
+# Set before anything starts, so that a failed step still stops the fakes and the tests' Redis.
+server_pid=""
+cleanup() {
+  [ -n "$server_pid" ] && kill "$server_pid" 2>/dev/null || true
+  bash scripts/services.sh stop || true
+  bash scripts/redis.sh stop "$redis_port" >/dev/null || true
+}
+trap cleanup EXIT
 bash scripts/db.sh start
 mariadb --no-defaults --socket="$ROOT/.data/mariadb/mysqld.sock" -uroot -e "DROP DATABASE IF EXISTS \`$DB_NAME\`"
 bash scripts/db.sh start "$DB_NAME" >/dev/null
@@ -45,13 +53,6 @@ bash scripts/redis.sh start "$redis_port"
 bash scripts/migrate.sh
 bash scripts/build.sh
 
-server_pid=""
-cleanup() {
-  [ -n "$server_pid" ] && kill "$server_pid" 2>/dev/null || true
-  bash scripts/services.sh stop || true
-  bash scripts/redis.sh stop "$redis_port" >/dev/null || true
-}
-trap cleanup EXIT
 node_modules/.bin/next start -p "$PORT" >"$RUN/test-server.log" 2>&1 &
 server_pid=$!
 for _ in $(seq 1 300); do

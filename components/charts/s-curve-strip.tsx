@@ -3,7 +3,7 @@
 // axis, and what the key beside it does not say drawn in: the target, and the gap between the
 // scenarios at the chosen level when there are two.
 import type { Histogram, Point } from '@/lib/runs/outcome-data';
-import { monotonePath } from '@/lib/runs/curve-path';
+import { smoothPath } from '@/lib/brief/chart-geometry';
 import { dataAxis, placement, ticksOver } from '@/lib/runs/chart-scale';
 import { BottomAxis, INK, LeftAxis, scaleOver, useWidth } from './svg-plot';
 import { COLORS } from './setup';
@@ -63,7 +63,7 @@ export function SCurveStrip({
             .map((c) => (
               <path
                 key={c.label}
-                d={monotonePath(c.points.map((p) => ({ x: x(p.x), y: y(p.y) })))}
+                d={smoothPath(c.points.map((p) => ({ x: x(p.x), y: y(p.y) })))}
                 fill="none"
                 stroke={c.color}
                 strokeWidth={c === curves[0] ? 2.25 : 1.75}

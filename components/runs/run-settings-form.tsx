@@ -13,7 +13,10 @@ import { ApiError, callApi } from '@/components/forms/api';
 import {
   CONFIDENCE_LEVELS,
   DEFAULT_ITERATIONS,
+  MAX_ITERATIONS,
+  MAX_PRECISION_ITERATIONS,
   MAX_SEED,
+  MIN_ITERATIONS,
   formToInput,
   runSettingsFormSchema,
   type RunSettingsForm,
@@ -142,8 +145,13 @@ export function RunSettingsForm({
       name: 'iterations',
       id: 'iterations',
       label: mode === 'precision' ? 'First round (iterations)' : 'Iterations',
-      hint: '1,000 to 1,000,000',
-      input: { type: 'number', step: 1000, min: 1000, max: 1_000_000 },
+      hint: mode === 'precision' ? '1,000 to 1,000,000' : '1,000 to 10,000,000',
+      input: {
+        type: 'number',
+        step: 1000,
+        min: MIN_ITERATIONS,
+        max: mode === 'precision' ? MAX_PRECISION_ITERATIONS : MAX_ITERATIONS,
+      },
     },
     {
       name: 'relativePercent',

@@ -1,14 +1,18 @@
-import { RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
+import { RateLimiterRes, type RateLimiterAbstract } from 'rate-limiter-flexible';
+import { createLimiter } from '@/lib/limits/rate-limiter';
 
 // Failed sign-ins are counted per e-mail and per client address; either limit
 // blocks further attempts for a while. Successful sign-ins reset the e-mail's count.
+// The counters are shared by every web instance in queue mode (lib/limits/rate-limiter.ts).
 // Kept on globalThis: Next.js may load this module in more than one bundle of one process.
-const store = globalThis as unknown as { outturnSignInLimits?: [RateLimiterMemory, RateLimiterMemory] };
-store.outturnSignInLimits ??= [
-  new RateLimiterMemory({ keyPrefix: 'signin-email', points: 5, duration: 15 * 60 }),
-  new RateLimiterMemory({ keyPrefix: 'signin-ip', points: 50, duration: 15 * 60 }),
-];
-const [perEmail, perAddress] = store.outturnSignInLimits;
+// Made at first use, so that importing this module opens no connection.
+type Limits = { perEmail: RateLimiterAbstract; perAddress: RateLimiterAbstract };
+const store = globalThis as unknown as { outturnSignInLimits?: Limits };
+const limits = (): Limits =>
+  (store.outturnSignInLimits ??= {
+    perEmail: createLimiter({ keyPrefix: 'signin-email', points: 5, duration: 15 * 60 }),
+    perAddress: createLimiter({ keyPrefix: 'signin-ip', points: 50, duration: 15 * 60 }),
+  });
 
 export class SignInLimited extends Error {
   constructor(readonly retryAfterSeconds: number) {
@@ -17,7 +21,7 @@ export class SignInLimited extends Error {
   }
 }
 
-async function remaining(limiter: RateLimiterMemory, key: string): Promise<number> {
+async function remaining(limiter: RateLimiterAbstract, key: string): Promise<number> {
   const res = await limiter.get(key);
   if (res && res.remainingPoints <= 0) return Math.ceil(res.msBeforeNext / 1000);
   return 0;
@@ -25,11 +29,13 @@ async function remaining(limiter: RateLimiterMemory, key: string): Promise<numbe
 
 /** Throws SignInLimited when either counter is exhausted. */
 export async function assertMaySignIn(email: string, address: string): Promise<void> {
+  const { perEmail, perAddress } = limits();
   const wait = Math.max(await remaining(perEmail, email), await remaining(perAddress, address));
   if (wait > 0) throw new SignInLimited(wait);
 }
 
 export async function recordFailedSignIn(email: string, address: string): Promise<void> {
+  const { perEmail, perAddress } = limits();
   await Promise.all(
     [perEmail.consume(email), perAddress.consume(address)].map((p) =>
       p.catch((e: unknown) => {
@@ -40,5 +46,5 @@ export async function recordFailedSignIn(email: string, address: string): Promis
 }
 
 export async function recordSuccessfulSignIn(email: string): Promise<void> {
-  await perEmail.delete(email);
+  await limits().perEmail.delete(email);
 }

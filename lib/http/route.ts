@@ -1,17 +1,22 @@
 import { NextResponse } from 'next/server';
+import type { Logger } from 'pino';
 import { AppError, badRequest, forbidden, isAppError } from '@/lib/errors';
-import { describeError } from './log-error';
+import { requestLogger } from '@/lib/log/logger';
+import { withLogContext } from '@/lib/log/context';
+import { REQUEST_ID_HEADER, requestIdFrom } from '@/lib/log/request-id';
+import { logUnexpected } from './log-error';
+import { loggablePath } from './loggable-path';
 import { isForeignOrigin, ORIGIN_EXEMPT_PATHS } from './origin';
 
 /** Maps a thrown error to a JSON reply; unexpected errors are logged and never shown. */
-export function errorResponse(error: unknown): NextResponse {
+export function errorResponse(error: unknown, logger: Logger): NextResponse {
   if (isAppError(error)) {
     return NextResponse.json(
       { error: { code: error.code, message: error.message, issues: error.issues, details: error.details } },
       { status: error.status },
     );
   }
-  console.error('Unexpected error in a route:', describeError(error));
+  logUnexpected(logger, 'Unexpected error in a route', error);
   return NextResponse.json(
     { error: { code: 'internal', message: 'Something went wrong on our side. Nothing was changed.' } },
     { status: 500 },
@@ -28,15 +33,50 @@ function assertSameOrigin(request: unknown) {
   }
 }
 
-/** Wraps a route handler so that every typed error becomes its status code. */
-export function handle<Args extends unknown[]>(fn: (...args: Args) => Promise<Response>) {
+export type HandleOptions = {
+  /** Log successful replies at debug rather than info (a balancer's health probe every few seconds). */
+  quiet?: boolean;
+};
+
+/**
+ * Wraps a route handler so that every typed error becomes its status code, and every request
+ * leaves one log line: method, path, status, duration and the request's id (set by proxy.ts,
+ * or made here for the routes the proxy leaves out), which the reply echoes.
+ */
+export function handle<Args extends unknown[]>(
+  fn: (...args: Args) => Promise<Response>,
+  options: HandleOptions = {},
+) {
   return async (...args: Args): Promise<Response> => {
+    const started = performance.now();
+    const request = args[0] instanceof Request ? args[0] : null;
+    const requestId = request ? requestIdFrom(request.headers) : crypto.randomUUID();
+    const logger = requestLogger(requestId);
+    let response: Response;
     try {
-      assertSameOrigin(args[0]);
-      return await fn(...args);
+      assertSameOrigin(request);
+      // Every line logged while the handler runs, however deep, carries the request's id.
+      response = await withLogContext({ requestId }, () => fn(...args));
     } catch (error) {
-      return errorResponse(error);
+      response = errorResponse(error, logger);
     }
+    if (!response.headers.has(REQUEST_ID_HEADER)) {
+      try {
+        response.headers.set(REQUEST_ID_HEADER, requestId);
+      } catch {
+        // A response with immutable headers (a redirect made by Response.redirect) goes as it is.
+      }
+    }
+    const line = {
+      method: request?.method,
+      path: request ? loggablePath(new URL(request.url).pathname) : undefined,
+      status: response.status,
+      ms: Math.round(performance.now() - started),
+    };
+    const level =
+      response.status >= 500 ? 'error' : options.quiet && response.status < 400 ? 'debug' : 'info';
+    logger[level](line, 'request');
+    return response;
   };
 }
 

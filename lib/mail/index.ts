@@ -38,7 +38,7 @@ export type { MailKind, OptionalMailKind } from './kinds';
 export { enqueueMail } from './outbox';
 export type { MailRecipient } from './outbox';
 export { notifyRunFinished, notifyBriefReady, notifyDecision } from './notify';
-export { deliverPending, startMailSender, kickMailSender } from './sender';
+export { deliverPending, startMailSender, stopMailSender, kickMailSender } from './sender';
 export { retryDelayMs, MAX_ATTEMPTS } from './retry';
 export type { DeliveryOptions, DeliveryReport } from './sender';
 export { renderMail } from './templates';

@@ -6,6 +6,7 @@
 import { baseDuration, baseProjectDuration, itemBase } from '@/lib/domain/base-estimate';
 import type { ModelActivity, ModelItem } from '@/lib/sim';
 import { specFromParts, type DistParts, type DistType } from './dist-fields';
+import { linkToModel, type PredecessorLink } from './predecessors';
 
 type LineCells = Omit<DistParts, 'type'> & {
   distType: DistType | null;
@@ -16,7 +17,9 @@ type LineCells = Omit<DistParts, 'type'> & {
 type ActivityCells = Omit<DistParts, 'type'> & {
   code: string;
   distType: DistType;
-  predecessors?: { code: string; lag: number }[];
+  predecessors?: PredecessorLink[];
+  /** A probabilistic branch's probability: below 1 it is left out of the base, as in the engine. */
+  existence?: number | null;
 };
 
 /** Base durations by activity code, of the rows whose cells describe a duration. */
@@ -38,7 +41,8 @@ export function projectBaseDuration(activities: ActivityCells[]): number | null 
     entries.push({
       id: a.code,
       duration: r.spec,
-      predecessors: (a.predecessors ?? []).map((p) => ({ id: p.code, lag: p.lag })),
+      predecessors: (a.predecessors ?? []).map(linkToModel),
+      ...(a.existence !== null && a.existence !== undefined ? { existence: a.existence } : {}),
     });
   }
   return baseProjectDuration(entries);

@@ -4,7 +4,8 @@ import 'server-only';
 // whether or not the address has an account.
 import crypto from 'node:crypto';
 import { z } from 'zod';
-import { RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
+import { RateLimiterRes, type RateLimiterAbstract } from 'rate-limiter-flexible';
+import { createLimiter } from '@/lib/limits/rate-limiter';
 import { PasswordResetToken, User, sequelize } from '@/models';
 import { badRequest, notFound, tooMany } from '@/lib/errors';
 import { parseOrThrow } from '@/lib/validation/parse';
@@ -18,13 +19,15 @@ export const RESET_LINK_MINUTES = 60;
 export const NEUTRAL_RESET_REPLY =
   'If an Outturn account uses this address, a link to set a new password is on its way. It works once, for one hour.';
 
-// Kept on globalThis: Next.js may load this module in more than one bundle of one process.
-const store = globalThis as unknown as { outturnResetLimits?: [RateLimiterMemory, RateLimiterMemory] };
-store.outturnResetLimits ??= [
-  new RateLimiterMemory({ keyPrefix: 'reset-email', points: 5, duration: 60 * 60 }),
-  new RateLimiterMemory({ keyPrefix: 'reset-ip', points: 30, duration: 15 * 60 }),
-];
-const [perEmail, perAddress] = store.outturnResetLimits;
+// Shared by every web instance in queue mode (lib/limits/rate-limiter.ts). Kept on globalThis:
+// Next.js may load this module in more than one bundle of one process. Made at first use.
+type Limits = { perEmail: RateLimiterAbstract; perAddress: RateLimiterAbstract };
+const store = globalThis as unknown as { outturnResetLimits?: Limits };
+const limits = (): Limits =>
+  (store.outturnResetLimits ??= {
+    perEmail: createLimiter({ keyPrefix: 'reset-email', points: 5, duration: 60 * 60 }),
+    perAddress: createLimiter({ keyPrefix: 'reset-ip', points: 30, duration: 15 * 60 }),
+  });
 
 const requestSchema = z.object({ email: emailSchema });
 const resetSchema = z.object({ password: passwordSchema });
@@ -33,6 +36,7 @@ export const hashResetToken = (token: string) => crypto.createHash('sha256').upd
 
 /** Counts the request against both limits, whether or not the account exists. */
 async function consumeLimits(email: string, address: string) {
+  const { perEmail, perAddress } = limits();
   try {
     await Promise.all([perEmail.consume(email), perAddress.consume(address)]);
   } catch (e) {
@@ -61,7 +65,7 @@ export async function requestPasswordReset(input: unknown, address: string): Pro
  */
 export async function offerResetLink(email: string): Promise<void> {
   try {
-    await perEmail.consume(email);
+    await limits().perEmail.consume(email);
   } catch (e) {
     if (e instanceof RateLimiterRes) return;
     throw e;

@@ -8,8 +8,7 @@ import { parseOrThrow } from '@/lib/validation/parse';
 import { projectSchema, projectUpdateSchema } from '@/lib/validation/project';
 import { recordAudit } from './audit';
 import { assertWritable } from './write-access';
-import { baseEstimate } from '@/lib/registers/base-estimate';
-import { loadState } from './registers/state';
+import { baseEstimatesOf } from './registers/base-estimates';
 import type { ProjectView } from '@/lib/view-types/projects';
 
 export type { ProjectView };
@@ -60,11 +59,16 @@ export async function listProjectsWithEstimates(
   options: { includeArchived?: boolean } = {},
 ): Promise<ProjectListEntry[]> {
   const projects = await listProjects(actor, options);
-  const states = await Promise.all(projects.map((p) => loadState(p.id, actor.organizationId)));
-  return projects.map((p, i) => ({
+  // Two reads for the whole list (lines and activities, only what a base reads), not every
+  // register of every project.
+  const estimates = await baseEstimatesOf(
+    actor.organizationId,
+    projects.map((p) => p.id),
+  );
+  return projects.map((p) => ({
     ...p,
-    baseEstimate: baseEstimate(states[i].items, states[i].activities),
-    lineCount: states[i].items.length,
+    baseEstimate: estimates.get(p.id)?.baseEstimate ?? 0,
+    lineCount: estimates.get(p.id)?.lineCount ?? 0,
     latestRun: null,
   }));
 }

@@ -5,6 +5,8 @@
 //   validateModel(json)               → { ok, model } | { ok: false, issues: [{ path, message }] }
 //   simulateSync(model, options)      → SimulationResult           (one thread, no yielding)
 //   iterationsForPrecision(p, ε, c)   → iterations for a probability known to ±ε
+//   simulateBounded(model, options)   → SimulationResult in bounded memory; its parts:
+//     boundedChunks, firstPassPart, secondPassRequest, secondPassPart, finishBounded
 //
 // Model and result shapes: docs/model-format.md and docs/result-format.md.
 
@@ -26,6 +28,29 @@ export type { SimulationOptions, PrecisionGoal } from './core/options';
 export { firstIterationBlocks, type IterationBlock } from './core/first-iterations';
 export { BLOCK_SIZE } from './core/block';
 export { ENGINE_VERSION } from './core/version';
+
+// A run in bounded memory, split into parts that merge to the bit (./core/bounded).
+export { prepareRun, resolveRun, type PreparedRun } from './core/engine';
+export {
+  boundedChunks,
+  chunkIterations,
+  firstPassPart,
+  FirstPassFold,
+  SecondPassFold,
+  secondPassRequest,
+  secondPassPart,
+  finishBounded,
+  combineFirstParts,
+  FirstPartsGathering,
+  simulateBounded,
+  BOUNDED_FROM,
+  CHUNK_BLOCKS,
+  type FirstPassPart,
+  type FirstPassChunk,
+  type SecondPassRequest,
+  type SecondPassPart,
+  type SecondPassChunk,
+} from './core/bounded';
 
 // The schedule network outside a run: checks, one deterministic pass, and the passes themselves.
 export { buildNetwork, type Network } from './core/schedule/network';

@@ -6,7 +6,10 @@ export const SAMPLINGS = ['lhs', 'mc'] as const;
 export const RISK_VALUES = ['pre', 'post'] as const;
 
 export const MIN_ITERATIONS = 1_000;
-export const MAX_ITERATIONS = 1_000_000;
+/** Runs above 1,000,000 iterations run in bounded memory (the engine's BOUNDED_FROM). */
+export const MAX_ITERATIONS = 10_000_000;
+/** A run to a precision goal keeps every iteration in memory: its cap stays at 1,000,000. */
+export const MAX_PRECISION_ITERATIONS = 1_000_000;
 export const DEFAULT_ITERATIONS = 10_000;
 /** Seeds are positive 31-bit integers: easy to read aloud, to type and to store. */
 export const MAX_SEED = 2_147_483_646;
@@ -22,6 +25,13 @@ const iterations = z
   .min(MIN_ITERATIONS, { message: iterationsMessage })
   .max(MAX_ITERATIONS, { message: iterationsMessage });
 
+const precisionIterationsMessage = `Enter a whole number of iterations from ${MIN_ITERATIONS.toLocaleString('en')} to ${MAX_PRECISION_ITERATIONS.toLocaleString('en')} for a run to a precision goal.`;
+const precisionIterations = z
+  .number({ message: precisionIterationsMessage })
+  .int({ message: precisionIterationsMessage })
+  .min(MIN_ITERATIONS, { message: precisionIterationsMessage })
+  .max(MAX_PRECISION_ITERATIONS, { message: precisionIterationsMessage });
+
 const seedMessage = `The seed is a whole number from 1 to ${MAX_SEED.toLocaleString('en')}.`;
 
 export const precisionSchema = z.object({
@@ -29,7 +39,7 @@ export const precisionSchema = z.object({
     .number({ message: 'Enter the wanted precision of P80 in percent, from 0.1 to 10.' })
     .min(0.1, { message: 'The precision must be at least ±0.1 %.' })
     .max(10, { message: 'The precision must be at most ±10 %.' }),
-  maxIterations: iterations,
+  maxIterations: precisionIterations,
 });
 
 /** What a person (or a script) sends to start a run. */
@@ -66,6 +76,9 @@ export const runSettingsInputSchema = z
     precision: precisionSchema.nullable().optional(),
   })
   .superRefine((s, ctx) => {
+    if (s.precision && s.iterations > MAX_PRECISION_ITERATIONS) {
+      ctx.addIssue({ code: 'custom', path: ['iterations'], message: precisionIterationsMessage });
+    }
     if (s.precision && s.precision.maxIterations < s.iterations) {
       ctx.addIssue({
         code: 'custom',
@@ -118,6 +131,11 @@ export const runSettingsFormSchema = z
     maxIterations: iterations,
   })
   .superRefine((s, ctx) => {
+    if (s.mode === 'precision') {
+      for (const path of ['iterations', 'maxIterations'] as const)
+        if (s[path] > MAX_PRECISION_ITERATIONS)
+          ctx.addIssue({ code: 'custom', path: [path], message: precisionIterationsMessage });
+    }
     if (s.mode === 'precision' && s.maxIterations < s.iterations) {
       ctx.addIssue({
         code: 'custom',

@@ -1,4 +1,4 @@
-import { expect, test } from '@playwright/test';
+import { expect, test } from './fixtures';
 import { AuthPages } from './pages/auth';
 
 test('an owner sets a four-day week and imports holidays from a CSV file', async ({ page }) => {

@@ -1,4 +1,4 @@
-import { expect, test } from '@playwright/test';
+import { expect, test } from './fixtures';
 import { AuthPages, DEMO_PASSWORD, demoEmail } from './pages/auth';
 import { DriversPage } from './pages/drivers';
 import { OutcomePage } from './pages/outcome';

@@ -1,7 +1,8 @@
 // The grids as a spreadsheet user works them: one edit is one save, rows not saved survive a
 // reload, formatted figures paste, blocks copy, drop-down cells take typed text, and every
 // figure of the line items is in view at 1280 px.
-import { expect, test, type Page } from '@playwright/test';
+import type { Page } from '@playwright/test';
+import { expect, test } from './fixtures';
 import { AuthPages, DEMO_PASSWORD, demoEmail } from './pages/auth';
 import { newProject, RegisterPages } from './pages/registers';
 

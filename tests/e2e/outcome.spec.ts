@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
-import { expect, test, type Page } from '@playwright/test';
+import type { Page } from '@playwright/test';
+import { expect, test } from './fixtures';
 import { AuthPages, DEMO_PASSWORD, demoEmail } from './pages/auth';
 import { projectIdByCode } from './pages/runs';
 import { finishedRun, moneyValue, OutcomePage } from './pages/outcome';

@@ -1,4 +1,5 @@
-import { expect, test, type Page } from '@playwright/test';
+import type { Page } from '@playwright/test';
+import { expect, test } from './fixtures';
 import { AuthPages, DEMO_PASSWORD, demoEmail } from './pages/auth';
 import { QUAY_WALL } from '../fixtures/registers/quay-wall-v2';
 

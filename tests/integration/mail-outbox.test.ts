@@ -105,6 +105,24 @@ describe('the mail outbox', () => {
     expect(await mailTo(to)).toHaveLength(1);
   });
 
+  it('delivers each mail of a batch once when two senders (two web instances) work through it together', async () => {
+    const rows = await Promise.all(Array.from({ length: 12 }, () => futureRow()));
+    const ids = rows.map((r) => r.id);
+    // Each sender reads the same due rows, then claims them one by one: every claim is one
+    // conditional UPDATE, so a row goes to whichever sender's UPDATE the database runs first.
+    const reports = await Promise.all([
+      deliverPending({ ids, now: at(1) }),
+      deliverPending({ ids, now: at(1) }),
+    ]);
+    expect(reports[0].sent + reports[1].sent).toBe(rows.length);
+    expect(
+      await count('OutboundMessages', `id IN (${ids.join(',')}) AND status = 'sent' AND attempts = 1`),
+    ).toBe(rows.length);
+    for (const { to } of rows) await waitForMail(to);
+    await new Promise((r) => setTimeout(r, 500));
+    for (const { to } of rows) expect(await mailTo(to)).toHaveLength(1);
+  });
+
   it('writes the mail with the action: rolled back together, committed together', async () => {
     const data = {
       organizationName: 'Outbox Ltd',

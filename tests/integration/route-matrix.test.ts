@@ -24,6 +24,7 @@ const PUBLIC: Record<string, string> = {
   'POST /api/password-reset/[token]': 'the token in the e-mailed link is the credential',
   'POST /api/invitations/accept/[token]': 'the token in the invitation is the credential',
   'POST /api/webhooks/payments': 'signed by the payment service, not by a session',
+  'GET /api/health': 'for load balancers: says whether the instance can serve, nothing of any organisation',
 };
 
 type Route = { template: string; method: Method; action: Action | 'member' | 'public' };

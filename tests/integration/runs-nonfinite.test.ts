@@ -5,7 +5,7 @@ import { afterAll, describe, expect, it, vi } from 'vitest';
 import { newOrganisation } from './helpers/http';
 import { closeDb, rows } from './helpers/db';
 import { projectWithRegisters, FIXTURE_MODEL } from './runs-fixtures';
-import { schedule } from '@/lib/services/runs/runner';
+import { schedule } from '@/lib/services/runs/executor';
 import { isActive } from '@/lib/services/runs/queue';
 import { SimulationRun, sequelize } from '@/models';
 
@@ -48,7 +48,7 @@ describe('a run whose figures are not finite', () => {
       inputSnapshot: JSON.stringify(FIXTURE_MODEL),
       inputHash: '3'.repeat(64),
     });
-    schedule({ runId: run.id, organizationId });
+    await schedule({ runId: run.id, organizationId });
     for (let i = 0; i < 600 && isActive(run.id); i++)
       await new Promise((resolve) => setTimeout(resolve, 100));
     const [row] = await rows<{ status: string; failureReason: string | null; summary: unknown }>(

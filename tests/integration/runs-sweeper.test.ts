@@ -6,7 +6,7 @@ import { newOrganisation } from './helpers/http';
 import { closeDb, rows } from './helpers/db';
 import { projectWithRegisters, storedRunSettings } from './runs-fixtures';
 import { STALE_REASON, sweepStaleRuns } from '@/lib/services/runs/recover';
-import { schedule } from '@/lib/services/runs/runner';
+import { schedule } from '@/lib/services/runs/executor';
 import { isActive } from '@/lib/services/runs/queue';
 import { SimulationRun, sequelize } from '@/models';
 
@@ -68,7 +68,7 @@ describe('a run whose final write was lost', () => {
 
 /** Runs a snapshot through the server's runner in this process and returns its final row. */
 async function executeHere(runId: number, organizationId: number) {
-  schedule({ runId, organizationId });
+  await schedule({ runId, organizationId });
   for (let i = 0; i < 600 && isActive(runId); i++) await new Promise((resolve) => setTimeout(resolve, 100));
   return statusOf(runId);
 }

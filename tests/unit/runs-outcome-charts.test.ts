@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { dataAxis, placement, signedAxis, ticksOver } from '@/lib/runs/chart-scale';
 import { hexBins, quadrantShares, quadrantsFromProbabilities } from '@/lib/runs/density';
-import { monotoneTangents } from '@/lib/runs/curve-path';
+import { monotoneCubic } from '@/lib/brief/chart-geometry';
 
 describe('axis ticks', () => {
   it('steps by 1, 2 or 5 × 10^k and encloses the data', () => {
@@ -136,6 +136,15 @@ describe('quadrant shares around the targets', () => {
     expect(q.neither).toBeCloseTo(0.3, 12);
   });
 });
+
+/** The tangent dy/dx at each point, read back from the cubic segments' control points. */
+function monotoneTangents(points: { x: number; y: number }[]): number[] {
+  const { segments } = monotoneCubic(points);
+  const m = segments.map((s, k) => (s.c1.y - points[k].y) / ((s.to.x - points[k].x) / 3));
+  const last = segments[segments.length - 1];
+  m.push((last.to.y - last.c2.y) / ((last.to.x - points[points.length - 2].x) / 3));
+  return m;
+}
 
 describe('the smooth S-curve', () => {
   it('keeps Fritsch–Carlson tangents at 0 on a flat stretch and never against the data', () => {

@@ -1,6 +1,7 @@
 import { after, NextResponse } from 'next/server';
 import { handle, readJson } from '@/lib/http/route';
-import { describeError } from '@/lib/http/log-error';
+import { logUnexpected } from '@/lib/http/log-error';
+import { requestIdFrom, requestLogger } from '@/lib/log';
 import { clientAddress } from '@/lib/auth/client-address';
 import {
   NEUTRAL_RESET_REPLY,
@@ -17,7 +18,7 @@ export const POST = handle(async (request: Request) => {
   );
   after(() =>
     sendResetLinkIfAccount(email).catch((error: unknown) =>
-      console.error('Sending a reset link failed:', describeError(error)),
+      logUnexpected(requestLogger(requestIdFrom(request.headers)), 'Sending a reset link failed', error),
     ),
   );
   return NextResponse.json({ message: NEUTRAL_RESET_REPLY }, { status: 202 });

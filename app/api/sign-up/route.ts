@@ -1,6 +1,7 @@
 import { after, NextResponse } from 'next/server';
 import { handle, readJson } from '@/lib/http/route';
-import { describeError } from '@/lib/http/log-error';
+import { logUnexpected } from '@/lib/http/log-error';
+import { requestIdFrom, requestLogger } from '@/lib/log';
 import { SIGN_UP_REPLY, signUp } from '@/lib/services/accounts';
 import { offerResetLink } from '@/lib/services/password-reset';
 
@@ -11,7 +12,11 @@ export const POST = handle(async (request: Request) => {
   if (!outcome.created) {
     after(() =>
       offerResetLink(outcome.email).catch((error: unknown) =>
-        console.error('Mailing an existing account failed:', describeError(error)),
+        logUnexpected(
+          requestLogger(requestIdFrom(request.headers)),
+          'Mailing an existing account failed',
+          error,
+        ),
       ),
     );
   }

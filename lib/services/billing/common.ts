@@ -7,6 +7,10 @@ import { can } from '@/lib/auth/roles';
 import { badGateway, forbidden } from '@/lib/errors';
 import { invoiceFields } from '@/lib/billing/mirror';
 import type { InvoiceView } from '@/lib/view-types/billing';
+import { componentLogger } from '@/lib/log';
+
+/** The log of calls to the payment service. */
+export const paymentsLog = componentLogger('payments');
 
 export const iso = (d: Date | null | undefined) => (d ? d.toISOString() : null);
 
@@ -39,7 +43,7 @@ export async function callPayments<T>(what: string, fn: () => Promise<T>): Promi
     return await fn();
   } catch (error) {
     const message = (error as { message?: string }).message ?? 'no answer';
-    console.error(`payment service: ${what} failed: ${message}`);
+    paymentsLog.error({ call: what, reason: message }, `payment service: ${what} failed`);
     throw badGateway(
       `The payment service could not ${what} just now. Nothing was changed; try again in a minute.`,
     );

@@ -10,7 +10,7 @@ import { PLAN_NAME, SEAT_PRICE_ID } from '@/lib/billing/plan';
 import { accessOf } from '@/lib/billing/access';
 import type { BillingOverview, InvoiceDetail } from '@/lib/view-types/billing';
 import { seatUsage } from '../seats';
-import { assertMay, isLive, iso, toInvoiceView } from './common';
+import { assertMay, isLive, iso, paymentsLog, toInvoiceView } from './common';
 
 type Price = { unitAmount: number | null; currency: string | null };
 let listPrice: Promise<Price> | undefined;
@@ -26,7 +26,7 @@ async function seatPrice(subscription: Subscription | null): Promise<Price> {
     return await listPrice;
   } catch (error) {
     listPrice = undefined;
-    console.error(`payment service: seat price read failed: ${(error as Error).message}`);
+    paymentsLog.error({ reason: (error as Error).message }, 'payment service: seat price read failed');
     return { unitAmount: null, currency: null };
   }
 }
@@ -75,7 +75,10 @@ export async function getInvoice(actor: Actor, invoiceId: number): Promise<Invoi
     const remote = await stripe().invoices.retrieve(invoice.stripeInvoiceId);
     lines = remote.lines.data.map((l) => ({ description: l.description ?? '', amount: l.amount }));
   } catch (error) {
-    console.error(`payment service: invoice read failed: ${(error as Error).message}`);
+    paymentsLog.error(
+      { organizationId: actor.organizationId, invoiceId, reason: (error as Error).message },
+      'payment service: invoice read failed',
+    );
     lines = null;
   }
   return { ...toInvoiceView(invoice), lines };

@@ -14,7 +14,7 @@ import { customerIdOf, subscriptionFields } from '@/lib/billing/mirror';
 import type { SeatChangePreview } from '@/lib/view-types/billing';
 import { recordAudit } from '../audit';
 import { seatUsage } from '../seats';
-import { assertMay, callPayments, isLive, iso } from './common';
+import { assertMay, callPayments, isLive, iso, paymentsLog } from './common';
 
 const trialFields = () => ({
   status: 'trialing' as const,
@@ -77,7 +77,10 @@ export async function startCheckout(actor: Actor, input: unknown): Promise<{ url
     }),
   );
   if (!session.url) {
-    console.error(`payment service: checkout session ${session.id} has no url`);
+    paymentsLog.error(
+      { organizationId: actor.organizationId, session: session.id },
+      'payment service: checkout session has no url',
+    );
     throw badGateway(
       'The payment service gave no checkout page. Nothing was charged; try again in a minute.',
     );
@@ -101,7 +104,10 @@ async function liveSubscription(actor: Actor) {
   );
   const item = remote.items.data[0];
   if (!item) {
-    console.error(`payment service: subscription ${remote.id} has no seat item`);
+    paymentsLog.error(
+      { organizationId: actor.organizationId, subscription: remote.id },
+      'payment service: subscription has no seat item',
+    );
     throw badGateway(
       'The payment service holds no seats for this subscription. Write to us to have it fixed.',
     );

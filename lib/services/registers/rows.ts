@@ -66,16 +66,30 @@ export function specOf(parts: DistParts): DistSpec {
 }
 
 /** The basis a line item is read as: a lump sum, or a rate per day of an activity or of the project. */
-function basisOf(r: CostItem, perDay: boolean): LineItemData['basis'] {
+function basisOf(r: Pick<CostItem, 'span'>, perDay: boolean): LineItemData['basis'] {
   if (!perDay) return 'lump-sum';
   return r.span === 'project' ? 'per-project-day' : 'per-day';
 }
 
-export function itemRow(r: CostItem, activityCode: Map<number, string>): LineItemRow {
+/** The columns of a line item that its base amount depends on. */
+export type ItemBaseColumns = Pick<CostItem, 'base' | 'dist' | 'ratePerDay' | 'activityId' | 'span'>;
+
+/** The cells of a line's row that its base amount is read from (the projects list reads only these). */
+export function itemBaseCells(r: ItemBaseColumns, activityCode: ReadonlyMap<number, string>) {
   const rate = json<DistSpec | number | null>(r.ratePerDay);
   const perDay = rate !== null && rate !== undefined;
   const spec: DistSpec | null = perDay ? numberOrSpec(rate) : json<DistSpec | null>(r.dist);
   const basis = basisOf(r, perDay);
+  return {
+    basis,
+    activityCode: basis === 'per-day' && r.activityId ? (activityCode.get(r.activityId) ?? null) : null,
+    ...cells(spec),
+    base: r.base ?? null,
+  };
+}
+
+export function itemRow(r: CostItem, activityCode: Map<number, string>): LineItemRow {
+  const { basis, activityCode: linked, base, ...dist } = itemBaseCells(r, activityCode);
   return {
     id: r.id,
     version: r.version,
@@ -83,9 +97,9 @@ export function itemRow(r: CostItem, activityCode: Map<number, string>): LineIte
     code: r.code,
     description: r.description,
     basis,
-    activityCode: basis === 'per-day' && r.activityId ? (activityCode.get(r.activityId) ?? null) : null,
-    ...cells(spec),
-    base: r.base ?? null,
+    activityCode: linked,
+    ...dist,
+    base,
     ownerName: r.ownerName ?? null,
     notes: r.notes ?? null,
   };
@@ -202,19 +216,32 @@ export function riskAttributes(d: RiskData) {
   };
 }
 
-export function activityRow(r: Activity): ActivityRow {
+/** The columns of an activity that the project's base durations depend on. */
+export type ActivityBaseColumns = Pick<Activity, 'code' | 'duration' | 'predecessors' | 'existence'>;
+
+/** The cells of an activity's row that base durations are read from (the projects list reads only these). */
+export function activityBaseCells(r: ActivityBaseColumns) {
   return {
-    id: r.id,
-    version: r.version,
-    sortOrder: r.sortOrder,
     code: r.code,
-    name: r.name,
     ...cells(json(r.duration)),
     predecessors: (json<PredecessorLink[] | null>(r.predecessors) ?? []).map((p) =>
       p.type && p.type !== 'FS'
         ? { code: p.code, type: p.type, lag: p.lag ?? 0 }
         : { code: p.code, lag: p.lag ?? 0 },
     ),
+  };
+}
+
+export function activityRow(r: Activity): ActivityRow {
+  const { code, predecessors, ...duration } = activityBaseCells(r);
+  return {
+    id: r.id,
+    version: r.version,
+    sortOrder: r.sortOrder,
+    code,
+    name: r.name,
+    ...duration,
+    predecessors,
     existence: r.existence ?? null,
   } as ActivityRow;
 }

@@ -45,12 +45,15 @@ export async function loadState(
   // A read of one register loads only it (and the activities its rows name).
   const want = (k: RegisterKind) =>
     !only || only === k || (k === 'activities' && only !== 'correlations' && only !== 'drivers');
+  // Plain rows (raw), not model instances: they become register rows at once below, and building
+  // an instance per row cost more than the read itself.
+  const read = { where, order: ORDER, transaction, raw: true };
   const [activities, items, risks, correlations, drivers] = await Promise.all([
-    want('activities') ? Activity.findAll({ where, order: ORDER, transaction }) : [],
-    want('items') ? CostItem.findAll({ where, order: ORDER, transaction }) : [],
-    want('risks') ? RiskEvent.findAll({ where, order: ORDER, transaction }) : [],
-    want('correlations') ? Correlation.findAll({ where, order: [['id', 'ASC']], transaction }) : [],
-    want('drivers') ? RiskDriver.findAll({ where, order: ORDER, transaction }) : [],
+    want('activities') ? Activity.findAll(read) : [],
+    want('items') ? CostItem.findAll(read) : [],
+    want('risks') ? RiskEvent.findAll(read) : [],
+    want('correlations') ? Correlation.findAll({ ...read, order: [['id', 'ASC']] }) : [],
+    want('drivers') ? RiskDriver.findAll(read) : [],
   ]);
   const activityCodeById = new Map(activities.map((a) => [a.id, a.code]));
   return {

@@ -6,6 +6,9 @@ import 'server-only';
  * What is queued is also in the database (status 'queued'), so a restart can pick it up again.
  */
 
+import { runLogger } from '@/lib/log';
+import { logUnexpected } from '@/lib/http/log-error';
+
 export const MAX_RUNNING_PER_ORG = 2;
 
 export type Job = { runId: number; organizationId: number };
@@ -44,7 +47,7 @@ function pump() {
     state.waiting.splice(i, 1);
     const controller = new AbortController();
     const settled = execute(job, controller.signal)
-      .catch((e) => console.error(`run ${job.runId}:`, e))
+      .catch((e) => logUnexpected(runLogger(job.runId), 'Run stopped unexpectedly', e))
       .finally(() => {
         state.active.delete(job.runId);
         pump();
@@ -78,4 +81,9 @@ export async function abortActive(runId: number, waitMs = 10_000): Promise<boole
 
 export function isActive(runId: number): boolean {
   return state.active.has(runId);
+}
+
+/** How many runs wait and how many execute in this process (read-only, for the health check). */
+export function queueCounts(): { waiting: number; active: number } {
+  return { waiting: state.waiting.length, active: state.active.size };
 }

@@ -1,14 +1,18 @@
 import 'server-only';
 /**
- * At server start, no run can still be executing: a run left 'running' was interrupted by the
- * restart. It is marked failed with the reason, never left running for ever. Runs still
- * 'queued' never started; they go back into this process's queue.
+ * Embedded, at server start no run can still be executing: a run left 'running' was interrupted
+ * by the restart. It is marked failed with the reason, never left running for ever. In queue
+ * mode the workers own running runs (a dead worker's job is handed on by the queue), so the
+ * server leaves them alone. Runs still 'queued' go (again) to the executor: adding a run twice
+ * is one job, and a queue that lost its jobs gets them back.
  */
 
+import { componentLogger } from '@/lib/log';
+import { logUnexpected } from '@/lib/http/log-error';
 import { Op, type WhereOptions } from 'sequelize';
 import { SimulationRun } from '@/models';
-import { isActive } from './queue';
-import { notifyFinished, schedule } from './runner';
+import { runExecutor } from './executor';
+import { notifyFinished } from './runner';
 
 export const INTERRUPTED_REASON =
   'The server restarted while this run was in progress, so it did not finish. Start it again: its settings and seed are kept on this page.';
@@ -17,7 +21,10 @@ export async function recoverInterruptedRuns(
   options: { organizationId?: number; resumeQueued?: boolean } = {},
 ): Promise<{ failed: number; resumed: number }> {
   const scope: WhereOptions = options.organizationId ? { organizationId: options.organizationId } : {};
-  const running = await SimulationRun.findAll({ where: { ...scope, status: 'running' }, attributes: ['id'] });
+  const executor = runExecutor();
+  const running = executor.executesHere
+    ? await SimulationRun.findAll({ where: { ...scope, status: 'running' }, attributes: ['id'] })
+    : [];
   const ids = running.map((r) => r.id);
   const [failed] = ids.length
     ? await SimulationRun.update(
@@ -34,7 +41,7 @@ export async function recoverInterruptedRuns(
       attributes: ['id', 'organizationId'],
       order: [['id', 'ASC']],
     });
-    for (const run of queued) schedule({ runId: run.id, organizationId: run.organizationId });
+    for (const run of queued) await executor.schedule({ runId: run.id, organizationId: run.organizationId });
     resumed = queued.length;
   }
   return { failed, resumed };
@@ -47,8 +54,9 @@ export const STALE_AFTER_MS = 10 * 60_000;
 export const SWEEP_EVERY_MS = 60_000;
 
 /**
- * Ends runs left 'running' that no engine of this process is executing and whose row has not
- * been written for STALE_AFTER_MS (a final write lost to a database outage leaves exactly that).
+ * Ends runs left 'running' that no executor holds (not in this process's queue, or no live job
+ * in queue mode) and whose row has not been written for STALE_AFTER_MS (a final write lost to a
+ * database outage leaves exactly that).
  */
 export async function sweepStaleRuns(
   options: { organizationId?: number; staleAfterMs?: number } = {},
@@ -59,7 +67,9 @@ export async function sweepStaleRuns(
     where: { ...scope, status: 'running', updatedAt: { [Op.lt]: before } },
     attributes: ['id'],
   });
-  const ids = stale.map((r) => r.id).filter((id) => !isActive(id));
+  const executor = runExecutor();
+  const ids: number[] = [];
+  for (const r of stale) if (!(await executor.isLive(r.id))) ids.push(r.id);
   const [failed] = ids.length
     ? await SimulationRun.update(
         { status: 'failed', failureReason: STALE_REASON, finishedAt: new Date() },
@@ -75,7 +85,7 @@ export function startRunSweeper() {
   const holder = globalThis as unknown as { outturnRunSweeper?: NodeJS.Timeout };
   if (holder.outturnRunSweeper) return;
   holder.outturnRunSweeper = setInterval(() => {
-    sweepStaleRuns().catch((e) => console.error('Stale runs not swept:', e));
+    sweepStaleRuns().catch((e) => logUnexpected(componentLogger('runs'), 'Stale runs not swept', e));
   }, SWEEP_EVERY_MS);
   holder.outturnRunSweeper.unref();
 }

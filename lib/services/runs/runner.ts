@@ -1,29 +1,35 @@
 import 'server-only';
 /**
- * Executes queued runs in the server process, off the request path: the engine's worker pool
- * does the sampling, this module only moves the run through its states and writes progress
- * (at most every PROGRESS_INTERVAL_MS) and the outcome to the database.
+ * Executes a run, off the request path, in the server process (embedded) or in a queue worker:
+ * the engine's worker pool does the sampling, this module only moves the run through its
+ * states and writes progress (at most every PROGRESS_INTERVAL_MS) and the outcome to the
+ * database.
  */
 
+import { componentLogger, runLogger } from '@/lib/log';
+import { logUnexpected } from '@/lib/http/log-error';
 import { availableParallelism } from 'node:os';
-import { Op, type InferAttributes } from 'sequelize';
+import type { InferAttributes } from 'sequelize';
 import { SimulationCancelledError, type SimulationResult } from '@/lib/sim';
 import { runSimulation } from '@/lib/sim/runtime';
-import { Project, SimulationRun, User } from '@/models';
-import type { RunSummary } from '@/models/simulation-run';
+import { Project, SimulationRun, User, sequelize } from '@/models';
+import type { ProgressMarks, RunSummary } from '@/models/simulation-run';
+import type { RunSettings } from '@/lib/validation/runs';
 import { formatMoney } from '@/lib/runs/format';
-import { enqueue, setExecutor, type Job } from './queue';
 import { CURRENT_ENGINE } from './engine-match';
 import { sampleOfRun } from './sample';
 import { nonFiniteReason } from './finite';
-import { forgetProgress, noteProgress } from './progress-rate';
 
 export const PROGRESS_INTERVAL_MS = 250;
 
-/** Worker threads per run: half the machine (two runs may go at once), at least two. */
+/**
+ * Worker threads per run: OUTTURN_RUN_THREADS, else one in a queue worker (a machine scales by
+ * running more workers) and half the machine in the server (two runs may go at once), at least two.
+ */
 function threadsPerRun(): number {
   const configured = Number(process.env.OUTTURN_RUN_THREADS);
   if (Number.isInteger(configured) && configured >= 1) return configured;
+  if (process.env.OUTTURN_PROCESS_ROLE === 'worker') return 1;
   return Math.max(2, Math.floor(availableParallelism() / 2));
 }
 
@@ -42,29 +48,45 @@ export function summarize(result: SimulationResult, currency: string | null): Ru
   };
 }
 
-/** Progress writes, never more often than the interval, never after the run has left 'running'. */
-function progressWriter(runId: number, cap: number | null) {
+/**
+ * Progress writes, never more often than the interval, only while the row still names this
+ * attempt. A write that finds the row taken (cancelled from a web instance, or handed to another
+ * attempt) calls `lost`, so the engine stops at once rather than running on for nothing.
+ */
+function progressWriter(runId: number, token: string, planned: number, cap: number | null, lost: () => void) {
   let last = 0;
   let pending: Promise<unknown> = Promise.resolve();
-  let latest: { done: number; total: number } | null = null;
+  // The marks of the time left count the share of the work done in planned iterations (a bounded
+  // run's two passes would otherwise count twice); with a precision goal, against the cap.
+  const share = (done: number, total: number) => Math.min(1, done / (cap ?? total));
+  let latest: { done: number; total: number; iterations?: number } | null = null;
+  let first: ProgressMarks['first'] | null = null;
   let writing = false;
   const write = () => {
-    if (!latest || writing) return;
-    const { done, total } = latest;
+    if (!latest || !first || writing) return;
+    const { done, total, iterations } = latest;
     latest = null;
     writing = true;
     last = Date.now();
     pending = SimulationRun.update(
-      // With a precision goal the rounds grow as needed, so progress is measured against the cap.
-      { progress: Math.min(1, done / (cap ?? total)), iterationsDone: done },
-      { where: { id: runId, status: 'running' } },
+      {
+        // With a precision goal the rounds grow as needed, so progress is measured against the cap.
+        // A bounded run's work is two passes over its iterations: `iterations` counts them once.
+        progress: share(done, total),
+        iterationsDone: iterations ?? done,
+        progressMarks: { first, latest: { at: last, done: share(done, total) * planned } },
+      },
+      { where: { id: runId, status: 'running', attemptToken: token } },
     )
-      .catch((e) => console.error(`run ${runId}: progress not written`, e))
+      .then(([written]) => {
+        if (!written) lost();
+      })
+      .catch((e) => logUnexpected(runLogger(runId), 'Progress not written', e))
       .finally(() => (writing = false));
   };
   return {
-    report(p: { done: number; total: number }) {
-      noteProgress(runId, p.done);
+    report(p: { done: number; total: number; iterations?: number }) {
+      first ??= { at: Date.now(), done: share(p.done, p.total) * planned };
       latest = p;
       if (Date.now() - last >= PROGRESS_INTERVAL_MS) write();
     },
@@ -76,20 +98,20 @@ function progressWriter(runId: number, cap: number | null) {
 /** Waits between tries of the final write: a database that blinks must not leave a run 'running'. */
 export const FINAL_WRITE_DELAYS_MS = [500, 1000, 2000, 4000, 8000];
 
-async function withRetries<T>(what: string, write: () => Promise<T>): Promise<T> {
+export async function withRetries<T>(what: string, write: () => Promise<T>): Promise<T> {
   for (let attempt = 0; ; attempt++) {
     try {
       return await write();
     } catch (e) {
       const delay = FINAL_WRITE_DELAYS_MS[attempt];
       if (delay === undefined) throw e;
-      console.error(`${what} not written, trying again in ${delay} ms`, e);
+      logUnexpected(componentLogger('runs'), `${what} not written, trying again in ${delay} ms`, e);
       await new Promise((resolve) => setTimeout(resolve, delay));
     }
   }
 }
 
-const reasonOf = (e: unknown) =>
+export const reasonOf = (e: unknown) =>
   e instanceof Error && e.message ? e.message : 'The engine stopped with an unexpected error.';
 
 /** Queues the "run finished" mail to whoever started the run. */
@@ -132,34 +154,122 @@ export async function notifyFinished(runId: number) {
     );
   } catch (e) {
     // A mail that cannot be queued must not change the run's outcome.
-    console.error(`run ${runId}: finish notice not queued`, e);
+    logUnexpected(runLogger(runId), 'Finish notice not queued', e);
   }
 }
 
-async function execute(job: Job, signal: AbortSignal): Promise<void> {
-  const now = new Date();
-  // Only a run still queued starts: a cancel may have come first.
-  const [started] = await SimulationRun.update(
-    { status: 'running', startedAt: now, progress: 0, iterationsDone: 0, ...CURRENT_ENGINE },
-    { where: { id: job.runId, status: 'queued' } },
+/**
+ * The final write of an attempt: made only while the row is 'running' and names this attempt, so
+ * it happens once. When every try fails, the stale-run sweeper (recover.ts) ends the run.
+ */
+export async function writeOutcome(
+  runId: number,
+  token: string,
+  values: Partial<InferAttributes<SimulationRun>>,
+): Promise<void> {
+  await withRetries(`run ${runId}: outcome`, () =>
+    SimulationRun.update(
+      { ...values, finishedAt: new Date(), progressMarks: null },
+      { where: { id: runId, status: 'running', attemptToken: token } },
+    ),
+  ).catch((e) => logUnexpected(runLogger(runId), 'Outcome not written', e));
+}
+
+/** The row of a run that succeeded: refused (thrown) when a figure is not a number. */
+export async function succeeded(
+  snapshot: unknown,
+  s: RunSettings,
+  result: SimulationResult,
+  currency: string | null,
+): Promise<Partial<InferAttributes<SimulationRun>>> {
+  const unusable = nonFiniteReason(result);
+  if (unusable) throw new Error(unusable);
+  // The chart sample is computed here, where the run executes, never by the web tier.
+  const sample = await sampleOfRun(snapshot, {
+    iterations: result.iterations,
+    seed: s.seed,
+    sampling: s.sampling,
+    ...CURRENT_ENGINE,
+  });
+  return {
+    status: 'succeeded',
+    progress: 1,
+    iterationsDone: result.iterations,
+    result: JSON.stringify(result),
+    resultSample: JSON.stringify(sample),
+    summary: summarize(result, currency),
+  };
+}
+
+/** What a claim of a run found: started (with this attempt's token), or why not. */
+export type Claim =
+  | { kind: 'started'; token: string }
+  /** Not queued any more (cancelled first, or finished by another attempt): nothing to do. */
+  | { kind: 'skip' }
+  /** The organisation already runs its limit: try again later. */
+  | { kind: 'busy' }
+  /** The claim ended the run itself (it failed too often): only the mail is left. */
+  | { kind: 'ended' };
+
+export type Attempt = {
+  /** Takes the run from 'queued' to 'running' for this attempt, or says why not. */
+  claim: () => Promise<Claim>;
+  signal: AbortSignal;
+  /** True when the abort means "stop and give the run back" (shutdown), not "cancel". */
+  handingBack?: () => boolean;
+  /** Each progress report, besides the database (a queue job reports to BullMQ too). */
+  onProgress?: (progress: number) => void;
+};
+
+/** How an attempt ended: the run's outcome was written, or the run was left to someone else. */
+export type AttemptOutcome = 'finished' | 'skipped' | 'busy' | 'handed-back';
+
+/** Puts a run that this attempt was executing back in the queue, as if it had never started. */
+async function handBack(runId: number, token: string) {
+  await withRetries(`run ${runId}: hand-back`, () =>
+    SimulationRun.update(
+      {
+        status: 'queued',
+        startedAt: null,
+        progress: 0,
+        iterationsDone: 0,
+        progressMarks: null,
+        attemptToken: null,
+        attempts: sequelize.literal('GREATEST(attempts, 1) - 1'),
+      },
+      { where: { id: runId, status: 'running', attemptToken: token } },
+    ),
   );
-  if (!started) return;
-  const run = await SimulationRun.findByPk(job.runId);
-  if (!run) return;
+}
+
+/**
+ * Executes one attempt of a run: claims it, runs the engine, computes the chart sample and writes
+ * the outcome once, on the condition that the row still names this attempt. The same function
+ * serves the server's in-process queue and the queue workers.
+ */
+export async function executeRun(runId: number, attempt: Attempt): Promise<AttemptOutcome> {
+  const claim = await attempt.claim();
+  if (claim.kind === 'skip') return 'skipped';
+  if (claim.kind === 'busy') return 'busy';
+  if (claim.kind === 'ended') {
+    await notifyFinished(runId);
+    return 'finished';
+  }
+  const { token } = claim;
+  const { signal } = attempt;
+  const run = await SimulationRun.findByPk(runId);
+  if (!run) return 'skipped';
   const project = await Project.findByPk(run.projectId, { attributes: ['currency'] });
   const snapshot = JSON.parse(run.inputSnapshot);
   const s = run.settings;
-  const progress = progressWriter(run.id, s.precision?.maxIterations ?? null);
+  // A row taken from this attempt stops the engine as a cancel does; the outcome is not written.
+  const lost = new AbortController();
+  const stop = AbortSignal.any([signal, lost.signal]);
+  const cap = s.precision?.maxIterations ?? null;
+  const progress = progressWriter(run.id, token, cap ?? s.iterations, cap, () => lost.abort());
   const finish = async (values: Partial<InferAttributes<SimulationRun>>) => {
-    forgetProgress(run.id);
     await progress.settle();
-    // When every try fails, the stale-run sweeper (recover.ts) ends the run with a reason.
-    await withRetries(`run ${run.id}: outcome`, () =>
-      SimulationRun.update(
-        { ...values, finishedAt: new Date() },
-        { where: { id: run.id, status: { [Op.in]: ['running', 'queued'] } } },
-      ),
-    ).catch((e) => console.error(`run ${run.id}: outcome not written`, e));
+    await writeOutcome(run.id, token, values);
   };
   try {
     const result = await runSimulation(snapshot, {
@@ -170,40 +280,27 @@ async function execute(job: Job, signal: AbortSignal): Promise<void> {
         ? { relative: s.precision.relativePercent / 100, maxIterations: s.precision.maxIterations }
         : undefined,
       threads: threadsPerRun(),
-      signal,
-      onProgress: (p) => progress.report(p),
+      signal: stop,
+      onProgress: (p) => {
+        progress.report(p);
+        attempt.onProgress?.(Math.min(1, p.done / (s.precision?.maxIterations ?? p.total)));
+      },
     });
-    if (signal.aborted) throw new SimulationCancelledError();
-    const unusable = nonFiniteReason(result);
-    if (unusable) throw new Error(unusable);
-    const sample = await sampleOfRun(snapshot, {
-      iterations: result.iterations,
-      seed: s.seed,
-      sampling: s.sampling,
-      ...CURRENT_ENGINE,
-    });
-    await finish({
-      status: 'succeeded',
-      progress: 1,
-      iterationsDone: result.iterations,
-      result: JSON.stringify(result),
-      resultSample: JSON.stringify(sample),
-      summary: summarize(result, project?.currency ?? null),
-    });
+    if (stop.aborted) throw new SimulationCancelledError();
+    await finish(await succeeded(snapshot, s, result, project?.currency ?? null));
   } catch (e) {
-    if (signal.aborted || e instanceof SimulationCancelledError) {
+    if (stop.aborted || e instanceof SimulationCancelledError) {
+      if (signal.aborted && attempt.handingBack?.()) {
+        await progress.settle();
+        await handBack(run.id, token);
+        return 'handed-back';
+      }
       await finish({ status: 'cancelled', failureReason: null });
     } else {
-      console.error(`run ${run.id} failed:`, e);
+      logUnexpected(runLogger(run.id), 'Run failed', e);
       await finish({ status: 'failed', failureReason: reasonOf(e) });
     }
   }
   await notifyFinished(run.id);
-}
-
-setExecutor(execute);
-
-/** Hands a queued run to the queue of this server process. */
-export function schedule(job: Job) {
-  enqueue(job);
+  return 'finished';
 }

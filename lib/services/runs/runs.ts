@@ -19,8 +19,7 @@ import { exportModelFile } from '../model-file';
 import { jointConfidenceOf } from '../organization-settings';
 import { findProject } from '../projects';
 import { assertWritable } from '../write-access';
-import { abortActive, dequeue, isActive } from './queue';
-import { schedule } from './runner';
+import { runExecutor } from './executor';
 import type { RunSample } from './sample';
 import { toRunView, type RunView } from './view';
 
@@ -44,6 +43,7 @@ const LIST_ATTRIBUTES = [
   'engineVersion',
   'modelNotices',
   'blockSize',
+  'progressMarks',
   'startedAt',
   'finishedAt',
   'createdAt',
@@ -203,23 +203,24 @@ export async function startRun(
     );
     return created;
   });
-  schedule({ runId: run.id, organizationId: actor.organizationId });
+  await runExecutor().schedule({ runId: run.id, organizationId: actor.organizationId });
   return { ...(await viewOf(await findRun(actor, project.id, run.id))), notices };
 }
 
 export async function listRuns(actor: Actor, projectId: number, { limit = 100 } = {}): Promise<RunView[]> {
   assertMay(actor, 'run:read');
   const project = await findProject(actor, projectId);
-  const [runs, positions] = await Promise.all([
-    SimulationRun.findAll({
-      where: { projectId: project.id, organizationId: actor.organizationId },
-      attributes: [...LIST_ATTRIBUTES],
-      include: [withStarter],
-      order: [['id', 'DESC']],
-      limit,
-    }),
-    queuePositions(actor.organizationId),
-  ]);
+  const runs = await SimulationRun.findAll({
+    where: { projectId: project.id, organizationId: actor.organizationId },
+    attributes: [...LIST_ATTRIBUTES],
+    include: [withStarter],
+    order: [['id', 'DESC']],
+    limit,
+  });
+  // Places in the queue only matter to queued runs: most lists have none, and skip the read.
+  const positions = runs.some((r) => r.status === 'queued')
+    ? await queuePositions(actor.organizationId)
+    : new Map<number, number>();
   return runs.map((r) => toRunView(r, positions.get(r.id) ?? null));
 }
 
@@ -286,11 +287,11 @@ export async function cancelRun(actor: Actor, projectId: number, runId: number):
       status: run.status,
     });
   }
-  dequeue(run.id);
-  if (isActive(run.id)) await abortActive(run.id);
+  // Embedded, the engine has stopped and its runner marked the run when this returns; in queue
+  // mode the worker hears of it, and the row is marked here (its runner's writes then miss).
+  await runExecutor().stop(run.id);
   await sequelize.transaction(async (transaction) => {
-    // A queued run, or one this process no longer executes, is cancelled here; an active one
-    // was marked by its runner when the engine stopped.
+    // A queued run, or one no engine executes any more, is cancelled here.
     await SimulationRun.update(
       { status: 'cancelled', finishedAt: new Date() },
       { where: { id: run.id, status: { [Op.in]: ['queued', 'running'] } }, transaction },

@@ -15,7 +15,7 @@ export function toRunView(run: Row, queuePosition: number | null = null, now = D
   const p = run.progress;
   const settings = run.settings;
   const planned = settings.precision ? settings.precision.maxIterations : settings.iterations;
-  const msLeft = run.status === 'running' && p < 1 ? msLeftOf(run.id, planned, now) : null;
+  const msLeft = run.status === 'running' && p < 1 ? msLeftOf(run.progressMarks, planned, now) : null;
   return {
     id: run.id,
     projectId: run.projectId,

@@ -76,7 +76,11 @@ export function rankedTotalsOf(
   };
 }
 
-function achievedCorrelations(plan: Plan, blocks: BlockSummary[], n: number): AchievedCorrelation[] {
+export function achievedCorrelations(
+  plan: Plan,
+  blocks: Pick<BlockSummary, 'pairSums'>[],
+  n: number,
+): AchievedCorrelation[] {
   return plan.correlations.map((c, k) => {
     if (c.va < 0) return { a: c.a, b: c.b, target: c.target, used: c.used, achieved: null };
     let sa = 0;
@@ -153,11 +157,7 @@ export function rollUpTotals(plan: Plan, blocks: BlockSummary[], totals: RankedT
     };
   }
 
-  // Criticality index.
-  const critical = new Float64Array(plan.activities.length);
-  for (const b of blocks) for (let a = 0; a < critical.length; a++) critical[a] += b.critical[a];
-  const criticality: Record<string, number> = {};
-  plan.activities.forEach((a, i) => (criticality[a.id] = critical[i] / n));
+  const { critical, criticality } = criticalityOf(plan, blocks, n);
 
   // The tornado's swing, and the schedule sensitivity index.
   const swing = swingOf(plan, blocks);
@@ -203,20 +203,7 @@ export function rollUp(
   // Tornado: rank correlation, share, swing, and the schedule sensitivity index.
   const cross = second.map((s) => s.cross);
   const rho = rankCorrelations(plan.sensitivity, blocks, cross, totals.costRanks, totals.durationRanks);
-  const pick = (which: 'cost' | 'duration'): SensitivityEntry[] => {
-    const idx = plan.sensitivity.map((s, i) => (s[which] ? i : -1)).filter((i) => i >= 0);
-    const byId = new Map(idx.map((i) => [plan.sensitivity[i].id, i]));
-    return tornado(
-      idx.map((i) => plan.sensitivity[i].id),
-      idx.map((i) => rho[which][i]),
-    ).map((e) => {
-      const i = byId.get(e.id)!;
-      const input = plan.sensitivity[i];
-      const entry: SensitivityEntry = { ...e, kind: input.kind, swing: swing[which][i] };
-      if (which === 'duration' && input.activity >= 0) entry.ssi = ssi[input.activity];
-      return entry;
-    });
-  };
+  const sensitivity = sensitivityOf(plan, rho, swing, ssi, !!totals.durationRanks);
 
   // Keys in the order docs/result-format.md lists them (JSON keeps insertion order).
   return {
@@ -235,25 +222,77 @@ export function rollUp(
       second.map((s) => s.allocation),
       costSummary,
     ),
-    sensitivity: { cost: pick('cost'), duration: totals.durationRanks ? pick('duration') : [] },
+    sensitivity,
     criticality,
     achievedCorrelations: early.achieved,
-    warnings: [
-      ...plan.warnings,
-      ...(info.warnings ?? []),
-      ...(info.sampling === 'lhs'
-        ? [
-            'Under Latin hypercube sampling the intervals of the P-values (from order statistics) ' +
-              'are conservative: the true precision is at least as good as shown.',
-          ]
-        : []),
-    ],
+    warnings: resultWarnings(plan, info),
     convergence,
   };
 }
 
+/** The plan's warnings, the run's, and the note on intervals under Latin hypercube sampling. */
+export function resultWarnings(plan: Plan, info: Pick<RunInfo, 'sampling' | 'warnings'>): string[] {
+  return [
+    ...plan.warnings,
+    ...(info.warnings ?? []),
+    ...(info.sampling === 'lhs'
+      ? [
+          'Under Latin hypercube sampling the intervals of the P-values (from order statistics) ' +
+            'are conservative: the true precision is at least as good as shown.',
+        ]
+      : []),
+  ];
+}
+
+/**
+ * The tornado's entries from the rank correlations, with each input's swing (swingOf) and, for
+ * activities in the duration tornado, the schedule sensitivity index (scheduleSensitivity).
+ */
+export function sensitivityOf(
+  plan: Plan,
+  rho: { cost: Float64Array; duration: Float64Array },
+  swing: { cost: Interval[]; duration: Interval[] },
+  ssi: Float64Array,
+  hasDuration: boolean,
+): SimulationResult['sensitivity'] {
+  const pick = (which: 'cost' | 'duration'): SensitivityEntry[] => {
+    const idx = plan.sensitivity.map((s, i) => (s[which] ? i : -1)).filter((i) => i >= 0);
+    const byId = new Map(idx.map((i) => [plan.sensitivity[i].id, i]));
+    return tornado(
+      idx.map((i) => plan.sensitivity[i].id),
+      idx.map((i) => rho[which][i]),
+    ).map((e) => {
+      const i = byId.get(e.id)!;
+      const input = plan.sensitivity[i];
+      const entry: SensitivityEntry = { ...e, kind: input.kind, swing: swing[which][i] };
+      if (which === 'duration' && input.activity >= 0) entry.ssi = ssi[input.activity];
+      return entry;
+    });
+  };
+  return { cost: pick('cost'), duration: hasDuration ? pick('duration') : [] };
+}
+
+/**
+ * Each activity's count of iterations on the critical path and its criticality index (count / n),
+ * by id. `blocks` any consecutive groups of blocks (chunks) with their counts, in order.
+ */
+export function criticalityOf(
+  plan: Plan,
+  blocks: Pick<BlockSummary, 'critical'>[],
+  n: number,
+): { critical: Float64Array; criticality: Record<string, number> } {
+  const critical = new Float64Array(plan.activities.length);
+  for (const b of blocks) for (let a = 0; a < critical.length; a++) critical[a] += b.critical[a];
+  const criticality: Record<string, number> = {};
+  plan.activities.forEach((a, i) => (criticality[a.id] = critical[i] / n));
+  return { critical, criticality };
+}
+
 /** Mean total where each input's grade is ≤ 0.1 and where it is ≥ 0.9, from the blocks' sums. */
-function swingOf(plan: Plan, blocks: BlockSummary[]): { cost: Interval[]; duration: Interval[] } {
+export function swingOf(
+  plan: Plan,
+  blocks: Pick<BlockSummary, 'swingSums'>[],
+): { cost: Interval[]; duration: Interval[] } {
   const rows = plan.sensitivity.length;
   const sums = new Float64Array(6 * rows);
   for (const b of blocks) for (let k = 0; k < sums.length; k++) sums[k] += b.swingSums[k];
@@ -271,9 +310,9 @@ function swingOf(plan: Plan, blocks: BlockSummary[]): { cost: Interval[]; durati
  * Schedule sensitivity index of each activity: criticality × sd(activity duration) / sd(project
  * duration) (the activity's sampled duration, drivers and risk delays included).
  */
-function scheduleSensitivity(
+export function scheduleSensitivity(
   plan: Plan,
-  blocks: BlockSummary[],
+  blocks: Pick<BlockSummary, 'durationSums'>[],
   critical: Float64Array,
   n: number,
   projectSd: number,

@@ -2,7 +2,8 @@
 // components: it reaches Node.js built-ins and worker threads). The core is the other door,
 // lib/sim (../index).
 //
-//   runSimulation(model, options)     → Promise<SimulationResult>  (threads, progress, cancel)
+//   runSimulation(model, options)     → Promise<SimulationResult>  (threads, progress, cancel;
+//                                        bounded memory above 1,000,000 iterations or when asked)
 
 export { runSimulation } from './run';
 export type { RunOptions } from './options';

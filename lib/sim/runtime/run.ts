@@ -2,7 +2,8 @@
 // thread (yielding between blocks so progress and abort get through); more threads use a pool
 // of workers loading the bundled worker file, which write their blocks into shared memory, and,
 // with computeHere, this thread computes beside them. Either way the blocks and so the result are
-// the same to the bit.
+// the same to the bit. A bounded run (above BOUNDED_FROM iterations, or when asked) goes to
+// ./bounded instead.
 
 import { availableParallelism } from 'node:os';
 import { type BlockSummary, blockLength, simulateBlock } from '../core/block';
@@ -38,6 +39,8 @@ import { allocateRound, blockSink, type RoundStore } from '../core/run-data';
 import { nextRound } from '../core/round-plan';
 import type { SimulationResult } from '../core/formats';
 import { warmUp } from './warm-up';
+import { BOUNDED_FROM } from '../core/bounded';
+import { runBounded } from './bounded';
 
 const yieldToEventLoop = () => new Promise<void>((resolve) => setImmediate(resolve));
 
@@ -56,6 +59,9 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
   const resolved = resolveRun(modelJson, options);
   const { settings, key, model } = resolved;
   const threads = Math.max(1, Math.floor(options.threads ?? availableParallelism()));
+  const bounded = options.bounded ?? (settings.iterations > BOUNDED_FROM && !settings.precision);
+  if (bounded && settings.precision)
+    throw new RangeError('A run to a precision goal keeps its iterations in memory: it cannot be bounded.');
   // A single block is not worth starting threads for.
   const pooled = threads > 1 && settings.iterations > blockLength(0, settings.iterations);
   const here = pooled && options.computeHere === true;
@@ -64,7 +70,14 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
   const blocks: BlockSummary[] = [];
   const warnings: string[] = [];
   let pool: TaskPool | null = null;
+  const workerFile = () => requireWorkerFile(options.workerFile ?? defaultWorkerFile());
+  const workerData = { model, key: Array.from(key), sampling: settings.sampling };
   try {
+    if (bounded) {
+      // Each chunk of a bounded run is a worker task (./bounded), this thread gathering the parts.
+      if (pooled) pool = createTaskPool(workerFile(), threads, workerData);
+      return await runBounded(resolved, options, pool, started);
+    }
     const run: PreparedRun = { ...resolved, plan: compileModel(model) };
     const { plan } = run;
     let tables: PackedBetaTables | null = null;
@@ -73,15 +86,13 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
     let first: { store: RoundStore; claims: Claims } | null = null;
     let round = nextRound(settings, plan, 0, rounds, warnings);
     if (pooled && round !== null) {
-      const file = requireWorkerFile(options.workerFile ?? defaultWorkerFile());
+      const file = workerFile();
       first = { store: allocateRound(plan, 0, round, true), claims: createClaims() };
       const todo = blocksBetween(0, round);
       const buffer = new SharedArrayBuffer(packedBetaTablesBytes(plan.betaShapes.length));
       const ready = new Int32Array(new SharedArrayBuffer(Int32Array.BYTES_PER_ELEMENT));
       pool = createTaskPool(file, workers, {
-        model,
-        key: Array.from(key),
-        sampling: settings.sampling,
+        ...workerData,
         first: {
           ...first,
           blocks: todo,

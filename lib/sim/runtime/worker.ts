@@ -2,9 +2,9 @@
 // ./worker-file). Each worker compiles the model once from its workerData (while the
 // parent builds the beta-PERT tables that the first task brings), then runs tasks: claim and
 // compute blocks into the round's shared store, or claim and compute the second pass over blocks
-// (the tornado's cross sums and the allocation's sums), or sort one total. Blocks are claimed
-// one by one through shared counters (./claims), so a task lasts as long as there is work; only
-// small per-block sums travel back.
+// (the tornado's cross sums and the allocation's sums), or sort one total, or a bounded run's pass
+// over one chunk (../core/bounded). Blocks are claimed one by one through shared counters
+// (./claims), so a task lasts as long as there is work; only small per-block sums travel back.
 
 import { workerData } from 'node:worker_threads';
 import { type BlockSummary, blockLength, simulateBlock } from '../core/block';
@@ -21,6 +21,14 @@ import {
 import type { Model, Sampling } from '../core/formats';
 import { type Claims, claimNext, markDone } from './claims';
 import { warmUp } from './warm-up';
+import {
+  firstPassPart,
+  type FirstPassPart,
+  secondPassPart,
+  type SecondPassPart,
+  type SecondPassRequest,
+} from '../core/bounded';
+import type { PreparedRun } from '../core/engine';
 
 export interface WorkerData {
   model: Model;
@@ -72,12 +80,28 @@ export type WorkerTask =
   /** The sort order of one total (the ranks of the run). */
   | { kind: 'order'; values: Float64Array }
   /** The sorted copy of one total, as Float64Array.prototype.sort gives it. */
-  | { kind: 'sort'; values: Float64Array };
+  | { kind: 'sort'; values: Float64Array }
+  | {
+      /** A bounded run's first pass over one chunk. */
+      kind: 'bounded-first';
+      iterations: number;
+      chunk: number;
+      chunkBlocks: number;
+      tables: PackedBetaTables;
+    }
+  | {
+      /** A bounded run's second pass over one chunk. */
+      kind: 'bounded-second';
+      chunk: number;
+      request: SecondPassRequest;
+      tables: PackedBetaTables;
+    };
 
 /** The second pass of the `blocks[k]` this worker claimed: [k, its sums]. */
 export type ClaimedSecondPass = [number, BlockSecondPass];
 
-export type WorkerReply = BlockSummary[] | ClaimedSecondPass[] | SortOrder | Float64Array;
+export type WorkerReply =
+  BlockSummary[] | ClaimedSecondPass[] | SortOrder | Float64Array | FirstPassPart | SecondPassPart;
 
 const data = workerData as WorkerData;
 const plan = compileModel(data.model);
@@ -116,9 +140,25 @@ if (data.first) {
   firstDone = computeBlocks(blocks, claims, store, []);
 }
 
+/** The run as the bounded passes take it (the seed only names the result, made by the parent). */
+const boundedRun = (iterations: number): PreparedRun => ({
+  model: data.model,
+  plan,
+  key,
+  settings: { iterations, seed: 0, sampling: data.sampling, precision: null },
+});
+
 export default function runTask(task: WorkerTask): WorkerReply {
   if (task.kind === 'order') return sortOrder(task.values);
   if (task.kind === 'sort') return task.values.slice().sort();
+  if (task.kind === 'bounded-first') {
+    prepare(task.tables, true);
+    return firstPassPart(boundedRun(task.iterations), task.chunk, task.chunk + 1, task.chunkBlocks);
+  }
+  if (task.kind === 'bounded-second') {
+    prepare(task.tables, true);
+    return secondPassPart(boundedRun(task.request.iterations), task.request, task.chunk, task.chunk + 1);
+  }
   const { store, blocks, claims } = task;
   if (task.kind === 'blocks') {
     prepare(task.tables, task.warm);

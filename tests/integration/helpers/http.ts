@@ -8,6 +8,9 @@ export const DEMO_PASSWORD = 'demo-outturn-2026';
 export class Client {
   private cookies = new Map<string, string>();
 
+  /** `base`: the app instance this client talks to (another web instance in queue-mode tests). */
+  constructor(private readonly base = APP_URL) {}
+
   private remember(response: Response) {
     for (const header of response.headers.getSetCookie()) {
       const [pair] = header.split(';');
@@ -37,7 +40,7 @@ export class Client {
       headers['content-type'] ??= 'application/json';
       body = typeof init.body === 'string' ? init.body : JSON.stringify(init.body);
     }
-    const response = await fetch(APP_URL + path, {
+    const response = await fetch(this.base + path, {
       method: init.method ?? (body ? 'POST' : 'GET'),
       headers,
       body,
@@ -83,9 +86,9 @@ export class Client {
     });
   }
 
-  /** A second client holding the same cookies: a copied session token. */
-  copy(): Client {
-    const twin = new Client();
+  /** A second client holding the same cookies: a copied session token (at `base`, if given). */
+  copy(base = this.base): Client {
+    const twin = new Client(base);
     for (const [k, v] of this.cookies) twin.cookies.set(k, v);
     return twin;
   }

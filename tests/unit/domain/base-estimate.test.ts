@@ -130,4 +130,55 @@ describe('a line paid per project day', () => {
     // Without a schedule there is no project duration: the line is incomplete, not 0.
     expect(lineBase(line, new Map(), projectBaseDuration([]))).toBeNull();
   });
+
+  it('reads the rows’ link types and branches as the engine does', () => {
+    // By hand (precedence diagramming, common practice): A1 runs 0–30. A2 (20 days) starts 10
+    // days after A1 starts (SS+10): 10–30. A3 (15 days) finishes 5 days after A2 finishes
+    // (FF+5): it ends at 35. A4 (40 days) exists with probability 0.3 and is left out of the
+    // base (the engine's rule for a branch), so the project's base finish is 35 days.
+    const rows = [
+      { code: 'A1', distType: 'fixed' as const, mode: 30, predecessors: [] },
+      {
+        code: 'A2',
+        distType: 'fixed' as const,
+        mode: 20,
+        predecessors: [{ code: 'A1', type: 'SS' as const, lag: 10 }],
+      },
+      {
+        code: 'A3',
+        distType: 'fixed' as const,
+        mode: 15,
+        predecessors: [{ code: 'A2', type: 'FF' as const, lag: 5 }],
+      },
+      {
+        code: 'A4',
+        distType: 'fixed' as const,
+        mode: 40,
+        predecessors: [{ code: 'A1', lag: 0 }],
+        existence: 0.3,
+      },
+    ];
+    expect(projectBaseDuration(rows)).toBe(35);
+    const model: Model = {
+      format: 'outturn-model',
+      version: 2,
+      items: [{ id: 'L1', ratePerDay: { type: 'fixed', value: 1000 }, span: 'project' }],
+      activities: [
+        { id: 'A1', duration: { type: 'fixed', value: 30 } },
+        {
+          id: 'A2',
+          duration: { type: 'fixed', value: 20 },
+          predecessors: [{ id: 'A1', type: 'SS', lag: 10 }],
+        },
+        {
+          id: 'A3',
+          duration: { type: 'fixed', value: 15 },
+          predecessors: [{ id: 'A2', type: 'FF', lag: 5 }],
+        },
+        { id: 'A4', duration: { type: 'fixed', value: 40 }, predecessors: ['A1'], existence: 0.3 },
+      ],
+    };
+    // The run's base agrees with the grid's: 1,000 a day × 35 days.
+    expect(simulateSync(model, { iterations: 200, seed: 3 }).cost.base).toBe(35_000);
+  });
 });

@@ -55,4 +55,28 @@ describe('npm run simulate', () => {
     expect(missing.status).toBe(1);
     expect(missing.stderr).toMatch(/no such file/);
   });
+
+  it('runs bounded with --bounded: the same P-values as in memory, and not with --precision', () => {
+    // Plumbing: both forms read the same iterations, so the order statistics agree exactly.
+    const memory = path.join(dir, 'memory.json');
+    const bounded = path.join(dir, 'bounded.json');
+    const args = [
+      'tests/fixtures/sim/small-project.json',
+      '--iterations',
+      '5000',
+      '--seed',
+      '9',
+      '--threads',
+      '1',
+    ];
+    expect(simulate(...args, '--out', memory).status).toBe(0);
+    expect(simulate(...args, '--bounded', '--out', bounded).status).toBe(0);
+    const m = JSON.parse(readFileSync(memory, 'utf8'));
+    const b = JSON.parse(readFileSync(bounded, 'utf8'));
+    expect(b.cost.percentiles).toEqual(m.cost.percentiles);
+    expect(b.cost.percentileCI95).toEqual(m.cost.percentileCI95);
+    const refused = simulate(...args, '--bounded', '--precision', '1');
+    expect(refused.status).toBe(2);
+    expect(refused.stderr).toMatch(/--bounded does not go with --precision/);
+  });
 });

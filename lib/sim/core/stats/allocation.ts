@@ -77,14 +77,29 @@ export function blockAllocationSums(
   n: number,
   window: AllocationWindow,
 ): Float64Array {
-  const slots = slotsOf(plan);
-  const sums = new Float64Array(slots.count + 1);
   const local = block * BLOCK_SIZE - store.start;
   const index: number[] = [];
   for (let i = 0; i < n; i++) {
     const c = store.cost[local + i];
     if (c >= window.lo && c <= window.hi) index.push(i);
   }
+  return tappedAllocationSums(plan, key, sampling, block, n, index);
+}
+
+/**
+ * Allocation sums (as blockAllocationSums) over the given iterations of a block (0-based,
+ * ascending), recomputed from the run key for those iterations only.
+ */
+export function tappedAllocationSums(
+  plan: Plan,
+  key: Uint32Array,
+  sampling: Sampling,
+  block: number,
+  n: number,
+  index: number[],
+): Float64Array {
+  const slots = slotsOf(plan);
+  const sums = new Float64Array(slots.count + 1);
   sums[slots.count] = index.length;
   if (index.length === 0) return sums;
   const tap: AllocationTap = { index: Int32Array.from(index), sums, ...slots };

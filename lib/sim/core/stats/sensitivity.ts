@@ -30,6 +30,45 @@ export function rankCorrelations(
   costRanks: Float64Array,
   durationRanks: Float64Array | null,
 ): { cost: Float64Array; duration: Float64Array } {
+  return rankCorrelationsFromSums(
+    inputs,
+    blocks,
+    cross,
+    costRanks.length,
+    rankSums(costRanks),
+    durationRanks ? rankSums(durationRanks) : null,
+  );
+}
+
+/** ΣR and ΣR² of ranks, in order. */
+export function rankSums(ranks: ArrayLike<number>): RankSums {
+  let sr = 0;
+  let srr = 0;
+  for (let i = 0; i < ranks.length; i++) {
+    sr += ranks[i];
+    srr += ranks[i] * ranks[i];
+  }
+  return { sr, srr };
+}
+
+export interface RankSums {
+  sr: number;
+  srr: number;
+}
+
+/**
+ * As rankCorrelations, from the ranks' sums ΣR and ΣR² over the n iterations instead of the
+ * ranks themselves (null: no duration ranks); `blocks` may be any consecutive groups of blocks
+ * (chunks) with their sums, `cross` theirs.
+ */
+export function rankCorrelationsFromSums(
+  inputs: SensitivityInput[],
+  blocks: Pick<BlockSummary, 'gradeSums'>[],
+  cross: ArrayLike<number>[],
+  n: number,
+  costRanks: RankSums,
+  durationRanks: RankSums | null,
+): { cost: Float64Array; duration: Float64Array } {
   const m = inputs.length;
   const sg = new Float64Array(m);
   const sgg = new Float64Array(m);
@@ -42,16 +81,10 @@ export function rankCorrelations(
       sums.duration[s] += cross[k][2 * s + 1];
     }
   });
-  const n = costRanks.length;
-  const corrWith = (ranks: Float64Array | null, kr: Float64Array) => {
+  const corrWith = (ranks: RankSums | null, kr: Float64Array) => {
     const out = new Float64Array(m);
     if (!ranks) return out;
-    let sr = 0;
-    let srr = 0;
-    for (let i = 0; i < n; i++) {
-      sr += ranks[i];
-      srr += ranks[i] * ranks[i];
-    }
+    const { sr, srr } = ranks;
     const vr = srr - (sr * sr) / n;
     for (let s = 0; s < m; s++) {
       // Σ g·R with g = (k + ½)·2⁻¹⁶: (Σ k·R + ½ ΣR)·2⁻¹⁶.
