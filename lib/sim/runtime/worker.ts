@@ -21,13 +21,11 @@ import {
 import type { Model, Sampling } from '../core/formats';
 import { type Claims, claimNext, markDone } from './claims';
 import { warmUp } from './warm-up';
-import {
-  firstPassPart,
-  type FirstPassPart,
-  secondPassPart,
-  type SecondPassPart,
-  type SecondPassRequest,
-} from '../core/bounded';
+// The passes' own modules, not ../core/bounded's door: that door brings the model validator
+// (zod and its locales) into every worker's bundle.
+import { firstPassPart } from '../core/bounded/first-pass';
+import { secondPassPart } from '../core/bounded/second-pass';
+import type { FirstPassPart, SecondPassPart, SecondPassRequest } from '../core/bounded';
 import type { PreparedRun } from '../core/engine';
 
 export interface WorkerData {
