@@ -13,7 +13,7 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { parseArgs } from 'node:util';
-import { summaryText, validateModel, type PrecisionGoal, type Sampling } from '../lib/sim';
+import { type Model, ModelValidationError, summaryText, type PrecisionGoal, type Sampling } from '../lib/sim';
 import { BUILD_WORKER_COMMAND, defaultWorkerFile, runSimulation } from '../lib/sim/runtime';
 
 const USAGE =
@@ -92,21 +92,17 @@ async function main() {
       1,
     );
   }
-  const checked = validateModel(json);
-  if (!checked.ok) {
-    fail(
-      `${file}: the model is not valid:\n${checked.issues.map((i) => `  ${i.path ? `${i.path}: ` : ''}${i.message}`).join('\n')}`,
-      1,
-    );
-  }
-  const model = checked.model;
   if (threads > 1) ensureWorker();
   const showProgress = process.stderr.isTTY;
-  const result = await runSimulation(model, {
+  // runSimulation validates the model (once: a second validation here would cost as much again)
+  // and refuses an invalid one with every issue.
+  const result = await runSimulation(json, {
     iterations,
     seed,
     sampling,
     threads,
+    // Nothing else runs in this process: its own thread computes too, beside threads − 1 workers.
+    computeHere: true,
     ...(precision ? { precision } : {}),
     ...(values.bounded ? { bounded: true } : {}),
     onProgress: showProgress
@@ -117,7 +113,15 @@ async function main() {
               : `\r${Math.round((100 * done) / total)}% of two passes over ${total / 2} iterations`,
           )
       : undefined,
+  }).catch((e: unknown) => {
+    if (!(e instanceof ModelValidationError)) throw e;
+    fail(
+      `${file}: the model is not valid:\n${e.issues.map((i) => `  ${i.path ? `${i.path}: ` : ''}${i.message}`).join('\n')}`,
+      1,
+    );
   });
+  // Valid, so these are the model's own fields.
+  const model = json as Model;
   if (showProgress) process.stderr.write('\r\x1b[K');
   process.stdout.write(
     `${summaryText(result, { name: model.name, currency: model.currency, threads, targets: model.targets })}\n`,

@@ -6,7 +6,7 @@ import { compileModel, type Plan } from './compile';
 import type { ResolvedSettings, SimulationOptions } from './options';
 import { resolveSettings } from './options';
 import { runKeyFromSeed } from './random/run-key';
-import { type RankedTotals, rankTotals, rollUp } from './rollup';
+import { type RankedTotals, rankTotals, rollUp, type TotalsRollUp } from './rollup';
 import {
   allocateRound,
   type BlockSecondPass,
@@ -70,20 +70,32 @@ export function rankRun(run: PreparedRun, rounds: RoundStore[], shared = false):
   return totals;
 }
 
-/** The result, from the blocks' sums (any order), the ranked totals and the second pass in block order. */
+/** The blocks' sums in block order (they may arrive in any). */
+export function inBlockOrder(blocks: BlockSummary[]): BlockSummary[] {
+  return [...blocks].sort((a, b) => a.block - b.block);
+}
+
+/**
+ * The result, from the blocks' sums (any order), the ranked totals and the second pass in block
+ * order; `early` the part of the roll-up computed already (rollUpTotals over inBlockOrder(blocks)).
+ */
 export function resultOf(
   run: PreparedRun,
   blocks: BlockSummary[],
   totals: RankedTotals,
   second: BlockSecondPass[],
   info: { elapsedMs: number; warnings: string[] },
+  early?: TotalsRollUp,
 ): SimulationResult {
-  const ordered = [...blocks].sort((a, b) => a.block - b.block);
-  return rollUp(run.plan, ordered, totals, second, {
-    seed: run.settings.seed,
-    sampling: run.settings.sampling,
-    ...info,
-  });
+  const ordered = inBlockOrder(blocks);
+  return rollUp(
+    run.plan,
+    ordered,
+    totals,
+    second,
+    { seed: run.settings.seed, sampling: run.settings.sampling, ...info },
+    early,
+  );
 }
 
 /** What the second pass over the blocks needs, once the totals are ranked. */

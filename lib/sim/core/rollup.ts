@@ -45,14 +45,25 @@ export interface RankedTotals {
   /** The other mitigation scenario's totals, in iteration order (when some risk has a post block). */
   altCost?: Float64Array | null;
   altDuration?: Float64Array | null;
+  /** Their sorted copies when already at hand (another thread may have sorted them). */
+  altSorted?: { cost: Float64Array; duration: Float64Array | null };
 }
 
 /** `shared`: put the ranks on SharedArrayBuffers, for worker threads to read. */
 export function rankTotals(cost: Float64Array, duration: Float64Array | null, shared = false): RankedTotals {
+  return rankedTotalsOf(cost, duration, sortOrder(cost), duration ? sortOrder(duration) : null, shared);
+}
+
+/** rankTotals from sort orders computed elsewhere (each total's may come from another thread). */
+export function rankedTotalsOf(
+  cost: Float64Array,
+  duration: Float64Array | null,
+  costOrder: SortOrder,
+  durationOrder: SortOrder | null,
+  shared = false,
+): RankedTotals {
   const ranksArray = (n: number) =>
     new Float64Array(shared ? new SharedArrayBuffer(8 * n) : new ArrayBuffer(8 * n));
-  const costOrder = sortOrder(cost);
-  const durationOrder = duration ? sortOrder(duration) : null;
   return {
     cost,
     costSorted: costOrder.sorted,
@@ -100,16 +111,23 @@ export function achievedCorrelations(
 }
 
 /**
- * `blocks` in block order; `second[k]` the second pass over blocks[k] (blockSecondPass): rank
- * cross sums and allocation sums.
+ * The parts of the result that need only the blocks' sums and the ranked totals, not the second
+ * pass: a threaded run computes them while other threads run the second pass.
  */
-export function rollUp(
-  plan: Plan,
-  blocks: BlockSummary[],
-  totals: RankedTotals,
-  second: BlockSecondPass[],
-  info: RunInfo,
-): SimulationResult {
+export interface TotalsRollUp {
+  costSummary: SimulationResult['cost'];
+  durationSummary: SimulationResult['duration'];
+  joint: SimulationResult['joint'];
+  criticality: Record<string, number>;
+  swing: { cost: Interval[]; duration: Interval[] };
+  ssi: Float64Array;
+  convergence: SimulationResult['convergence'];
+  mitigation: SimulationResult['mitigation'];
+  achieved: AchievedCorrelation[];
+}
+
+/** `blocks` in block order. */
+export function rollUpTotals(plan: Plan, blocks: BlockSummary[], totals: RankedTotals): TotalsRollUp {
   const { cost, costSorted, duration, durationSorted, costOrder, durationOrder } = totals;
   const n = cost.length;
   const costSummary = summarizeTotal(cost, costSorted, plan.base.cost, plan.targets.cost);
@@ -129,7 +147,8 @@ export function rollUp(
     let both = 0;
     const tc = plan.targets.cost;
     const td = plan.targets.duration;
-    for (let i = 0; i < n; i++) if (cost[i] <= tc && duration[i] <= td) both++;
+    // Added as 0 or 1, not branched on: which iteration meets both is a coin toss to the processor.
+    for (let i = 0; i < n; i++) both += +(cost[i] <= tc) & +(duration[i] <= td);
     joint = {
       probability: both / n,
       ci95: wilsonInterval(both, n),
@@ -138,24 +157,11 @@ export function rollUp(
     };
   }
 
-  // Criticality index.
-  const critical = new Float64Array(plan.activities.length);
-  for (const b of blocks) for (let a = 0; a < critical.length; a++) critical[a] += b.critical[a];
-  const criticality: Record<string, number> = {};
-  plan.activities.forEach((a, i) => (criticality[a.id] = critical[i] / n));
+  const { critical, criticality } = criticalityOf(plan, blocks, n);
 
-  // Tornado: rank correlation, share, swing, and the schedule sensitivity index.
-  const cross = second.map((s) => s.cross);
-  const rho = rankCorrelations(plan.sensitivity, blocks, cross, totals.costRanks, totals.durationRanks);
-  const sensitivity = sensitivityOf(
-    plan,
-    blocks,
-    rho,
-    critical,
-    n,
-    durationSummary?.sd ?? 0,
-    !!totals.durationRanks,
-  );
+  // The tornado's swing, and the schedule sensitivity index.
+  const swing = swingOf(plan, blocks);
+  const ssi = scheduleSensitivity(plan, blocks, critical, n, durationSummary?.sd ?? 0);
 
   // Convergence.
   const checkpoints = checkpointsFor(n);
@@ -165,6 +171,39 @@ export function rollUp(
   };
   if (durationOrder)
     convergence.duration = convergenceSeries(durationOrder.positions, durationOrder.sorted, checkpoints);
+
+  return {
+    costSummary,
+    durationSummary,
+    joint,
+    criticality,
+    swing,
+    ssi,
+    convergence,
+    mitigation: plan.hasPost ? mitigationOf(plan, totals) : undefined,
+    achieved: achievedCorrelations(plan, blocks, n),
+  };
+}
+
+/**
+ * `blocks` in block order; `second[k]` the second pass over blocks[k] (blockSecondPass): rank
+ * cross sums and allocation sums. `early`: rollUpTotals of the same, when computed already.
+ */
+export function rollUp(
+  plan: Plan,
+  blocks: BlockSummary[],
+  totals: RankedTotals,
+  second: BlockSecondPass[],
+  info: RunInfo,
+  early: TotalsRollUp = rollUpTotals(plan, blocks, totals),
+): SimulationResult {
+  const n = totals.cost.length;
+  const { costSummary, durationSummary, joint, criticality, swing, ssi, convergence, mitigation } = early;
+
+  // Tornado: rank correlation, share, swing, and the schedule sensitivity index.
+  const cross = second.map((s) => s.cross);
+  const rho = rankCorrelations(plan.sensitivity, blocks, cross, totals.costRanks, totals.durationRanks);
+  const sensitivity = sensitivityOf(plan, rho, swing, ssi, !!totals.durationRanks);
 
   // Keys in the order docs/result-format.md lists them (JSON keeps insertion order).
   return {
@@ -177,7 +216,7 @@ export function rollUp(
     cost: costSummary,
     ...(durationSummary ? { duration: durationSummary } : {}),
     ...(joint ? { joint } : {}),
-    ...(plan.hasPost ? { mitigation: mitigationOf(plan, totals) } : {}),
+    ...(mitigation ? { mitigation } : {}),
     allocation: allocationOf(
       plan,
       second.map((s) => s.allocation),
@@ -185,7 +224,7 @@ export function rollUp(
     ),
     sensitivity,
     criticality,
-    achievedCorrelations: achievedCorrelations(plan, blocks, n),
+    achievedCorrelations: early.achieved,
     warnings: resultWarnings(plan, info),
     convergence,
   };
@@ -206,21 +245,16 @@ export function resultWarnings(plan: Plan, info: Pick<RunInfo, 'sampling' | 'war
 }
 
 /**
- * The tornado's entries from the rank correlations, with each input's swing and, for activities
- * in the duration tornado, the schedule sensitivity index. `blocks` any consecutive groups of
- * blocks (chunks) with their sums, in order; `critical` the criticality counts.
+ * The tornado's entries from the rank correlations, with each input's swing (swingOf) and, for
+ * activities in the duration tornado, the schedule sensitivity index (scheduleSensitivity).
  */
 export function sensitivityOf(
   plan: Plan,
-  blocks: Pick<BlockSummary, 'swingSums' | 'durationSums'>[],
   rho: { cost: Float64Array; duration: Float64Array },
-  critical: Float64Array,
-  n: number,
-  durationSd: number,
+  swing: { cost: Interval[]; duration: Interval[] },
+  ssi: Float64Array,
   hasDuration: boolean,
 ): SimulationResult['sensitivity'] {
-  const swing = swingOf(plan, blocks);
-  const ssi = scheduleSensitivity(plan, blocks, critical, n, durationSd);
   const pick = (which: 'cost' | 'duration'): SensitivityEntry[] => {
     const idx = plan.sensitivity.map((s, i) => (s[which] ? i : -1)).filter((i) => i >= 0);
     const byId = new Map(idx.map((i) => [plan.sensitivity[i].id, i]));
@@ -236,6 +270,22 @@ export function sensitivityOf(
     });
   };
   return { cost: pick('cost'), duration: hasDuration ? pick('duration') : [] };
+}
+
+/**
+ * Each activity's count of iterations on the critical path and its criticality index (count / n),
+ * by id. `blocks` any consecutive groups of blocks (chunks) with their counts, in order.
+ */
+export function criticalityOf(
+  plan: Plan,
+  blocks: Pick<BlockSummary, 'critical'>[],
+  n: number,
+): { critical: Float64Array; criticality: Record<string, number> } {
+  const critical = new Float64Array(plan.activities.length);
+  for (const b of blocks) for (let a = 0; a < critical.length; a++) critical[a] += b.critical[a];
+  const criticality: Record<string, number> = {};
+  plan.activities.forEach((a, i) => (criticality[a.id] = critical[i] / n));
+  return { critical, criticality };
 }
 
 /** Mean total where each input's grade is ≤ 0.1 and where it is ≥ 0.9, from the blocks' sums. */
@@ -309,7 +359,7 @@ function mitigationOf(plan: Plan, totals: RankedTotals): NonNullable<SimulationR
     cost: totals.costSorted,
     duration: totals.durationSorted,
   });
-  const other = scenarioOf(totals.altCost!, totals.altDuration);
+  const other = scenarioOf(totals.altCost!, totals.altDuration, totals.altSorted);
   return plan.headline === 'post'
     ? { used: 'post', pre: other, post: headline }
     : { used: 'pre', pre: headline, post: other };

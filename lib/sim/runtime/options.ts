@@ -4,8 +4,15 @@
 import type { SimulationOptions } from '../core/options';
 
 export interface RunOptions extends SimulationOptions {
-  /** Worker threads; 1 runs in this thread without workers. Default: os.availableParallelism(). */
+  /** Threads computing; 1 runs in this thread without workers. Default: os.availableParallelism(). */
   threads?: number;
+  /**
+   * This thread computes blocks too, beside threads − 1 workers: for a process with nothing else
+   * to do meanwhile, such as the command line. Default false: a server's thread stays free to
+   * answer while `threads` workers compute. A bounded run's chunks are all worker tasks: there
+   * it changes nothing.
+   */
+  computeHere?: boolean;
   /**
    * Work done of total. A bounded run goes over its iterations twice, so its total is twice
    * the iterations; `iterations` then says how many distinct iterations have been drawn.

@@ -4,6 +4,8 @@ import { describe, expect, it } from 'vitest';
 import { spearmanToPearson } from '../correlation/rank-pearson';
 import { simulateSync } from '../engine';
 import { normalCdf, normalPdf } from '../math/normal';
+import { allocateForwardPass, downstreamOf, forwardPass } from '../schedule/forward-pass';
+import { buildNetwork } from '../schedule/network';
 import { fixed, model, normal, uniform } from './helpers';
 
 /** Clark (1961), Operations Research 9(2):145–162, eqs. (2)–(3): moments of max(X1, X2). */
@@ -105,5 +107,43 @@ describe('risk delays and time-dependent items', () => {
     const ex2 = 15 ** 2 + 100 / 12;
     const ey2 = 150 ** 2 + 10000 / 12;
     expect(Math.abs(r.cost.sd ** 2 / (ex2 * ey2 - 2250 ** 2) - 1)).toBeLessThan(0.04);
+  });
+});
+
+// Plumbing (the engine against itself): a second pass that recomputes only the activities whose
+// durations changed and those after them gives what a full pass gives, to the bit.
+describe('a pass over the changed activities only', () => {
+  it.each([false, true])('matches a full pass (mixed link types: %s)', (mixed) => {
+    const net = buildNetwork([
+      { id: 'A', duration: fixed(1) },
+      { id: 'B', duration: fixed(1), predecessors: ['A'] },
+      { id: 'C', duration: fixed(1), predecessors: [mixed ? { id: 'A', type: 'SS', lag: 2 } : 'A'] },
+      { id: 'D', duration: fixed(1), predecessors: ['B', 'C'] },
+      { id: 'E', duration: fixed(1) },
+    ]);
+    const n = 7;
+    const stride = 8;
+    const durations = Float64Array.from({ length: 5 * stride }, (_, k) => 1 + ((k * 7919) % 13));
+    const changedDurations = durations.slice();
+    // C (index 2) longer and shorter in turn: D must follow, A, B and E keep their finish.
+    for (let i = 0; i < n; i++) changedDurations[2 * stride + i] += i % 2 ? 9 : -0.5;
+    const changed = downstreamOf(net, [2]);
+    expect(Array.from(changed)).toEqual([0, 0, 1, 1, 0]);
+
+    const full = allocateForwardPass(5, stride);
+    const fullTotal = new Float64Array(n);
+    const fullCritical = new Int32Array(5);
+    forwardPass(net, changedDurations, n, full, fullTotal, fullCritical);
+
+    const partial = allocateForwardPass(5, stride);
+    const first = new Float64Array(n);
+    forwardPass(net, durations, n, partial, first, null);
+    const partialTotal = new Float64Array(n);
+    const partialCritical = new Int32Array(5);
+    forwardPass(net, changedDurations, n, partial, partialTotal, partialCritical, changed);
+
+    expect(partialTotal).toEqual(fullTotal);
+    expect(partialCritical).toEqual(fullCritical);
+    expect(partialTotal).not.toEqual(first);
   });
 });

@@ -18,7 +18,15 @@
 import type { BlockSummary } from '../block';
 import type { PreparedRun } from '../engine';
 import type { PercentileKey, ScenarioSummary, SimulationResult } from '../formats';
-import { achievedCorrelations, resultWarnings, type RunInfo, sensitivityOf } from '../rollup';
+import {
+  achievedCorrelations,
+  criticalityOf,
+  resultWarnings,
+  type RunInfo,
+  scheduleSensitivity,
+  sensitivityOf,
+  swingOf,
+} from '../rollup';
 import { allocationOf } from '../stats/allocation';
 import { percentileRank } from '../stats/order-statistics';
 import { PERCENTILES } from '../stats/percentiles';
@@ -148,10 +156,7 @@ export function finishBounded(
 
   // Criticality and the tornado, from the chunks' sums in chunk order.
   const blocks = merged.chunks.map(asBlock);
-  const critical = new Float64Array(plan.activities.length);
-  for (const b of blocks) for (let a = 0; a < critical.length; a++) critical[a] += b.critical[a];
-  const criticality: Record<string, number> = {};
-  plan.activities.forEach((a, i) => (criticality[a.id] = critical[i] / n));
+  const { critical, criticality } = criticalityOf(plan, blocks, n);
   const rho = rankCorrelationsFromSums(
     plan.sensitivity,
     blocks,
@@ -160,7 +165,9 @@ export function finishBounded(
     rankSumsOf(merged.fine.cost),
     merged.fine.duration ? rankSumsOf(merged.fine.duration) : null,
   );
-  const sensitivity = sensitivityOf(plan, blocks, rho, critical, n, duration?.sd ?? 0, !!duration);
+  const swing = swingOf(plan, blocks);
+  const ssi = scheduleSensitivity(plan, blocks, critical, n, duration?.sd ?? 0);
+  const sensitivity = sensitivityOf(plan, rho, swing, ssi, !!duration);
 
   // Allocation: the inner buckets' sums, and the end buckets' iterations within the exact window.
   const [wLo, wHi] = windowRanks(plan, n);

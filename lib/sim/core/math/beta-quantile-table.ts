@@ -224,8 +224,16 @@ function views(buffer: SharedArrayBuffer, i: number) {
   };
 }
 
-export function packBetaTables(shapes: readonly (readonly [number, number])[]): PackedBetaTables {
-  const buffer = new SharedArrayBuffer(Math.max(8, shapes.length * BYTES_PER_TABLE));
+/** The bytes of a PackedBetaTables buffer holding `count` tables. */
+export function packedBetaTablesBytes(count: number): number {
+  return Math.max(8, count * BYTES_PER_TABLE);
+}
+
+/** `buffer`: where to pack them (packedBetaTablesBytes long), when another thread holds it already. */
+export function packBetaTables(
+  shapes: readonly (readonly [number, number])[],
+  buffer = new SharedArrayBuffer(packedBetaTablesBytes(shapes.length)),
+): PackedBetaTables {
   const flat = new Float64Array(2 * shapes.length);
   shapes.forEach(([alpha, beta], i) => {
     const t = betaQuantileTable(alpha, beta) as QuantileTable;

@@ -53,6 +53,11 @@ export function allocateForwardPass(size: number, stride: number): ForwardPassBu
  * duration[a·stride + i], i < n → total[i] (project duration) and critical[a] += iterations in
  * which a is critical; with critical null, the project duration alone (no backward pass).
  * Finish-to-start networks (the common case) take a route without the link-type tests.
+ *
+ * `changed` (1 per activity whose finish may differ from the last pass over these buffers: its
+ * duration differs, or a predecessor's finish may) lets a second pass over nearly the same
+ * durations recompute those activities alone; the others keep their finishes and only take part
+ * in T, in the same order, so T is the same to the bit as a full pass.
  */
 export function forwardPass(
   net: Network,
@@ -61,14 +66,36 @@ export function forwardPass(
   buf: ForwardPassBuffers,
   total: Float64Array,
   critical: Int32Array | null,
+  changed?: Uint8Array,
 ): void {
   total.fill(-Infinity, 0, n);
-  if (net.mixedLinks) forwardMixed(net, duration, n, buf, total);
-  else forwardFinishToStart(net, duration, n, buf, total);
+  if (net.mixedLinks) forwardMixed(net, duration, n, buf, total, changed);
+  else forwardFinishToStart(net, duration, n, buf, total, changed);
   if (!critical) return;
   const { tolerance } = buf;
   for (let i = 0; i < n; i++) tolerance[i] = FLOAT_TOLERANCE * Math.max(1, Math.abs(total[i]));
   backward(net, duration, n, buf, total, critical);
+}
+
+/** An activity whose finish is kept from the last pass: it takes part in T alone. */
+function keptFinishInto(finish: Float64Array, base: number, total: Float64Array, n: number): void {
+  for (let i = 0; i < n; i++) {
+    const f = finish[base + i];
+    if (f > total[i]) total[i] = f;
+  }
+}
+
+/** 1 for the activities in `from` and every activity that follows one of them through links. */
+export function downstreamOf(net: Network, from: Iterable<number>): Uint8Array {
+  const out = new Uint8Array(net.size);
+  for (const a of from) out[a] = 1;
+  // In topological order, an activity is reached when one of its predecessors is.
+  for (let k = 0; k < net.size; k++) {
+    const a = net.order[k];
+    for (let j = net.predStart[a]; j < net.predStart[a + 1] && !out[a]; j++)
+      if (out[net.predIndex[j]]) out[a] = 1;
+  }
+  return out;
 }
 
 /**
@@ -82,12 +109,17 @@ function forwardFinishToStart(
   n: number,
   buf: ForwardPassBuffers,
   total: Float64Array,
+  changed?: Uint8Array,
 ): void {
   const { finish, stride } = buf;
   const { order, predStart, predIndex, predLag } = net;
   for (let k = 0; k < net.size; k++) {
     const a = order[k];
     const base = a * stride;
+    if (changed && !changed[a]) {
+      keptFinishInto(finish, base, total, n);
+      continue;
+    }
     const s = predStart[a];
     const e = predStart[a + 1];
     if (s === e) {
@@ -138,12 +170,17 @@ function forwardMixed(
   n: number,
   buf: ForwardPassBuffers,
   total: Float64Array,
+  changed?: Uint8Array,
 ) {
   const { finish, stride } = buf;
   const { order, predStart, predIndex, predLag, predType } = net;
   for (let k = 0; k < net.size; k++) {
     const a = order[k];
     const base = a * stride;
+    if (changed && !changed[a]) {
+      keptFinishInto(finish, base, total, n);
+      continue;
+    }
     for (let i = 0; i < n; i++) finish[base + i] = 0;
     for (let j = predStart[a]; j < predStart[a + 1]; j++) {
       const pb = predIndex[j] * stride;

@@ -32,6 +32,18 @@ describe('determinism across threads', () => {
     },
   );
 
+  // Plumbing (the engine against itself): the calling thread computing beside its workers, and
+  // blocks claimed by whichever thread is free, change nothing.
+  it.each([2, 3])(
+    'gives the same result when the calling thread computes too (%i threads)',
+    async (threads) => {
+      const options = { iterations: 9_001, seed: 3, sampling: 'lhs' as const };
+      const one = await runSimulation(projectV2, { ...options, threads: 1 });
+      const here = await runSimulation(projectV2, { ...options, threads, computeHere: true });
+      expect(withoutTime(here)).toStrictEqual(withoutTime(one));
+    },
+  );
+
   it('changes with the seed, and a string seed works', () => {
     const a = simulateSync(project, { iterations: 2000, seed: 1 });
     const b = simulateSync(project, { iterations: 2000, seed: 2 });
@@ -64,12 +76,30 @@ describe('progress and cancellation', () => {
     expect([...seen].sort((a, b) => a - b)).toEqual(seen);
   });
 
-  it.each([1, 2])('can be cancelled (%i threads)', async (threads) => {
+  it('reports progress up to the total when the calling thread computes too', async () => {
+    const seen: number[] = [];
+    await runSimulation(project, {
+      iterations: 5500,
+      seed: 1,
+      threads: 2,
+      computeHere: true,
+      onProgress: (p) => seen.push(p.done),
+    });
+    expect(seen.at(-1)).toBe(5500);
+    expect([...seen].sort((a, b) => a - b)).toEqual(seen);
+  });
+
+  it.each([
+    [1, false],
+    [2, false],
+    [2, true],
+  ])('can be cancelled (%i threads, this thread computing: %s)', async (threads, computeHere) => {
     const controller = new AbortController();
     const run = runSimulation(project, {
       iterations: 400_000,
       seed: 1,
       threads,
+      computeHere,
       signal: controller.signal,
       onProgress: (p) => {
         if (p.done >= 3000) controller.abort();
