@@ -15,13 +15,17 @@ import {
 import { projectWithRegisters, waitForRun } from './runs-fixtures';
 
 const children: Child[] = [];
+// Long enough on the small test model (a few seconds in bounded memory) for several progress
+// writes, which come every 250 ms; at 1,000,000 it can finish between two polls.
+const ITERATIONS = 10_000_000;
 const port = Number(new URL(APP_URL).port);
 const urlA = `http://localhost:${port + 1}`;
 const urlB = `http://localhost:${port + 2}`;
 
 beforeAll(async () => {
   buildWorkerBundle();
-  const env = { OUTTURN_QUEUE_PREFIX: freshPrefix('web') };
+  // One job per run (no split), so that the run's progress is the worker's own writes.
+  const env = { OUTTURN_QUEUE_PREFIX: freshPrefix('web'), OUTTURN_SPLIT_FROM: String(ITERATIONS + 1) };
   const started = await Promise.allSettled([
     startWebInstance(port + 1, env),
     startWebInstance(port + 2, env),
@@ -43,7 +47,7 @@ describe('two web instances and a worker', () => {
     const onA = client.copy(urlA);
     const onB = client.copy(urlB);
 
-    const started = await onA.post(`/api/projects/${projectId}/runs`, { iterations: 1_000_000, seed: 17 });
+    const started = await onA.post(`/api/projects/${projectId}/runs`, { iterations: ITERATIONS, seed: 17 });
     expect(started.status).toBe(201);
     const runId = started.json.run.id;
 
@@ -54,7 +58,7 @@ describe('two web instances and a worker', () => {
       projectId,
       runId,
       (r) => {
-        if (r.status === 'running' && r.iterationsDone > 0 && r.iterationsDone < 1_000_000)
+        if (r.status === 'running' && r.iterationsDone > 0 && r.iterationsDone < ITERATIONS)
           seen.add(r.iterationsDone);
         return seen.size >= 2 || r.status === 'succeeded' || r.status === 'failed';
       },
