@@ -103,7 +103,7 @@ describe('the brief data', () => {
   });
 
   it('answers 409 for a run that has not succeeded', async () => {
-    const started = await owner.post(`/api/projects/${projectId}/runs`, { iterations: 1_000_000, seed: 3 });
+    const started = await owner.post(`/api/projects/${projectId}/runs`, { iterations: 10_000_000, seed: 3 });
     const id = started.json.run.id;
     const cancelled = await owner.post(`/api/projects/${projectId}/runs/${id}/cancel`);
     expect(cancelled.status).toBe(200);

@@ -5,7 +5,9 @@ import { projectWithRegisters, waitForRun } from './runs-fixtures';
 
 afterAll(closeDb);
 
-const BIG = 1_000_000;
+// Long enough on the small test model to be seen running and cancelled (a few seconds, in bounded
+// memory); at 1,000,000 iterations a run can finish between two polls.
+const BIG = 10_000_000;
 
 describe('cancelling and queueing runs', () => {
   it('cancel stops a running run: it ends cancelled, short of its iterations, with no result', async () => {
