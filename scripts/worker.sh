@@ -6,5 +6,10 @@ set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$ROOT"
 source scripts/env.sh
-node scripts/build-worker.mjs 2>/dev/null
+mkdir -p .data
+node scripts/build-worker.mjs >.data/worker-build.log 2>&1 || {
+  echo "The worker's bundle did not build; see .data/worker-build.log"
+  tail -20 .data/worker-build.log
+  exit 1
+}
 exec node .build/outturn-worker.mjs
