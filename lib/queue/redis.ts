@@ -22,6 +22,17 @@ export function queuePrefix(): string {
   return process.env.OUTTURN_QUEUE_PREFIX?.trim() || 'outturn';
 }
 
+/** A whole-number setting of queue mode from the environment (at least 1), or its default. */
+export function positiveInt(name: string, fallback: number): number {
+  const raw = process.env[name]?.trim();
+  if (!raw) return fallback;
+  const value = Number(raw);
+  if (!Number.isInteger(value) || value < 1) {
+    throw new Error(`${name} must be a whole number of at least 1; it is "${raw}".`);
+  }
+  return value;
+}
+
 const holder = globalThis as unknown as { outturnRedis?: Map<string, Redis> };
 const connections: Map<string, Redis> = (holder.outturnRedis ??= new Map());
 

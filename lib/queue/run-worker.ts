@@ -23,7 +23,7 @@ import { executeRun } from '@/lib/services/runs/runner';
 import { MAX_ATTEMPTS, claimRunForWorker } from '@/lib/services/runs/claim';
 import { notifyFinished } from '@/lib/services/runs/runner';
 import { splitRangesFor } from '@/lib/services/runs/split';
-import { RUN_QUEUE, closeRedisConnections, queuePrefix, redisConnection } from './redis';
+import { RUN_QUEUE, closeRedisConnections, positiveInt, queuePrefix, redisConnection } from './redis';
 import {
   cancelChannel,
   closeRunQueues,
@@ -42,16 +42,6 @@ export const STALLED_CHECK_MS = 10_000;
 export const BUSY_RETRY_MS = 1_000;
 /** BullMQ progress updates, at most this often (the database has its own interval). */
 const JOB_PROGRESS_MS = 1_000;
-
-function positiveInt(name: string, fallback: number): number {
-  const raw = process.env[name]?.trim();
-  if (!raw) return fallback;
-  const value = Number(raw);
-  if (!Number.isInteger(value) || value < 1) {
-    throw new Error(`${name} must be a whole number of at least 1; it is "${raw}".`);
-  }
-  return value;
-}
 
 export const workerConcurrency = () => positiveInt('OUTTURN_WORKER_CONCURRENCY', 1);
 export const maxRunning = () => positiveInt('OUTTURN_MAX_RUNNING', 8);

@@ -10,16 +10,7 @@ import 'server-only';
 import { BOUNDED_FROM, boundedChunks, prepareRun, type PreparedRun } from '@/lib/sim';
 import { Project, SimulationRun } from '@/models';
 import type { RunSettings } from '@/lib/validation/runs';
-
-function positiveInt(name: string, fallback: number): number {
-  const raw = process.env[name]?.trim();
-  if (!raw) return fallback;
-  const value = Number(raw);
-  if (!Number.isInteger(value) || value < 1) {
-    throw new Error(`${name} must be a whole number of at least 1; it is "${raw}".`);
-  }
-  return value;
-}
+import { positiveInt } from '@/lib/queue/redis';
 
 /**
  * Runs of at least this many iterations are split into parts across workers. By default the runs
