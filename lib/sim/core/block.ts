@@ -402,70 +402,6 @@ function momentsInto(x: Float64Array, n: number, out: Float64Array, at: number):
   out[at + 1] = s2;
 }
 
-/**
- * The swing sums of two tornado rows at once (rows at grades[offA…] and grades[offB…], sums into
- * out[atA…] and out[atB…]): the same sums as two calls of swingInto, each in iteration order,
- * with the totals read once and twice as many independent additions per step.
- */
-function swingInto2(
-  grades: Uint16Array,
-  offA: number,
-  offB: number,
-  cost: Float64Array,
-  duration: Float64Array,
-  n: number,
-  out: Float64Array,
-  atA: number,
-  atB: number,
-): void {
-  let nlA = 0;
-  let clA = 0;
-  let dlA = 0;
-  let nhA = 0;
-  let chA = 0;
-  let dhA = 0;
-  let nlB = 0;
-  let clB = 0;
-  let dlB = 0;
-  let nhB = 0;
-  let chB = 0;
-  let dhB = 0;
-  for (let i = 0; i < n; i++) {
-    const c = cost[i];
-    const d = duration[i];
-    const kA = grades[offA + i];
-    const lowA = (kA - SWING_LOW_MAX - 1) >>> 31;
-    const highA = (SWING_HIGH_MIN - 1 - kA) >>> 31;
-    nlA += lowA;
-    clA += lowA * c;
-    dlA += lowA * d;
-    nhA += highA;
-    chA += highA * c;
-    dhA += highA * d;
-    const kB = grades[offB + i];
-    const lowB = (kB - SWING_LOW_MAX - 1) >>> 31;
-    const highB = (SWING_HIGH_MIN - 1 - kB) >>> 31;
-    nlB += lowB;
-    clB += lowB * c;
-    dlB += lowB * d;
-    nhB += highB;
-    chB += highB * c;
-    dhB += highB * d;
-  }
-  out[atA] = nlA;
-  out[atA + 1] = clA;
-  out[atA + 2] = dlA;
-  out[atA + 3] = nhA;
-  out[atA + 4] = chA;
-  out[atA + 5] = dhA;
-  out[atB] = nlB;
-  out[atB + 1] = clB;
-  out[atB + 2] = dlB;
-  out[atB + 3] = nhB;
-  out[atB + 4] = chB;
-  out[atB + 5] = dhB;
-}
-
 /** The swing sums of one tornado row (see BlockSummary.swingSums). */
 function swingInto(
   grades: Uint16Array,
@@ -791,12 +727,7 @@ export function simulateBlock(
   const headDurations = postHeadline ? ws.postDurationColumn : ws.durationColumn;
   for (let a = 0; a < acts; a++) momentsInto(headDurations[a], n, durationSums, 2 * a);
   const swingSums = new Float64Array(6 * rows);
-  let r = 0;
-  if (sink.duration.length > 0) {
-    for (; r + 1 < rows; r += 2)
-      swingInto2(grades, r * n, (r + 1) * n, sink.cost, sink.duration, n, swingSums, 6 * r, 6 * r + 6);
-  }
-  for (; r < rows; r++) swingInto(grades, r * n, sink.cost, sink.duration, n, swingSums, 6 * r);
+  for (let r = 0; r < rows; r++) swingInto(grades, r * n, sink.cost, sink.duration, n, swingSums, 6 * r);
   const pairSums = new Float64Array(plan.correlations.length * 5);
   plan.correlations.forEach((c, k) => {
     if (c.va >= 0) pairSumsInto(ws.groupedColumn[c.va]!, ws.groupedColumn[c.vb]!, n, pairSums, 5 * k);

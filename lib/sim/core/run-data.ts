@@ -114,82 +114,21 @@ export function blockCrossSums(
   const rows = plan.sensitivity.length;
   const out = new Float64Array(2 * rows);
   const off = block * BLOCK_SIZE;
-  // The sums wanted, as (row, which): out[2·row + which] over ranks of cost (0) or duration (1).
-  const wanted: number[] = [];
   for (let r = 0; r < rows; r++) {
     const input = plan.sensitivity[r];
-    if (input.cost) wanted.push(2 * r);
-    if (durationRanks && input.duration) wanted.push(2 * r + 1);
-  }
-  const ranksOf = (w: number) => (w & 1 ? durationRanks! : costRanks);
-  const baseOf = (w: number) => (w >> 1) * n;
-  // Four sums per sweep: each still adds its terms in iteration order (the same sum to the bit),
-  // but four independent chains of additions keep the processor busy where one would wait.
-  let k = 0;
-  for (; k + 3 < wanted.length; k += 4) {
-    const [w0, w1, w2, w3] = [wanted[k], wanted[k + 1], wanted[k + 2], wanted[k + 3]];
-    crossSums4(
-      grades,
-      ranksOf(w0),
-      ranksOf(w1),
-      ranksOf(w2),
-      ranksOf(w3),
-      baseOf(w0),
-      baseOf(w1),
-      baseOf(w2),
-      baseOf(w3),
-      off,
-      n,
-      out,
-      w0,
-      w1,
-      w2,
-      w3,
-    );
-  }
-  for (; k < wanted.length; k++) {
-    const w = wanted[k];
-    const ranks = ranksOf(w);
-    const base = baseOf(w);
-    let acc = 0;
-    for (let i = 0; i < n; i++) acc += grades[base + i] * ranks[off + i];
-    out[w] = acc;
+    const base = r * n;
+    if (input.cost) {
+      let acc = 0;
+      for (let i = 0; i < n; i++) acc += grades[base + i] * costRanks[off + i];
+      out[2 * r] = acc;
+    }
+    if (durationRanks && input.duration) {
+      let acc = 0;
+      for (let i = 0; i < n; i++) acc += grades[base + i] * durationRanks[off + i];
+      out[2 * r + 1] = acc;
+    }
   }
   return out;
-}
-
-function crossSums4(
-  grades: Uint16Array,
-  r0: Float64Array,
-  r1: Float64Array,
-  r2: Float64Array,
-  r3: Float64Array,
-  b0: number,
-  b1: number,
-  b2: number,
-  b3: number,
-  off: number,
-  n: number,
-  out: Float64Array,
-  w0: number,
-  w1: number,
-  w2: number,
-  w3: number,
-): void {
-  let a0 = 0;
-  let a1 = 0;
-  let a2 = 0;
-  let a3 = 0;
-  for (let i = 0; i < n; i++) {
-    a0 += grades[b0 + i] * r0[off + i];
-    a1 += grades[b1 + i] * r1[off + i];
-    a2 += grades[b2 + i] * r2[off + i];
-    a3 += grades[b3 + i] * r3[off + i];
-  }
-  out[w0] = a0;
-  out[w1] = a1;
-  out[w2] = a2;
-  out[w3] = a3;
 }
 
 /**
