@@ -134,6 +134,8 @@ interface Workspace {
   schedule: ForwardPassBuffers | null;
   /** Row of each variable in the grades, −1 when not a tornado input. */
   gradeRowOfVariable: Int32Array;
+  /** The iterations of each tornado row in the swing's bands (positions in a block: < BLOCK_SIZE, 16 bits). */
+  swing: SwingMarks;
   /** Each allocation slot's cost per iteration (slot s at s·stride), made when first needed. */
   inputCost: Float64Array | null;
   /** Activities that some risk's delay acts on (the others need no second cut at zero). */
@@ -206,6 +208,11 @@ function workspaceFor(plan: Plan, n: number): Workspace {
     induction: allocateInduction(plan.maxGroupSize, stride),
     schedule: acts ? allocateForwardPass(acts, stride) : null,
     gradeRowOfVariable,
+    swing: {
+      at: new Uint16Array(plan.sensitivity.length * stride),
+      low: new Int32Array(plan.sensitivity.length),
+      high: new Int32Array(plan.sensitivity.length),
+    },
     inputCost: null,
     delayed: Int32Array.from([...delayed].sort((a, b) => a - b)),
     postChanged: plan.network && plan.hasPost ? downstreamOf(plan.network, mitigated) : null,
@@ -316,7 +323,22 @@ function factorWhere(x: Float64Array, mask: Uint8Array, out: Float64Array, n: nu
   for (let i = 0; i < n; i++) out[i] = mask[i] ? x[i] : 1;
 }
 
-/** Stores k = ⌊g·2¹⁶⌋ at grades[off…] and Σg, Σg² of the stored values read back as (k + ½)/2¹⁶. */
+/**
+ * Where a block notes, per tornado row, the iterations whose grade falls in the swing's bands
+ * (≤ 0.1 and ≥ 0.9): row r's segment of `at` (stride long) holds the low ones from its start,
+ * ascending, and the high ones from its end, descending; `low[r]`/`high[r]` count them (−1: the
+ * row's grades were not stored in this block).
+ */
+interface SwingMarks {
+  at: Uint16Array;
+  low: Int32Array;
+  high: Int32Array;
+}
+
+/**
+ * Stores k = ⌊g·2¹⁶⌋ at grades[off…] and Σg, Σg² of the stored values read back as (k + ½)/2¹⁶;
+ * notes the iterations in the swing's bands (SwingMarks).
+ */
 function storeGrades(
   g: Float64Array,
   grades: Uint16Array,
@@ -324,10 +346,19 @@ function storeGrades(
   sums: Float64Array,
   row: number,
   n: number,
+  marks: SwingMarks,
+  stride: number,
 ) {
   // Integer sums (exact in double precision for any block size used here), scaled once; the sum
   // of squares in two halves, so that consecutive additions do not wait on each other (exact
-  // integers, so the split does not change the sum).
+  // integers, so the split does not change the sum). The band marks without branches (an
+  // iteration's band is a coin toss): each iteration is written at the next free place of both
+  // lists, and a list moves on only when the iteration belongs to it.
+  const at = marks.at;
+  let lo = row * stride;
+  let hi = lo + stride - 1;
+  const first = lo;
+  const last = hi;
   let s1 = 0;
   let s2a = 0;
   let s2b = 0;
@@ -342,6 +373,14 @@ function storeGrades(
     s1 += k + m;
     s2a += k * k;
     s2b += m * m;
+    at[lo] = i;
+    lo += (k - SWING_LOW_MAX - 1) >>> 31;
+    at[hi] = i;
+    hi -= (SWING_HIGH_MIN - 1 - k) >>> 31;
+    at[lo] = i + 1;
+    lo += (m - SWING_LOW_MAX - 1) >>> 31;
+    at[hi] = i + 1;
+    hi -= (SWING_HIGH_MIN - 1 - m) >>> 31;
   }
   if (i < n) {
     const x = g[i] * 65536;
@@ -349,7 +388,13 @@ function storeGrades(
     grades[off + i] = k;
     s1 += k;
     s2a += k * k;
+    at[lo] = i;
+    lo += (k - SWING_LOW_MAX - 1) >>> 31;
+    at[hi] = i;
+    hi -= (SWING_HIGH_MIN - 1 - k) >>> 31;
   }
+  marks.low[row] = lo - first;
+  marks.high[row] = last - hi;
   const s2 = s2a + s2b;
   // Σ(k + ½) = Σk + n/2 and Σ(k + ½)² = Σk² + Σk + n/4.
   sums[2 * row] = (s1 + n / 2) * GRADE_UNIT;
@@ -400,6 +445,41 @@ function momentsInto(x: Float64Array, n: number, out: Float64Array, at: number):
   }
   out[at] = s1;
   out[at + 1] = s2;
+}
+
+/**
+ * The swing sums of one tornado row from its band marks: the same additions as swingInto, in
+ * the same order, without the iterations that would only add zero.
+ */
+function swingFromMarks(
+  marks: SwingMarks,
+  row: number,
+  stride: number,
+  cost: Float64Array,
+  duration: Float64Array,
+  out: Float64Array,
+  at: number,
+): void {
+  const idx = marks.at;
+  const first = row * stride;
+  const nl = marks.low[row];
+  const nh = marks.high[row];
+  let cl = 0;
+  let dl = 0;
+  let ch = 0;
+  let dh = 0;
+  for (let j = first; j < first + nl; j++) cl += cost[idx[j]];
+  for (let j = first + stride - 1; j > first + stride - 1 - nh; j--) ch += cost[idx[j]];
+  if (duration.length > 0) {
+    for (let j = first; j < first + nl; j++) dl += duration[idx[j]];
+    for (let j = first + stride - 1; j > first + stride - 1 - nh; j--) dh += duration[idx[j]];
+  }
+  out[at] = nl;
+  out[at + 1] = cl;
+  out[at + 2] = dl;
+  out[at + 3] = nh;
+  out[at + 4] = ch;
+  out[at + 5] = dh;
 }
 
 /** The swing sums of one tornado row (see BlockSummary.swingSums). */
@@ -478,6 +558,7 @@ export function simulateBlock(
   const { grades } = sink;
   const gradeSums = new Float64Array(2 * rows);
   preCost.fill(0, 0, n);
+  ws.swing.low.fill(-1);
 
   /** The uniforms of variable v: its group's column, or drawn now into `into`. */
   const uniforms = (v: number, into: Float64Array): Float64Array => {
@@ -492,7 +573,7 @@ export function simulateBlock(
   const column = (v: number, into: Float64Array): Float64Array => {
     const u = uniforms(v, into);
     const row = ws.gradeRowOfVariable[v];
-    if (row >= 0 && !tap) storeGrades(u, grades, row * n, gradeSums, row, n);
+    if (row >= 0 && !tap) storeGrades(u, grades, row * n, gradeSums, row, n, ws.swing, ws.stride);
     return u;
   };
   const applyDrivers = (list: Int32Array, x: Float64Array) => {
@@ -727,7 +808,11 @@ export function simulateBlock(
   const headDurations = postHeadline ? ws.postDurationColumn : ws.durationColumn;
   for (let a = 0; a < acts; a++) momentsInto(headDurations[a], n, durationSums, 2 * a);
   const swingSums = new Float64Array(6 * rows);
-  for (let r = 0; r < rows; r++) swingInto(grades, r * n, sink.cost, sink.duration, n, swingSums, 6 * r);
+  for (let r = 0; r < rows; r++) {
+    if (ws.swing.low[r] >= 0)
+      swingFromMarks(ws.swing, r, ws.stride, sink.cost, sink.duration, swingSums, 6 * r);
+    else swingInto(grades, r * n, sink.cost, sink.duration, n, swingSums, 6 * r);
+  }
   const pairSums = new Float64Array(plan.correlations.length * 5);
   plan.correlations.forEach((c, k) => {
     if (c.va >= 0) pairSumsInto(ws.groupedColumn[c.va]!, ws.groupedColumn[c.vb]!, n, pairSums, 5 * k);
