@@ -91,19 +91,6 @@ export class Sfc32 {
    * are exact in double precision, and frac never reaches 0 or 1 since U = (k + ½)/2³².
    */
   shuffleWithFractions(perm: Int32Array, frac: Float64Array, n: number): void {
-    this.stratified(perm, frac, n, false);
-  }
-
-  /**
-   * Latin hypercube column in one pass: out[i] = (π(i) + frac_i)/n with π and frac as in
-   * shuffleWithFractions (position i is final once the shuffle has passed it).
-   */
-  latinHypercube(perm: Int32Array, out: Float64Array, n: number): void {
-    this.stratified(perm, out, n, true);
-  }
-
-  private stratified(perm: Int32Array, frac: Float64Array, n: number, combine: boolean): void {
-    const inv = 1 / n;
     for (let i = 0; i < n; i++) perm[i] = i;
     const s = this.s;
     let a = s[0];
@@ -122,7 +109,40 @@ export class Sfc32 {
       const q = perm[j];
       perm[i] = q;
       perm[j] = p;
-      frac[i] = combine ? (q + (x - j)) * inv : x - j;
+      frac[i] = x - j;
+    }
+    s[0] = a;
+    s[1] = b;
+    s[2] = c;
+    s[3] = d;
+  }
+
+  /**
+   * Latin hypercube column in one pass: out[i] = (π(i) + frac_i)/n with π and frac as in
+   * shuffleWithFractions (position i is final once the shuffle has passed it).
+   */
+  latinHypercube(perm: Int32Array, out: Float64Array, n: number): void {
+    // shuffleWithFractions' loop with the column written at once: a position, once passed, is
+    // never read again, so its stratum is used and not stored.
+    const inv = 1 / n;
+    for (let i = 0; i < n; i++) perm[i] = i;
+    const s = this.s;
+    let a = s[0];
+    let b = s[1];
+    let c = s[2];
+    let d = s[3];
+    for (let i = n - 1; i >= 0; i--) {
+      const t = (((a + b) | 0) + d) | 0;
+      d = (d + 1) | 0;
+      a = b ^ (b >>> 9);
+      b = (c + (c << 3)) | 0;
+      c = (((c << 21) | (c >>> 11)) + t) | 0;
+      const x = ((t >>> 0) + 0.5) * TWO_POW_M32 * (i + 1);
+      // ⌊x⌋, as 0 ≤ x < 2³¹.
+      const j = x | 0;
+      const q = perm[j];
+      perm[j] = perm[i];
+      out[i] = (q + (x - j)) * inv;
     }
     s[0] = a;
     s[1] = b;
