@@ -156,8 +156,6 @@ class QuantileTable implements BetaQuantileTable {
   private sink = 0;
   private readonly one = new Float64Array(1);
   private readonly result = new Float64Array(1);
-  /** The exact quantile, for flagged cells. */
-  private readonly exact = (v: number) => this.slow.invert(v);
   constructor(
     readonly node: Float64Array,
     readonly flagged: Uint8Array,
@@ -181,7 +179,7 @@ class QuantileTable implements BetaQuantileTable {
     // Read the table once in order first: a sequential sweep brings it into cache far faster
     // than the scattered lookups below would, one miss at a time.
     if (n >= 256) this.sink = prefetch(nd, fl);
-    hermiteCellsInto(nd, fl, G, this.exact, u, out, n, a, w);
+    hermiteCellsInto(nd, fl, G, this.slow, u, out, n, a, w);
   }
 }
 

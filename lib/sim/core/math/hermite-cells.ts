@@ -17,15 +17,22 @@ export function hermiteCell(node: Float64Array, g: number, t: number): number {
   return x0 + t * (m0 + t * (3 * d - 2 * m0 - m1 + t * (m0 + m1 - 2 * d)));
 }
 
+/** The exact quantile function, for the cells where the cubic is not accurate enough. */
+export interface ExactQuantile {
+  invert(u: number): number;
+}
+
 /**
- * out[i] = shift + scale · x(u[i]) for i < n: the cell's cubic, or `exact(u[i])` where the cell is
- * flagged (the cubic is not accurate enough there) or u[i] is not inside (0, 1).
+ * out[i] = shift + scale · x(u[i]) for i < n: the cell's cubic, or `exact.invert(u[i])` where the
+ * cell is flagged (the cubic is not accurate enough there) or u[i] is not inside (0, 1). (A
+ * method of an object rather than a function argument: every table of one kind then shares one
+ * call target, which the compiler can inline.)
  */
 export function hermiteCellsInto(
   node: Float64Array,
   flagged: Uint8Array,
   G: number,
-  exact: (u: number) => number,
+  exact: ExactQuantile,
   u: Float64Array,
   out: Float64Array,
   n: number,
@@ -36,7 +43,7 @@ export function hermiteCellsInto(
     const s = u[i] * G;
     const g = s | 0;
     if (g >= G || flagged[g] === 1 || !(s > 0)) {
-      out[i] = shift + scale * exact(u[i]);
+      out[i] = shift + scale * exact.invert(u[i]);
       continue;
     }
     const t = s - g;
