@@ -617,12 +617,13 @@ export function simulateBlock(
       if (tap) tap.sums[tap.itemSlot[k]] += dist.mean * n;
       if (keep) kept(k).fill(dist.mean);
     } else {
-      if (v < 0) tmp.fill(dist.mean, 0, n);
-      else dist.quantileInto(column(v, ws.free), tmp, n);
-      applyDrivers(drivers, tmp);
-      addInto(preCost, tmp, n);
-      if (tap) tap.sums[tap.itemSlot[k]] += sumOf(tmp, n);
-      if (keep) kept(k).set(tmp.subarray(0, n));
+      // Computed where the band keeps it, when it does (no copy).
+      const x = keep ? kept(k) : tmp;
+      if (v < 0) x.fill(dist.mean, 0, n);
+      else dist.quantileInto(column(v, ws.free), x, n);
+      applyDrivers(drivers, x);
+      addInto(preCost, x, n);
+      if (tap) tap.sums[tap.itemSlot[k]] += sumOf(x, n);
     }
   }
   if (hasPost) postCost.set(preCost.subarray(0, n));
