@@ -5,6 +5,7 @@ import { spearmanToPearson } from '../correlation/rank-pearson';
 import { simulateSync } from '../engine';
 import { normalCdf, normalPdf } from '../math/normal';
 import { allocateForwardPass, downstreamOf, forwardPass } from '../schedule/forward-pass';
+import { scheduleDates } from '../schedule/dates';
 import { buildNetwork } from '../schedule/network';
 import { fixed, model, normal, uniform } from './helpers';
 
@@ -145,5 +146,31 @@ describe('a pass over the changed activities only', () => {
     expect(partialTotal).toEqual(fullTotal);
     expect(partialCritical).toEqual(fullCritical);
     expect(partialTotal).not.toEqual(first);
+  });
+});
+
+// Which activities may be the last to finish, against early dates worked out by hand with the
+// precedence diagramming method's rules (common practice: FS ES_b ≥ EF_a + lag, SS ES_b ≥ ES_a +
+// lag, FF EF_b ≥ EF_a + lag, nothing starts before 0, T the latest early finish).
+describe('activities that can finish last', () => {
+  const activities = [
+    { id: 'A', duration: fixed(3) },
+    { id: 'B', duration: fixed(5), predecessors: ['A'] },
+    { id: 'C', duration: fixed(10), predecessors: [{ id: 'B', lag: 2 }] },
+    { id: 'D', duration: fixed(1), predecessors: [{ id: 'C', lag: -4 }] },
+    { id: 'E', duration: fixed(2), predecessors: [{ id: 'D', type: 'SS' as const }] },
+    { id: 'F', duration: fixed(1), predecessors: [{ id: 'E', type: 'FF' as const }] },
+  ];
+
+  it('leaves out an activity with a predecessor and a finish-to-start successor, lag ≥ 0', () => {
+    // By hand: A 0–3, B 3–8, C 10–20 (FS+2), D 16–17 (FS−4: a lead), E 16–18 (SS), F 17–18 (FF).
+    // B has a predecessor and an FS+2 successor (C finishes at 20 ≥ 8): 0. A has no predecessor,
+    // C's successor is a lead (D finishes before C), D's successor is SS and E's is FF (the pass
+    // reaches an FF bound through the start, so it is not counted on): 1. F has no successor: 1.
+    expect(Array.from(buildNetwork(activities).canFinishLast)).toEqual([1, 0, 1, 1, 1, 1]);
+    // T = 20, C's finish: C follows B and precedes D, and still finishes last.
+    const dates = scheduleDates(activities, [3, 5, 10, 1, 2, 1]);
+    expect(dates.duration).toBe(20);
+    expect(dates.activities.F).toMatchObject({ earlyStart: 17, earlyFinish: 18 });
   });
 });

@@ -53,11 +53,21 @@ export function allocateForwardPass(size: number, stride: number): ForwardPassBu
  * duration[a·stride + i], i < n → total[i] (project duration) and critical[a] += iterations in
  * which a is critical; with critical null, the project duration alone (no backward pass).
  * Finish-to-start networks (the common case) take a route without the link-type tests.
+ * Durations are finite and ≥ 0 (the callers cut them at 0).
  *
  * `changed` (1 per activity whose finish may differ from the last pass over these buffers: its
  * duration differs, or a predecessor's finish may) lets a second pass over nearly the same
  * durations recompute those activities alone; the others keep their finishes and only take part
  * in T, in the same order, so T is the same to the bit as a full pass.
+ *
+ * T leaves out the activities that cannot finish last (Network.canFinishLast): each has a
+ * successor that finishes no earlier, so the maximum is the same number; at 0 its sign comes
+ * from the first activity in the order, which has no predecessor and is never left out.
+ *
+ * The maxima over predecessors are taken without a branch (the comparison goes either way at
+ * random, and a mispredicted branch costs more than the arithmetic): with m = 1 when c > b,
+ * else 0, c·m + b·(1 − m) is c or b exactly, as b ≥ +0 and both are finite: the other term is
+ * ±0, and adding it leaves a positive number as it is and b = +0 as +0.
  */
 export function forwardPass(
   net: Network,
@@ -77,8 +87,8 @@ export function forwardPass(
   backward(net, duration, n, buf, total, critical);
 }
 
-/** An activity whose finish is kept from the last pass: it takes part in T alone. */
-function keptFinishInto(finish: Float64Array, base: number, total: Float64Array, n: number): void {
+/** T = max(T, the activity's finish). */
+function latestInto(finish: Float64Array, base: number, total: Float64Array, n: number): void {
   for (let i = 0; i < n; i++) {
     const f = finish[base + i];
     if (f > total[i]) total[i] = f;
@@ -98,11 +108,7 @@ export function downstreamOf(net: Network, from: Iterable<number>): Uint8Array {
   return out;
 }
 
-/**
- * The forward pass of a finish-to-start network. Loops fused by the number of predecessors: the
- * first link writes the start bound (at least 0), the last one also adds the duration and keeps
- * T, so an activity with one predecessor takes one loop.
- */
+/** The forward pass of a finish-to-start network. */
 function forwardFinishToStart(
   net: Network,
   duration: Float64Array,
@@ -112,50 +118,62 @@ function forwardFinishToStart(
   changed?: Uint8Array,
 ): void {
   const { finish, stride } = buf;
-  const { order, predStart, predIndex, predLag } = net;
+  const { order, canFinishLast } = net;
   for (let k = 0; k < net.size; k++) {
     const a = order[k];
     const base = a * stride;
-    if (changed && !changed[a]) {
-      keptFinishInto(finish, base, total, n);
-      continue;
-    }
-    const s = predStart[a];
-    const e = predStart[a + 1];
-    if (s === e) {
-      for (let i = 0; i < n; i++) {
-        const f = duration[base + i];
-        finish[base + i] = f;
-        if (f > total[i]) total[i] = f;
-      }
-      continue;
-    }
-    if (e - s > 1) {
-      const pb = predIndex[s] * stride;
-      const lag = predLag[s];
-      for (let i = 0; i < n; i++) {
-        const c = finish[pb + i] + lag;
-        finish[base + i] = c > 0 ? c : 0;
-      }
-      for (let j = s + 1; j < e - 1; j++) {
-        const qb = predIndex[j] * stride;
-        const lj = predLag[j];
-        for (let i = 0; i < n; i++) {
-          const c = finish[qb + i] + lj;
-          if (c > finish[base + i]) finish[base + i] = c;
-        }
-      }
-    }
-    const pb = predIndex[e - 1] * stride;
-    const lag = predLag[e - 1];
-    const only = e - s === 1;
+    if (!changed || changed[a]) finishOf(a, base, net, duration, n, finish, stride);
+    if (canFinishLast[a]) latestInto(finish, base, total, n);
+  }
+}
+
+/**
+ * Activity a's early finish in a finish-to-start network. Loops fused by the number of
+ * predecessors: the first link writes the start bound (at least 0), the last one also adds the
+ * duration, so an activity with one predecessor takes one loop.
+ */
+function finishOf(
+  a: number,
+  base: number,
+  net: Network,
+  duration: Float64Array,
+  n: number,
+  finish: Float64Array,
+  stride: number,
+): void {
+  const { predStart, predIndex, predLag } = net;
+  const s = predStart[a];
+  const e = predStart[a + 1];
+  if (s === e) {
+    finish.set(duration.subarray(base, base + n), base);
+    return;
+  }
+  if (e - s > 1) {
+    const pb = predIndex[s] * stride;
+    const lag = predLag[s];
     for (let i = 0; i < n; i++) {
       const c = finish[pb + i] + lag;
-      const bound = only ? 0 : finish[base + i];
-      const f = (c > bound ? c : bound) + duration[base + i];
-      finish[base + i] = f;
-      if (f > total[i]) total[i] = f;
+      finish[base + i] = c > 0 ? c : 0;
     }
+    for (let j = s + 1; j < e - 1; j++) {
+      const qb = predIndex[j] * stride;
+      const lj = predLag[j];
+      for (let i = 0; i < n; i++) {
+        const c = finish[qb + i] + lj;
+        const b = finish[base + i];
+        const m = +(c > b);
+        finish[base + i] = c * m + b * (1 - m);
+      }
+    }
+  }
+  const pb = predIndex[e - 1] * stride;
+  const lag = predLag[e - 1];
+  const only = e - s === 1;
+  for (let i = 0; i < n; i++) {
+    const c = finish[pb + i] + lag;
+    const bound = only ? 0 : finish[base + i];
+    const m = +(c > bound);
+    finish[base + i] = c * m + bound * (1 - m) + duration[base + i];
   }
 }
 
@@ -173,34 +191,31 @@ function forwardMixed(
   changed?: Uint8Array,
 ) {
   const { finish, stride } = buf;
-  const { order, predStart, predIndex, predLag, predType } = net;
+  const { order, predStart, predIndex, predLag, predType, canFinishLast } = net;
   for (let k = 0; k < net.size; k++) {
     const a = order[k];
     const base = a * stride;
-    if (changed && !changed[a]) {
-      keptFinishInto(finish, base, total, n);
-      continue;
-    }
-    for (let i = 0; i < n; i++) finish[base + i] = 0;
-    for (let j = predStart[a]; j < predStart[a + 1]; j++) {
-      const pb = predIndex[j] * stride;
-      const lag = predLag[j];
-      const type = predType[j];
-      // Which of the predecessor's dates the bound starts from, and which of a's it bounds.
-      const fromStart = type === LINK.SS || type === LINK.SF;
-      const onFinish = type === LINK.FF || type === LINK.SF;
-      for (let i = 0; i < n; i++) {
-        let c = finish[pb + i] + lag;
-        if (fromStart) c -= duration[pb + i];
-        if (onFinish) c -= duration[base + i];
-        if (c > finish[base + i]) finish[base + i] = c;
+    if (!changed || changed[a]) {
+      for (let i = 0; i < n; i++) finish[base + i] = 0;
+      for (let j = predStart[a]; j < predStart[a + 1]; j++) {
+        const pb = predIndex[j] * stride;
+        const lag = predLag[j];
+        const type = predType[j];
+        // Which of the predecessor's dates the bound starts from, and which of a's it bounds.
+        const fromStart = type === LINK.SS || type === LINK.SF;
+        const onFinish = type === LINK.FF || type === LINK.SF;
+        for (let i = 0; i < n; i++) {
+          let c = finish[pb + i] + lag;
+          if (fromStart) c -= duration[pb + i];
+          if (onFinish) c -= duration[base + i];
+          const b = finish[base + i];
+          const m = +(c > b);
+          finish[base + i] = c * m + b * (1 - m);
+        }
       }
+      for (let i = 0; i < n; i++) finish[base + i] += duration[base + i];
     }
-    for (let i = 0; i < n; i++) {
-      const f = finish[base + i] + duration[base + i];
-      finish[base + i] = f;
-      if (f > total[i]) total[i] = f;
-    }
+    if (canFinishLast[a]) latestInto(finish, base, total, n);
   }
 }
 
