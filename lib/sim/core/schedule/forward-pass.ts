@@ -239,8 +239,9 @@ function backward(
     const a = order[k];
     const base = a * stride;
     if (isSink[a]) late.set(total.subarray(0, n), base);
+    // Counted without a branch: critical or not goes either way at random.
     let count = 0;
-    for (let i = 0; i < n; i++) if (late[base + i] - finish[base + i] <= tolerance[i]) count++;
+    for (let i = 0; i < n; i++) count += +(late[base + i] - finish[base + i] <= tolerance[i]);
     critical[a] += count;
     for (let j = predStart[a]; j < predStart[a + 1]; j++) {
       const pb = predIndex[j] * stride;
