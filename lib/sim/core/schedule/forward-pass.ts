@@ -239,29 +239,32 @@ function backward(
     const a = order[k];
     const base = a * stride;
     if (isSink[a]) late.set(total.subarray(0, n), base);
-    // Counted without a branch: critical or not goes either way at random.
-    let count = 0;
-    for (let i = 0; i < n; i++) count += +(late[base + i] - finish[base + i] <= tolerance[i]);
-    critical[a] += count;
-    for (let j = predStart[a]; j < predStart[a + 1]; j++) {
+    const s = predStart[a];
+    const e = predStart[a + 1];
+    // The count shares its pass over a's columns with a's first link when that is FS.
+    const shared = s < e && predType[s] === LINK.FS;
+    critical[a] += shared
+      ? finishToStartInto(
+          buf,
+          duration,
+          total,
+          base,
+          predIndex[s] * stride,
+          predLag[s],
+          firstLink[s],
+          n,
+          true,
+        )
+      : criticalIn(late, finish, tolerance, base, n);
+    for (let j = shared ? s + 1 : s; j < e; j++) {
       const pb = predIndex[j] * stride;
       const type = predType[j];
-      // The bound on LF_p is LF_a − lag − shift, where shift = d_a (from a's start) − d_p (to p's start).
       const lag = predLag[j];
       if (type === LINK.FS) {
-        if (firstLink[j]) {
-          for (let i = 0; i < n; i++) {
-            const c = late[base + i] - duration[base + i] - lag;
-            late[pb + i] = c < total[i] ? c : total[i];
-          }
-        } else {
-          for (let i = 0; i < n; i++) {
-            const c = late[base + i] - duration[base + i] - lag;
-            if (c < late[pb + i]) late[pb + i] = c;
-          }
-        }
+        finishToStartInto(buf, duration, total, base, pb, lag, firstLink[j], n, false);
         continue;
       }
+      // The bound on LF_p is LF_a − lag − shift, where shift = d_a (from a's start) − d_p (to p's start).
       const fromSuccessorStart = type === LINK.SS;
       const toPredecessorStart = type === LINK.SS || type === LINK.SF;
       if (firstLink[j]) late.set(total.subarray(0, n), pb);
@@ -273,4 +276,63 @@ function backward(
       }
     }
   }
+}
+
+/** The iterations in which the activity at `base` is critical (counted without a branch: critical or not goes either way at random). */
+function criticalIn(
+  late: Float64Array,
+  finish: Float64Array,
+  tolerance: Float64Array,
+  base: number,
+  n: number,
+): number {
+  let count = 0;
+  for (let i = 0; i < n; i++) count += +(late[base + i] - finish[base + i] <= tolerance[i]);
+  return count;
+}
+
+/**
+ * LF_p ≤ LF_a − d_a − lag, through an FS link from p (at pb) to a (at base); `first` writes
+ * LF_p, min with T. With `count`, also criticalIn for a, in the same pass (one pass less over
+ * a's columns); else 0.
+ */
+function finishToStartInto(
+  buf: ForwardPassBuffers,
+  duration: Float64Array,
+  total: Float64Array,
+  base: number,
+  pb: number,
+  lag: number,
+  first: number,
+  n: number,
+  count: boolean,
+): number {
+  const { late, finish, tolerance } = buf;
+  let critical = 0;
+  if (count && first) {
+    for (let i = 0; i < n; i++) {
+      const l = late[base + i];
+      critical += +(l - finish[base + i] <= tolerance[i]);
+      const c = l - duration[base + i] - lag;
+      late[pb + i] = c < total[i] ? c : total[i];
+    }
+  } else if (count) {
+    for (let i = 0; i < n; i++) {
+      const l = late[base + i];
+      critical += +(l - finish[base + i] <= tolerance[i]);
+      const c = l - duration[base + i] - lag;
+      if (c < late[pb + i]) late[pb + i] = c;
+    }
+  } else if (first) {
+    for (let i = 0; i < n; i++) {
+      const c = late[base + i] - duration[base + i] - lag;
+      late[pb + i] = c < total[i] ? c : total[i];
+    }
+  } else {
+    for (let i = 0; i < n; i++) {
+      const c = late[base + i] - duration[base + i] - lag;
+      if (c < late[pb + i]) late[pb + i] = c;
+    }
+  }
+  return critical;
 }
