@@ -130,7 +130,7 @@ function forwardFinishToStart(
 /**
  * Activity a's early finish in a finish-to-start network. Loops fused by the number of
  * predecessors: the first link writes the start bound (at least 0), the last one also adds the
- * duration, so an activity with one predecessor takes one loop.
+ * duration, and an activity with one predecessor takes one loop of its own.
  */
 function finishOf(
   a: number,
@@ -168,12 +168,19 @@ function finishOf(
   }
   const pb = predIndex[e - 1] * stride;
   const lag = predLag[e - 1];
-  const only = e - s === 1;
+  if (e - s === 1) {
+    // One predecessor: its finish plus the lag is rarely below 0, so this branch is predictable.
+    for (let i = 0; i < n; i++) {
+      const c = finish[pb + i] + lag;
+      finish[base + i] = (c > 0 ? c : 0) + duration[base + i];
+    }
+    return;
+  }
   for (let i = 0; i < n; i++) {
     const c = finish[pb + i] + lag;
-    const bound = only ? 0 : finish[base + i];
-    const m = +(c > bound);
-    finish[base + i] = c * m + bound * (1 - m) + duration[base + i];
+    const b = finish[base + i];
+    const m = +(c > b);
+    finish[base + i] = c * m + b * (1 - m) + duration[base + i];
   }
 }
 
@@ -278,7 +285,10 @@ function backward(
   }
 }
 
-/** The iterations in which the activity at `base` is critical (counted without a branch: critical or not goes either way at random). */
+/**
+ * The iterations in which the activity at `base` is critical, counted without a branch (critical
+ * or not goes either way at random).
+ */
 function criticalIn(
   late: Float64Array,
   finish: Float64Array,
