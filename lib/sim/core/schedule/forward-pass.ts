@@ -128,9 +128,11 @@ function forwardFinishToStart(
 }
 
 /**
- * Activity a's early finish in a finish-to-start network. Loops fused by the number of
- * predecessors: the first link writes the start bound (at least 0), the last one also adds the
- * duration, and an activity with one predecessor takes one loop of its own.
+ * Activity a's early finish in a finish-to-start network. One loop for an activity with up to
+ * three predecessors (each loop reads and writes memory, and its overhead counts); with more,
+ * the first link writes the start bound, the others raise it, and the last adds the duration.
+ * The first bound is at least 0: its finish plus the lag is rarely below 0, so that branch is
+ * predictable.
  */
 function finishOf(
   a: number,
@@ -143,45 +145,62 @@ function finishOf(
 ): void {
   const { predStart, predIndex, predLag } = net;
   const s = predStart[a];
-  const e = predStart[a + 1];
-  if (s === e) {
+  const links = predStart[a + 1] - s;
+  if (links === 0) {
     finish.set(duration.subarray(base, base + n), base);
     return;
   }
-  if (e - s > 1) {
-    const pb = predIndex[s] * stride;
-    const lag = predLag[s];
+  const pb = predIndex[s] * stride;
+  const lp = predLag[s];
+  if (links === 1) {
     for (let i = 0; i < n; i++) {
-      const c = finish[pb + i] + lag;
-      finish[base + i] = c > 0 ? c : 0;
-    }
-    for (let j = s + 1; j < e - 1; j++) {
-      const qb = predIndex[j] * stride;
-      const lj = predLag[j];
-      for (let i = 0; i < n; i++) {
-        const c = finish[qb + i] + lj;
-        const b = finish[base + i];
-        const m = +(c > b);
-        finish[base + i] = c * m + b * (1 - m);
-      }
-    }
-  }
-  const pb = predIndex[e - 1] * stride;
-  const lag = predLag[e - 1];
-  if (e - s === 1) {
-    // One predecessor: its finish plus the lag is rarely below 0, so this branch is predictable.
-    for (let i = 0; i < n; i++) {
-      const c = finish[pb + i] + lag;
+      const c = finish[pb + i] + lp;
       finish[base + i] = (c > 0 ? c : 0) + duration[base + i];
     }
     return;
   }
-  for (let i = 0; i < n; i++) {
-    const c = finish[pb + i] + lag;
-    const b = finish[base + i];
-    const m = +(c > b);
-    finish[base + i] = c * m + b * (1 - m) + duration[base + i];
+  const qb = predIndex[s + 1] * stride;
+  const lq = predLag[s + 1];
+  if (links === 2) {
+    for (let i = 0; i < n; i++) {
+      const cp = finish[pb + i] + lp;
+      const b = cp > 0 ? cp : 0;
+      const c = finish[qb + i] + lq;
+      const m = +(c > b);
+      finish[base + i] = c * m + b * (1 - m) + duration[base + i];
+    }
+    return;
   }
+  const rb = predIndex[s + 2] * stride;
+  const lr = predLag[s + 2];
+  if (links === 3) {
+    for (let i = 0; i < n; i++) {
+      const cp = finish[pb + i] + lp;
+      const bp = cp > 0 ? cp : 0;
+      const cq = finish[qb + i] + lq;
+      const mq = +(cq > bp);
+      const b = cq * mq + bp * (1 - mq);
+      const c = finish[rb + i] + lr;
+      const m = +(c > b);
+      finish[base + i] = c * m + b * (1 - m) + duration[base + i];
+    }
+    return;
+  }
+  for (let i = 0; i < n; i++) {
+    const c = finish[pb + i] + lp;
+    finish[base + i] = c > 0 ? c : 0;
+  }
+  for (let j = s + 1; j < s + links; j++) {
+    const jb = predIndex[j] * stride;
+    const lj = predLag[j];
+    for (let i = 0; i < n; i++) {
+      const c = finish[jb + i] + lj;
+      const b = finish[base + i];
+      const m = +(c > b);
+      finish[base + i] = c * m + b * (1 - m);
+    }
+  }
+  for (let i = 0; i < n; i++) finish[base + i] += duration[base + i];
 }
 
 /**
