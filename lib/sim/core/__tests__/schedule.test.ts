@@ -174,3 +174,26 @@ describe('activities that can finish last', () => {
     expect(dates.activities.F).toMatchObject({ earlyStart: 17, earlyFinish: 18 });
   });
 });
+
+// An activity with more predecessors than the passes fuse into one loop (four), against dates
+// worked out by hand with the precedence diagramming method's rules (common practice).
+describe('an activity with four predecessors', () => {
+  it('starts after the latest of them and leaves the others their float', () => {
+    const activities = [
+      { id: 'A', duration: fixed(4) },
+      { id: 'B', duration: fixed(6) },
+      { id: 'C', duration: fixed(3), predecessors: ['A'] },
+      { id: 'D', duration: fixed(2) },
+      { id: 'E', duration: fixed(5), predecessors: ['A', { id: 'B', lag: 1 }, 'C', { id: 'D', lag: 2 }] },
+    ];
+    // By hand: A 0–4, B 0–6, C 4–7, D 0–2; ES_E = max(4, 6 + 1, 7, 2 + 2) = 7 (B and C tie),
+    // EF_E = 12 = T. Backward: LS_E = 7, so LF_A ≤ 7 and LF_C ≤ 7, LF_B ≤ 6, LF_D ≤ 5; LF_A is
+    // also ≤ LS_C = 4. Floats: A 0, B 0, C 0, D 3, E 0.
+    const r = scheduleDates(activities, [4, 6, 3, 2, 5]);
+    expect(r.duration).toBe(12);
+    expect(r.activities.E).toMatchObject({ earlyStart: 7, earlyFinish: 12, lateFinish: 12 });
+    const floats = Object.fromEntries(Object.entries(r.activities).map(([id, d]) => [id, d.totalFloat]));
+    expect(floats).toEqual({ A: 0, B: 0, C: 0, D: 3, E: 0 });
+    expect(r.activities.D.lateFinish).toBe(5);
+  });
+});

@@ -84,7 +84,8 @@ export function forwardPass(
   if (!critical) return;
   const { tolerance } = buf;
   for (let i = 0; i < n; i++) tolerance[i] = FLOAT_TOLERANCE * Math.max(1, Math.abs(total[i]));
-  backward(net, duration, n, buf, total, critical);
+  if (net.mixedLinks) backwardMixed(net, duration, n, buf, total, critical);
+  else backwardFinishToStart(net, duration, n, buf, total, critical);
 }
 
 /** T = max(T, the activity's finish). */
@@ -251,7 +252,7 @@ function forwardMixed(
  * successors all come later in the order). An activity's late finish starts at T: written by
  * its first successor's link in this order (Network.firstLink), or by itself when it has none.
  */
-function backward(
+function backwardMixed(
   net: Network,
   duration: Float64Array,
   n: number,
@@ -265,32 +266,26 @@ function backward(
     const a = order[k];
     const base = a * stride;
     if (isSink[a]) late.set(total.subarray(0, n), base);
-    const s = predStart[a];
-    const e = predStart[a + 1];
-    // The count shares its pass over a's columns with a's first link when that is FS.
-    const shared = s < e && predType[s] === LINK.FS;
-    critical[a] += shared
-      ? finishToStartInto(
-          buf,
-          duration,
-          total,
-          base,
-          predIndex[s] * stride,
-          predLag[s],
-          firstLink[s],
-          n,
-          true,
-        )
-      : criticalIn(late, finish, tolerance, base, n);
-    for (let j = shared ? s + 1 : s; j < e; j++) {
+    critical[a] += criticalIn(late, finish, tolerance, base, n);
+    for (let j = predStart[a]; j < predStart[a + 1]; j++) {
       const pb = predIndex[j] * stride;
       const type = predType[j];
+      // The bound on LF_p is LF_a − lag − shift, where shift = d_a (from a's start) − d_p (to p's start).
       const lag = predLag[j];
       if (type === LINK.FS) {
-        finishToStartInto(buf, duration, total, base, pb, lag, firstLink[j], n, false);
+        if (firstLink[j]) {
+          for (let i = 0; i < n; i++) {
+            const c = late[base + i] - duration[base + i] - lag;
+            late[pb + i] = c < total[i] ? c : total[i];
+          }
+        } else {
+          for (let i = 0; i < n; i++) {
+            const c = late[base + i] - duration[base + i] - lag;
+            if (c < late[pb + i]) late[pb + i] = c;
+          }
+        }
         continue;
       }
-      // The bound on LF_p is LF_a − lag − shift, where shift = d_a (from a's start) − d_p (to p's start).
       const fromSuccessorStart = type === LINK.SS;
       const toPredecessorStart = type === LINK.SS || type === LINK.SF;
       if (firstLink[j]) late.set(total.subarray(0, n), pb);
@@ -321,47 +316,80 @@ function criticalIn(
 }
 
 /**
- * LF_p ≤ LF_a − d_a − lag, through an FS link from p (at pb) to a (at base); `first` writes
- * LF_p, min with T. With `count`, also criticalIn for a, in the same pass (one pass less over
- * a's columns); else 0.
+ * The backward pass of a finish-to-start network: LF_p ≤ LS_a − lag. A predecessor's late
+ * finish is set to T before its first link lowers it (a copy costs less than a loop). An
+ * activity with up to three predecessors takes one loop: its critical count and every link
+ * (each loop reads and writes memory, and its overhead counts).
  */
-function finishToStartInto(
-  buf: ForwardPassBuffers,
+function backwardFinishToStart(
+  net: Network,
   duration: Float64Array,
-  total: Float64Array,
-  base: number,
-  pb: number,
-  lag: number,
-  first: number,
   n: number,
-  count: boolean,
-): number {
-  const { late, finish, tolerance } = buf;
-  let critical = 0;
-  if (count && first) {
-    for (let i = 0; i < n; i++) {
-      const l = late[base + i];
-      critical += +(l - finish[base + i] <= tolerance[i]);
-      const c = l - duration[base + i] - lag;
-      late[pb + i] = c < total[i] ? c : total[i];
+  buf: ForwardPassBuffers,
+  total: Float64Array,
+  critical: Int32Array,
+): void {
+  const { late, finish, tolerance, stride } = buf;
+  const { order, predStart, predIndex, predLag, firstLink, isSink } = net;
+  const lateFinish = total.subarray(0, n);
+  for (let k = net.size - 1; k >= 0; k--) {
+    const a = order[k];
+    const base = a * stride;
+    if (isSink[a]) late.set(lateFinish, base);
+    const s = predStart[a];
+    const links = predStart[a + 1] - s;
+    for (let j = s; j < s + links; j++) if (firstLink[j]) late.set(lateFinish, predIndex[j] * stride);
+    if (links === 0 || links > 3) {
+      critical[a] += criticalIn(late, finish, tolerance, base, n);
+      for (let j = s; j < s + links; j++) {
+        const pb = predIndex[j] * stride;
+        const lag = predLag[j];
+        for (let i = 0; i < n; i++) {
+          const c = late[base + i] - duration[base + i] - lag;
+          if (c < late[pb + i]) late[pb + i] = c;
+        }
+      }
+      continue;
     }
-  } else if (count) {
-    for (let i = 0; i < n; i++) {
-      const l = late[base + i];
-      critical += +(l - finish[base + i] <= tolerance[i]);
-      const c = l - duration[base + i] - lag;
-      if (c < late[pb + i]) late[pb + i] = c;
+    let count = 0;
+    const pb = predIndex[s] * stride;
+    const lp = predLag[s];
+    if (links === 1) {
+      for (let i = 0; i < n; i++) {
+        const l = late[base + i];
+        count += +(l - finish[base + i] <= tolerance[i]);
+        const c = l - duration[base + i] - lp;
+        if (c < late[pb + i]) late[pb + i] = c;
+      }
+    } else if (links === 2) {
+      const qb = predIndex[s + 1] * stride;
+      const lq = predLag[s + 1];
+      for (let i = 0; i < n; i++) {
+        const l = late[base + i];
+        count += +(l - finish[base + i] <= tolerance[i]);
+        const ls = l - duration[base + i];
+        const cp = ls - lp;
+        if (cp < late[pb + i]) late[pb + i] = cp;
+        const cq = ls - lq;
+        if (cq < late[qb + i]) late[qb + i] = cq;
+      }
+    } else {
+      const qb = predIndex[s + 1] * stride;
+      const lq = predLag[s + 1];
+      const rb = predIndex[s + 2] * stride;
+      const lr = predLag[s + 2];
+      for (let i = 0; i < n; i++) {
+        const l = late[base + i];
+        count += +(l - finish[base + i] <= tolerance[i]);
+        const ls = l - duration[base + i];
+        const cp = ls - lp;
+        if (cp < late[pb + i]) late[pb + i] = cp;
+        const cq = ls - lq;
+        if (cq < late[qb + i]) late[qb + i] = cq;
+        const cr = ls - lr;
+        if (cr < late[rb + i]) late[rb + i] = cr;
+      }
     }
-  } else if (first) {
-    for (let i = 0; i < n; i++) {
-      const c = late[base + i] - duration[base + i] - lag;
-      late[pb + i] = c < total[i] ? c : total[i];
-    }
-  } else {
-    for (let i = 0; i < n; i++) {
-      const c = late[base + i] - duration[base + i] - lag;
-      if (c < late[pb + i]) late[pb + i] = c;
-    }
+    critical[a] += count;
   }
-  return critical;
 }
