@@ -123,7 +123,7 @@ function forwardFinishToStart(
   for (let k = 0; k < net.size; k++) {
     const a = order[k];
     const base = a * stride;
-    if (!changed || changed[a]) finishOf(a, base, net, duration, n, finish, stride);
+    if (!changed || changed[a]) earlyFinishInto(a, base, net, duration, n, finish, stride);
     if (canFinishLast[a]) latestInto(finish, base, total, n);
   }
 }
@@ -131,11 +131,11 @@ function forwardFinishToStart(
 /**
  * Activity a's early finish in a finish-to-start network. One loop for an activity with up to
  * three predecessors (each loop reads and writes memory, and its overhead counts); with more,
- * the first link writes the start bound, the others raise it, and the last adds the duration.
- * The first bound is at least 0: its finish plus the lag is rarely below 0, so that branch is
+ * the first link writes the start bound, the others raise it, and a last loop adds the duration.
+ * The first bound is at least 0: a finish plus a lag is rarely below 0, so that branch is
  * predictable.
  */
-function finishOf(
+function earlyFinishInto(
   a: number,
   base: number,
   net: Network,
