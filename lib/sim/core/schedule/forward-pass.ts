@@ -286,14 +286,23 @@ function backwardMixed(
         }
         continue;
       }
-      const fromSuccessorStart = type === LINK.SS;
-      const toPredecessorStart = type === LINK.SS || type === LINK.SF;
+      // A loop per link type: a test inside the loop would run per iteration.
       if (firstLink[j]) late.set(total.subarray(0, n), pb);
-      for (let i = 0; i < n; i++) {
-        let c = late[base + i] - lag;
-        if (fromSuccessorStart) c -= duration[base + i];
-        if (toPredecessorStart) c += duration[pb + i];
-        if (c < late[pb + i]) late[pb + i] = c;
+      if (type === LINK.SS) {
+        for (let i = 0; i < n; i++) {
+          const c = late[base + i] - lag - duration[base + i] + duration[pb + i];
+          if (c < late[pb + i]) late[pb + i] = c;
+        }
+      } else if (type === LINK.SF) {
+        for (let i = 0; i < n; i++) {
+          const c = late[base + i] - lag + duration[pb + i];
+          if (c < late[pb + i]) late[pb + i] = c;
+        }
+      } else {
+        for (let i = 0; i < n; i++) {
+          const c = late[base + i] - lag;
+          if (c < late[pb + i]) late[pb + i] = c;
+        }
       }
     }
   }
