@@ -5,6 +5,7 @@ import { spearmanToPearson } from '../correlation/rank-pearson';
 import { simulateSync } from '../engine';
 import { normalCdf, normalPdf } from '../math/normal';
 import { allocateForwardPass, downstreamOf, forwardPass } from '../schedule/forward-pass';
+import { scheduleDates } from '../schedule/dates';
 import { buildNetwork } from '../schedule/network';
 import { fixed, model, normal, uniform } from './helpers';
 
@@ -145,5 +146,54 @@ describe('a pass over the changed activities only', () => {
     expect(partialTotal).toEqual(fullTotal);
     expect(partialCritical).toEqual(fullCritical);
     expect(partialTotal).not.toEqual(first);
+  });
+});
+
+// Which activities may be the last to finish, against early dates worked out by hand with the
+// precedence diagramming method's rules (common practice: FS ES_b ≥ EF_a + lag, SS ES_b ≥ ES_a +
+// lag, FF EF_b ≥ EF_a + lag, nothing starts before 0, T the latest early finish).
+describe('activities that can finish last', () => {
+  const activities = [
+    { id: 'A', duration: fixed(3) },
+    { id: 'B', duration: fixed(5), predecessors: ['A'] },
+    { id: 'C', duration: fixed(10), predecessors: [{ id: 'B', lag: 2 }] },
+    { id: 'D', duration: fixed(1), predecessors: [{ id: 'C', lag: -4 }] },
+    { id: 'E', duration: fixed(2), predecessors: [{ id: 'D', type: 'SS' as const }] },
+    { id: 'F', duration: fixed(1), predecessors: [{ id: 'E', type: 'FF' as const }] },
+  ];
+
+  it('leaves out an activity with a predecessor and a finish-to-start successor, lag ≥ 0', () => {
+    // By hand: A 0–3, B 3–8, C 10–20 (FS+2), D 16–17 (FS−4: a lead), E 16–18 (SS), F 17–18 (FF).
+    // B has a predecessor and an FS+2 successor (C finishes at 20 ≥ 8): 0. A has no predecessor,
+    // C's successor is a lead (D finishes before C), D's successor is SS and E's is FF (the pass
+    // reaches an FF bound through the start, so it is not counted on): 1. F has no successor: 1.
+    expect(Array.from(buildNetwork(activities).canFinishLast)).toEqual([1, 0, 1, 1, 1, 1]);
+    // T = 20, C's finish: C follows B and precedes D, and still finishes last.
+    const dates = scheduleDates(activities, [3, 5, 10, 1, 2, 1]);
+    expect(dates.duration).toBe(20);
+    expect(dates.activities.F).toMatchObject({ earlyStart: 17, earlyFinish: 18 });
+  });
+});
+
+// An activity with more predecessors than the passes fuse into one loop (four), against dates
+// worked out by hand with the precedence diagramming method's rules (common practice).
+describe('an activity with four predecessors', () => {
+  it('starts after the latest of them and leaves the others their float', () => {
+    const activities = [
+      { id: 'A', duration: fixed(4) },
+      { id: 'B', duration: fixed(6) },
+      { id: 'C', duration: fixed(3), predecessors: ['A'] },
+      { id: 'D', duration: fixed(2) },
+      { id: 'E', duration: fixed(5), predecessors: ['A', { id: 'B', lag: 1 }, 'C', { id: 'D', lag: 2 }] },
+    ];
+    // By hand: A 0–4, B 0–6, C 4–7, D 0–2; ES_E = max(4, 6 + 1, 7, 2 + 2) = 7 (B and C tie),
+    // EF_E = 12 = T. Backward: LS_E = 7, so LF_A ≤ 7 and LF_C ≤ 7, LF_B ≤ 6, LF_D ≤ 5; LF_A is
+    // also ≤ LS_C = 4. Floats: A 0, B 0, C 0, D 3, E 0.
+    const r = scheduleDates(activities, [4, 6, 3, 2, 5]);
+    expect(r.duration).toBe(12);
+    expect(r.activities.E).toMatchObject({ earlyStart: 7, earlyFinish: 12, lateFinish: 12 });
+    const floats = Object.fromEntries(Object.entries(r.activities).map(([id, d]) => [id, d.totalFloat]));
+    expect(floats).toEqual({ A: 0, B: 0, C: 0, D: 3, E: 0 });
+    expect(r.activities.D.lateFinish).toBe(5);
   });
 });

@@ -53,11 +53,21 @@ export function allocateForwardPass(size: number, stride: number): ForwardPassBu
  * duration[a·stride + i], i < n → total[i] (project duration) and critical[a] += iterations in
  * which a is critical; with critical null, the project duration alone (no backward pass).
  * Finish-to-start networks (the common case) take a route without the link-type tests.
+ * Durations are finite and ≥ 0 (the callers cut them at 0).
  *
  * `changed` (1 per activity whose finish may differ from the last pass over these buffers: its
  * duration differs, or a predecessor's finish may) lets a second pass over nearly the same
  * durations recompute those activities alone; the others keep their finishes and only take part
  * in T, in the same order, so T is the same to the bit as a full pass.
+ *
+ * T leaves out the activities that cannot finish last (Network.canFinishLast): each has a
+ * successor that finishes no earlier, so the maximum is the same number; at 0 its sign comes
+ * from the first activity in the order, which has no predecessor and is never left out.
+ *
+ * The maxima over predecessors are taken without a branch (the comparison goes either way at
+ * random, and a mispredicted branch costs more than the arithmetic): with m = 1 when c > b,
+ * else 0, c·m + b·(1 − m) is c or b exactly, as b ≥ +0 and both are finite: the other term is
+ * ±0, and adding it leaves a positive number as it is and b = +0 as +0.
  */
 export function forwardPass(
   net: Network,
@@ -74,11 +84,12 @@ export function forwardPass(
   if (!critical) return;
   const { tolerance } = buf;
   for (let i = 0; i < n; i++) tolerance[i] = FLOAT_TOLERANCE * Math.max(1, Math.abs(total[i]));
-  backward(net, duration, n, buf, total, critical);
+  if (net.mixedLinks) backwardMixed(net, duration, n, buf, total, critical);
+  else backwardFinishToStart(net, duration, n, buf, total, critical);
 }
 
-/** An activity whose finish is kept from the last pass: it takes part in T alone. */
-function keptFinishInto(finish: Float64Array, base: number, total: Float64Array, n: number): void {
+/** T = max(T, the activity's finish). */
+function latestInto(finish: Float64Array, base: number, total: Float64Array, n: number): void {
   for (let i = 0; i < n; i++) {
     const f = finish[base + i];
     if (f > total[i]) total[i] = f;
@@ -98,11 +109,7 @@ export function downstreamOf(net: Network, from: Iterable<number>): Uint8Array {
   return out;
 }
 
-/**
- * The forward pass of a finish-to-start network. Loops fused by the number of predecessors: the
- * first link writes the start bound (at least 0), the last one also adds the duration and keeps
- * T, so an activity with one predecessor takes one loop.
- */
+/** The forward pass of a finish-to-start network. */
 function forwardFinishToStart(
   net: Network,
   duration: Float64Array,
@@ -112,51 +119,89 @@ function forwardFinishToStart(
   changed?: Uint8Array,
 ): void {
   const { finish, stride } = buf;
-  const { order, predStart, predIndex, predLag } = net;
+  const { order, canFinishLast } = net;
   for (let k = 0; k < net.size; k++) {
     const a = order[k];
     const base = a * stride;
-    if (changed && !changed[a]) {
-      keptFinishInto(finish, base, total, n);
-      continue;
-    }
-    const s = predStart[a];
-    const e = predStart[a + 1];
-    if (s === e) {
-      for (let i = 0; i < n; i++) {
-        const f = duration[base + i];
-        finish[base + i] = f;
-        if (f > total[i]) total[i] = f;
-      }
-      continue;
-    }
-    if (e - s > 1) {
-      const pb = predIndex[s] * stride;
-      const lag = predLag[s];
-      for (let i = 0; i < n; i++) {
-        const c = finish[pb + i] + lag;
-        finish[base + i] = c > 0 ? c : 0;
-      }
-      for (let j = s + 1; j < e - 1; j++) {
-        const qb = predIndex[j] * stride;
-        const lj = predLag[j];
-        for (let i = 0; i < n; i++) {
-          const c = finish[qb + i] + lj;
-          if (c > finish[base + i]) finish[base + i] = c;
-        }
-      }
-    }
-    const pb = predIndex[e - 1] * stride;
-    const lag = predLag[e - 1];
-    const only = e - s === 1;
+    if (!changed || changed[a]) earlyFinishInto(a, base, net, duration, n, finish, stride);
+    if (canFinishLast[a]) latestInto(finish, base, total, n);
+  }
+}
+
+/**
+ * Activity a's early finish in a finish-to-start network. One loop for an activity with up to
+ * three predecessors (each loop reads and writes memory, and its overhead counts); with more,
+ * the first link writes the start bound, the others raise it, and a last loop adds the duration.
+ * The first bound is at least 0: a finish plus a lag is rarely below 0, so that branch is
+ * predictable.
+ */
+function earlyFinishInto(
+  a: number,
+  base: number,
+  net: Network,
+  duration: Float64Array,
+  n: number,
+  finish: Float64Array,
+  stride: number,
+): void {
+  const { predStart, predIndex, predLag } = net;
+  const s = predStart[a];
+  const links = predStart[a + 1] - s;
+  if (links === 0) {
+    finish.set(duration.subarray(base, base + n), base);
+    return;
+  }
+  const pb = predIndex[s] * stride;
+  const lp = predLag[s];
+  if (links === 1) {
     for (let i = 0; i < n; i++) {
-      const c = finish[pb + i] + lag;
-      const bound = only ? 0 : finish[base + i];
-      const f = (c > bound ? c : bound) + duration[base + i];
-      finish[base + i] = f;
-      if (f > total[i]) total[i] = f;
+      const c = finish[pb + i] + lp;
+      finish[base + i] = (c > 0 ? c : 0) + duration[base + i];
+    }
+    return;
+  }
+  const qb = predIndex[s + 1] * stride;
+  const lq = predLag[s + 1];
+  if (links === 2) {
+    for (let i = 0; i < n; i++) {
+      const cp = finish[pb + i] + lp;
+      const b = cp > 0 ? cp : 0;
+      const c = finish[qb + i] + lq;
+      const m = +(c > b);
+      finish[base + i] = c * m + b * (1 - m) + duration[base + i];
+    }
+    return;
+  }
+  const rb = predIndex[s + 2] * stride;
+  const lr = predLag[s + 2];
+  if (links === 3) {
+    for (let i = 0; i < n; i++) {
+      const cp = finish[pb + i] + lp;
+      const bp = cp > 0 ? cp : 0;
+      const cq = finish[qb + i] + lq;
+      const mq = +(cq > bp);
+      const b = cq * mq + bp * (1 - mq);
+      const c = finish[rb + i] + lr;
+      const m = +(c > b);
+      finish[base + i] = c * m + b * (1 - m) + duration[base + i];
+    }
+    return;
+  }
+  for (let i = 0; i < n; i++) {
+    const c = finish[pb + i] + lp;
+    finish[base + i] = c > 0 ? c : 0;
+  }
+  for (let j = s + 1; j < s + links; j++) {
+    const jb = predIndex[j] * stride;
+    const lj = predLag[j];
+    for (let i = 0; i < n; i++) {
+      const c = finish[jb + i] + lj;
+      const b = finish[base + i];
+      const m = +(c > b);
+      finish[base + i] = c * m + b * (1 - m);
     }
   }
+  for (let i = 0; i < n; i++) finish[base + i] += duration[base + i];
 }
 
 /**
@@ -173,34 +218,31 @@ function forwardMixed(
   changed?: Uint8Array,
 ) {
   const { finish, stride } = buf;
-  const { order, predStart, predIndex, predLag, predType } = net;
+  const { order, predStart, predIndex, predLag, predType, canFinishLast } = net;
   for (let k = 0; k < net.size; k++) {
     const a = order[k];
     const base = a * stride;
-    if (changed && !changed[a]) {
-      keptFinishInto(finish, base, total, n);
-      continue;
-    }
-    for (let i = 0; i < n; i++) finish[base + i] = 0;
-    for (let j = predStart[a]; j < predStart[a + 1]; j++) {
-      const pb = predIndex[j] * stride;
-      const lag = predLag[j];
-      const type = predType[j];
-      // Which of the predecessor's dates the bound starts from, and which of a's it bounds.
-      const fromStart = type === LINK.SS || type === LINK.SF;
-      const onFinish = type === LINK.FF || type === LINK.SF;
-      for (let i = 0; i < n; i++) {
-        let c = finish[pb + i] + lag;
-        if (fromStart) c -= duration[pb + i];
-        if (onFinish) c -= duration[base + i];
-        if (c > finish[base + i]) finish[base + i] = c;
+    if (!changed || changed[a]) {
+      for (let i = 0; i < n; i++) finish[base + i] = 0;
+      for (let j = predStart[a]; j < predStart[a + 1]; j++) {
+        const pb = predIndex[j] * stride;
+        const lag = predLag[j];
+        const type = predType[j];
+        // Which of the predecessor's dates the bound starts from, and which of a's it bounds.
+        const fromStart = type === LINK.SS || type === LINK.SF;
+        const onFinish = type === LINK.FF || type === LINK.SF;
+        for (let i = 0; i < n; i++) {
+          let c = finish[pb + i] + lag;
+          if (fromStart) c -= duration[pb + i];
+          if (onFinish) c -= duration[base + i];
+          const b = finish[base + i];
+          const m = +(c > b);
+          finish[base + i] = c * m + b * (1 - m);
+        }
       }
+      for (let i = 0; i < n; i++) finish[base + i] += duration[base + i];
     }
-    for (let i = 0; i < n; i++) {
-      const f = finish[base + i] + duration[base + i];
-      finish[base + i] = f;
-      if (f > total[i]) total[i] = f;
-    }
+    if (canFinishLast[a]) latestInto(finish, base, total, n);
   }
 }
 
@@ -210,7 +252,7 @@ function forwardMixed(
  * successors all come later in the order). An activity's late finish starts at T: written by
  * its first successor's link in this order (Network.firstLink), or by itself when it has none.
  */
-function backward(
+function backwardMixed(
   net: Network,
   duration: Float64Array,
   n: number,
@@ -224,9 +266,7 @@ function backward(
     const a = order[k];
     const base = a * stride;
     if (isSink[a]) late.set(total.subarray(0, n), base);
-    let count = 0;
-    for (let i = 0; i < n; i++) if (late[base + i] - finish[base + i] <= tolerance[i]) count++;
-    critical[a] += count;
+    critical[a] += criticalIn(late, finish, tolerance, base, n);
     for (let j = predStart[a]; j < predStart[a + 1]; j++) {
       const pb = predIndex[j] * stride;
       const type = predType[j];
@@ -246,15 +286,120 @@ function backward(
         }
         continue;
       }
-      const fromSuccessorStart = type === LINK.SS;
-      const toPredecessorStart = type === LINK.SS || type === LINK.SF;
+      // A loop per link type: a test inside the loop would run per iteration.
       if (firstLink[j]) late.set(total.subarray(0, n), pb);
-      for (let i = 0; i < n; i++) {
-        let c = late[base + i] - lag;
-        if (fromSuccessorStart) c -= duration[base + i];
-        if (toPredecessorStart) c += duration[pb + i];
-        if (c < late[pb + i]) late[pb + i] = c;
+      if (type === LINK.SS) {
+        for (let i = 0; i < n; i++) {
+          const c = late[base + i] - lag - duration[base + i] + duration[pb + i];
+          if (c < late[pb + i]) late[pb + i] = c;
+        }
+      } else if (type === LINK.SF) {
+        for (let i = 0; i < n; i++) {
+          const c = late[base + i] - lag + duration[pb + i];
+          if (c < late[pb + i]) late[pb + i] = c;
+        }
+      } else {
+        for (let i = 0; i < n; i++) {
+          const c = late[base + i] - lag;
+          if (c < late[pb + i]) late[pb + i] = c;
+        }
       }
     }
+  }
+}
+
+/**
+ * The iterations in which the activity at `base` is critical, counted without a branch (critical
+ * or not goes either way at random).
+ */
+function criticalIn(
+  late: Float64Array,
+  finish: Float64Array,
+  tolerance: Float64Array,
+  base: number,
+  n: number,
+): number {
+  let count = 0;
+  for (let i = 0; i < n; i++) count += +(late[base + i] - finish[base + i] <= tolerance[i]);
+  return count;
+}
+
+/**
+ * The backward pass of a finish-to-start network: LF_p ≤ LS_a − lag. A predecessor's late
+ * finish is set to T before its first link lowers it (a copy costs less than a loop). An
+ * activity with up to three predecessors takes one loop: its critical count and every link
+ * (each loop reads and writes memory, and its overhead counts). The minima keep their branch:
+ * the forward pass's arithmetic select measured no faster here.
+ */
+function backwardFinishToStart(
+  net: Network,
+  duration: Float64Array,
+  n: number,
+  buf: ForwardPassBuffers,
+  total: Float64Array,
+  critical: Int32Array,
+): void {
+  const { late, finish, tolerance, stride } = buf;
+  const { order, predStart, predIndex, predLag, firstLink, isSink } = net;
+  const projectFinish = total.subarray(0, n);
+  for (let k = net.size - 1; k >= 0; k--) {
+    const a = order[k];
+    const base = a * stride;
+    if (isSink[a]) late.set(projectFinish, base);
+    const s = predStart[a];
+    const links = predStart[a + 1] - s;
+    for (let j = s; j < s + links; j++) if (firstLink[j]) late.set(projectFinish, predIndex[j] * stride);
+    if (links === 0 || links > 3) {
+      critical[a] += criticalIn(late, finish, tolerance, base, n);
+      for (let j = s; j < s + links; j++) {
+        const pb = predIndex[j] * stride;
+        const lag = predLag[j];
+        for (let i = 0; i < n; i++) {
+          const c = late[base + i] - duration[base + i] - lag;
+          if (c < late[pb + i]) late[pb + i] = c;
+        }
+      }
+      continue;
+    }
+    let count = 0;
+    const pb = predIndex[s] * stride;
+    const lp = predLag[s];
+    if (links === 1) {
+      for (let i = 0; i < n; i++) {
+        const l = late[base + i];
+        count += +(l - finish[base + i] <= tolerance[i]);
+        const c = l - duration[base + i] - lp;
+        if (c < late[pb + i]) late[pb + i] = c;
+      }
+    } else if (links === 2) {
+      const qb = predIndex[s + 1] * stride;
+      const lq = predLag[s + 1];
+      for (let i = 0; i < n; i++) {
+        const l = late[base + i];
+        count += +(l - finish[base + i] <= tolerance[i]);
+        const ls = l - duration[base + i];
+        const cp = ls - lp;
+        if (cp < late[pb + i]) late[pb + i] = cp;
+        const cq = ls - lq;
+        if (cq < late[qb + i]) late[qb + i] = cq;
+      }
+    } else {
+      const qb = predIndex[s + 1] * stride;
+      const lq = predLag[s + 1];
+      const rb = predIndex[s + 2] * stride;
+      const lr = predLag[s + 2];
+      for (let i = 0; i < n; i++) {
+        const l = late[base + i];
+        count += +(l - finish[base + i] <= tolerance[i]);
+        const ls = l - duration[base + i];
+        const cp = ls - lp;
+        if (cp < late[pb + i]) late[pb + i] = cp;
+        const cq = ls - lq;
+        if (cq < late[qb + i]) late[qb + i] = cq;
+        const cr = ls - lr;
+        if (cr < late[rb + i]) late[rb + i] = cr;
+      }
+    }
+    critical[a] += count;
   }
 }

@@ -32,6 +32,13 @@ export interface Network {
    * one that writes the predecessor's late finish rather than lowering it.
    */
   firstLink: Uint8Array;
+  /**
+   * 0 when the activity has a predecessor and a finish-to-start successor with a lag ≥ 0: with
+   * durations ≥ 0 that successor finishes no earlier, so the activity is never alone the last
+   * to finish, and the project duration (the latest finish) can pass it by. 1 otherwise. An
+   * activity without predecessors keeps 1: its finish is its duration alone (0 may be −0 there).
+   */
+  canFinishLast: Uint8Array;
 }
 
 export interface NetworkProblem {
@@ -168,10 +175,19 @@ export function buildNetwork(activities: ModelActivity[]): Network {
       if (!reached[predIndex[j]]) firstLink[j] = reached[predIndex[j]] = 1;
     }
   }
+  const canFinishLast = new Uint8Array(size).fill(1);
+  for (let a = 0; a < size; a++) {
+    for (let j = predStart[a]; j < predStart[a + 1]; j++) {
+      const p = predIndex[j];
+      if (predTypeArr[j] === LINK.FS && predLagArr[j] >= 0 && predStart[p + 1] > predStart[p])
+        canFinishLast[p] = 0;
+    }
+  }
   return {
     size,
     order,
     firstLink,
+    canFinishLast,
     predStart,
     predIndex,
     predLag: predLagArr,
