@@ -128,6 +128,11 @@ interface Workspace {
   delayTmp: Float64Array;
   sizes: Float64Array;
   occurred: Uint8Array;
+  /** A risk's delay uniforms where it occurs. */
+  delayU: Float64Array;
+  /** The iterations where the risk at hand occurs (the first hitCount). */
+  hits: Int32Array;
+  hitCount: number;
   perm: Int32Array;
   rng: Sfc32;
   induction: InductionScratch;
@@ -203,6 +208,9 @@ function workspaceFor(plan: Plan, n: number): Workspace {
     delayTmp: column(),
     sizes: column(),
     occurred: new Uint8Array(stride),
+    delayU: column(),
+    hits: new Int32Array(stride),
+    hitCount: 0,
     perm: new Int32Array(stride),
     rng: new Sfc32(),
     induction: allocateInduction(plan.maxGroupSize, stride),
@@ -249,24 +257,9 @@ function clampAtZero(x: Float64Array, n: number): void {
   for (let i = 0; i < n; i++) if (x[i] < 0) x[i] = 0;
 }
 
-function addWhere(acc: Float64Array, x: Float64Array, mask: Uint8Array, n: number): void {
-  for (let i = 0; i < n; i++) if (mask[i]) acc[i] += x[i];
-}
-
-/** Version 1 delays: negative samples count as 0 days. */
-function addPositiveWhere(acc: Float64Array, x: Float64Array, mask: Uint8Array, n: number): void {
-  for (let i = 0; i < n; i++) if (mask[i] && x[i] > 0) acc[i] += x[i];
-}
-
 function sumOf(x: Float64Array, n: number): number {
   let s = 0;
   for (let i = 0; i < n; i++) s += x[i];
-  return s;
-}
-
-function sumWhere(x: Float64Array, mask: Uint8Array, n: number): number {
-  let s = 0;
-  for (let i = 0; i < n; i++) if (mask[i]) s += x[i];
   return s;
 }
 
@@ -311,6 +304,40 @@ function occurrenceGrades(u: Float64Array, p: number, mask: Uint8Array, w: Float
       w[i] = 0.5;
     }
   }
+}
+
+/**
+ * The iterations where a risk with uniform u and probability p occurs (u > 1 − p), ascending, into
+ * hits, and their conditional grades (as occurrenceGrades) into w; returns how many.
+ */
+function occurrences(u: Float64Array, p: number, hits: Int32Array, w: Float64Array, n: number): number {
+  const q = 1 - p;
+  const top = 1 - 2 ** -53;
+  let m = 0;
+  for (let i = 0; i < n; i++) {
+    if (u[i] > q) {
+      const x = (u[i] - q) / p;
+      w[m] = x >= 1 ? top : x > 0 ? x : 2 ** -53;
+      hits[m++] = i;
+    }
+  }
+  return m;
+}
+
+/** into[j] = x[hits[j]], j < m. */
+function gatherHits(x: Float64Array, hits: Int32Array, m: number, into: Float64Array): Float64Array {
+  for (let j = 0; j < m; j++) into[j] = x[hits[j]];
+  return into;
+}
+
+/** acc[hits[j]] += x[j], j < m. */
+function addAtHits(acc: Float64Array, x: Float64Array, hits: Int32Array, m: number): void {
+  for (let j = 0; j < m; j++) acc[hits[j]] += x[j];
+}
+
+/** Version 1 delays: negative samples count as 0 days. */
+function addPositiveAtHits(acc: Float64Array, x: Float64Array, hits: Int32Array, m: number): void {
+  for (let j = 0; j < m; j++) if (x[j] > 0) acc[hits[j]] += x[j];
 }
 
 /** x[i] = 0 where mask is 0. */
@@ -648,25 +675,28 @@ export function simulateBlock(
   ) => {
     const p = x.probability;
     if (p <= 0) return;
+    // Sizes are computed for the iterations where the risk occurs alone (compact, in hits order).
+    const { hits, delayTmp } = ws;
     if (again) {
       // Nothing to draw.
-    } else if (u) occurrenceGrades(u, p, occurred, sizes, n);
+    } else if (u) ws.hitCount = occurrences(u, p, hits, sizes, n);
     else {
-      occurred.fill(1, 0, n);
+      for (let i = 0; i < n; i++) hits[i] = i;
       sizes.fill(0.5, 0, n);
+      ws.hitCount = n;
     }
+    const m = ws.hitCount;
     if (x.cost) {
-      if (!again) x.cost.quantileInto(sizes, tmp, n);
-      addWhere(cost, tmp, occurred, n);
-      if (tap && slot >= 0) tap.sums[slot] += sumWhere(tmp, occurred, n);
-      if (keepInto) addWhere(keepInto, tmp, occurred, n);
+      if (!again) x.cost.quantileInto(sizes, tmp, m);
+      addAtHits(cost, tmp, hits, m);
+      if (tap && slot >= 0) tap.sums[slot] += sumOf(tmp, m);
+      if (keepInto) addAtHits(keepInto, tmp, hits, m);
     }
     if (x.delay && activities.length) {
-      const { delayTmp } = ws;
-      if (!again) x.delay.quantileInto(uDelay ?? sizes, delayTmp, n);
+      if (!again) x.delay.quantileInto(uDelay ? gatherHits(uDelay, hits, m, ws.delayU) : sizes, delayTmp, m);
       for (let j = 0; j < activities.length; j++) {
-        if (plan.version === 1) addPositiveWhere(durations[activities[j]], delayTmp, occurred, n);
-        else addWhere(durations[activities[j]], delayTmp, occurred, n);
+        if (plan.version === 1) addPositiveAtHits(durations[activities[j]], delayTmp, hits, m);
+        else addAtHits(durations[activities[j]], delayTmp, hits, m);
       }
     }
   };
