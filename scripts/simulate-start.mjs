@@ -5,15 +5,16 @@
 // cache, V8 reads the compiled code back. Node 20 offers no such cache for modules, hence a
 // CommonJS bundle compiled here with vm.Script (as Node compiles one).
 //
-// The cache (.build/simulate.cjs.cache) starts with the SHA-1 of the bundle it was made from:
-// V8 itself checks only the source's length (and its own version and flags), so a rebuilt
-// bundle must not take an older bundle's code. It is written at the exit of a run that found
-// none it could use, so that it holds every function that run compiled; a run that failed or
-// only printed its usage writes none (its cache would hold too little).
+// The cache (.build/simulate.cjs.cache) starts with the identity of the bundle file it was made
+// from (inode, size, modification time; the build replaces the file only when its content
+// changes): V8 itself checks only the source's length (and its own version and flags), so a
+// rebuilt bundle must not take an older bundle's code. Hashing the bundle instead would cost a
+// start more than the check saves. The cache is written at the exit of a run that found none it
+// could use, so that it holds every function that run compiled; a run that failed or only
+// printed its usage writes none (its cache would hold too little).
 
 import { Buffer } from 'node:buffer';
-import { createHash } from 'node:crypto';
-import { readFileSync, renameSync, writeFileSync } from 'node:fs';
+import { closeSync, fstatSync, openSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import { fileURLToPath, URL } from 'node:url';
@@ -21,8 +22,15 @@ import vm from 'node:vm';
 
 const file = fileURLToPath(new URL('./simulate.cjs', import.meta.url));
 const cacheFile = `${file}.cache`;
-const source = readFileSync(file, 'utf8');
-const key = Buffer.from(createHash('sha1').update(source).digest());
+const KEY_BYTES = 64;
+// The identity and the content from one open file: a build renaming a new bundle into place
+// meanwhile cannot pair one with the other.
+const fd = openSync(file, 'r');
+const { ino, size, mtimeMs } = fstatSync(fd);
+const source = readFileSync(fd, 'utf8');
+closeSync(fd);
+const key = Buffer.alloc(KEY_BYTES);
+key.write(`${ino} ${size} ${mtimeMs}`);
 
 let cached;
 try {
