@@ -1,15 +1,16 @@
 // Bundles the simulation engine's worker thread (lib/sim/runtime/worker.ts) into
-// .build/sim-worker.mjs, the file the engine's thread pool loads, and, run as a script, the
-// command line (scripts/simulate.ts) into .build/simulate.mjs, so that `npm run simulate` starts
-// plain JavaScript instead of compiling TypeScript on every start, and the queue worker
-// (scripts/worker.ts) into .build/outturn-worker.mjs for `npm run worker`. The engine never builds them
-// itself; this script does, run by scripts/build.sh before `next build`, by the simulate and
-// bench scripts, and (the worker alone, as the unit tests' global set-up, through the default
-// export) by Vitest. It writes beside each target and renames, so a process loading a file
-// never sees half of it.
+// .build/sim-worker.mjs, the file the engine's thread pool loads; and, run as a script, the
+// command line (scripts/simulate.ts) into .build/simulate.cjs, started by .build/simulate.mjs
+// (scripts/simulate-start.mjs), so that `npm run simulate` starts plain JavaScript instead of
+// compiling TypeScript on every start, and the queue worker (scripts/worker.ts) into
+// .build/outturn-worker.mjs for `npm run worker`. The engine never builds them itself; this
+// script does, run by scripts/build.sh before `next build`, by the simulate and bench scripts,
+// and (the worker alone, as the unit tests' global set-up, through the default export) by
+// Vitest. It writes beside each target and renames, so a process loading a file never sees half
+// of it, and leaves a target whose content did not change as it is.
 
 import { build } from 'esbuild';
-import { renameSync } from 'node:fs';
+import { readFileSync, renameSync, unlinkSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -26,8 +27,19 @@ async function bundle(root, entry, name, extra = {}) {
     logLevel: 'warning',
     ...extra,
   });
-  renameSync(tmp, outfile);
+  // An unchanged bundle keeps its file, and so the code cache made from it (see
+  // scripts/simulate-start.mjs): `npm run simulate` builds before every run.
+  if (sameContent(tmp, outfile)) unlinkSync(tmp);
+  else renameSync(tmp, outfile);
   return outfile;
+}
+
+function sameContent(a, b) {
+  try {
+    return readFileSync(a).equals(readFileSync(b));
+  } catch {
+    return false;
+  }
 }
 
 export function buildWorker(root = process.cwd()) {
@@ -36,10 +48,13 @@ export function buildWorker(root = process.cwd()) {
 
 /**
  * The command line, its packages bundled in (one file loads faster than a package's many), but
- * for the thread pool, which finds its own worker file in node_modules.
+ * for the thread pool, which finds its own worker file in node_modules. CommonJS, for its start
+ * (scripts/simulate-start.mjs, the file `node .build/simulate.mjs` runs) to compile it with V8's
+ * code cache.
  */
-export function buildCli(root = process.cwd()) {
-  return bundle(root, ['scripts', 'simulate.ts'], 'simulate.mjs', { external: ['piscina'] });
+export async function buildCli(root = process.cwd()) {
+  await bundle(root, ['scripts', 'simulate.ts'], 'simulate.cjs', { format: 'cjs', external: ['piscina'] });
+  return bundle(root, ['scripts', 'simulate-start.mjs'], 'simulate.mjs');
 }
 
 /**

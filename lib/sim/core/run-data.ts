@@ -101,6 +101,12 @@ export function concatRounds(stores: RoundStore[], pick: (s: RoundStore) => Floa
  * (rows feeding the cost tornado) and of duration: [cost₀, duration₀, cost₁, …]. The part of
  * Spearman's coefficient that needs the ranks of the whole run, computed per block so threads
  * can share it and the sum over blocks keeps its order.
+ *
+ * Every term is a whole grade (< 2¹⁶) times a mid-rank (a multiple of ½ up to the run's
+ * iterations), so a block's sum counts fewer than 2⁵³ halves in runs of up to 3·10⁷ iterations:
+ * exact, whatever the order of its terms. The loops therefore read two grades per 32-bit word
+ * with one sum per half (fewer loads and bounds checks per term: about a third faster), and a
+ * row feeding both tornadoes once for both.
  */
 export function blockCrossSums(
   plan: Plan,
@@ -114,21 +120,75 @@ export function blockCrossSums(
   const rows = plan.sensitivity.length;
   const out = new Float64Array(2 * rows);
   const off = block * BLOCK_SIZE;
+  const cost = costRanks.subarray(off, off + n);
+  const duration = durationRanks ? durationRanks.subarray(off, off + n) : null;
+  // Whole words per row: an even block length (every block but maybe a run's last) on a
+  // little-endian machine, where a word's low half is the grade stored first.
+  const words =
+    LITTLE_ENDIAN && n % 2 === 0 && grades.byteOffset % 4 === 0
+      ? new Uint32Array(grades.buffer, grades.byteOffset, grades.length / 2)
+      : null;
   for (let r = 0; r < rows; r++) {
     const input = plan.sensitivity[r];
-    const base = r * n;
-    if (input.cost) {
-      let acc = 0;
-      for (let i = 0; i < n; i++) acc += grades[base + i] * costRanks[off + i];
-      out[2 * r] = acc;
-    }
-    if (durationRanks && input.duration) {
-      let acc = 0;
-      for (let i = 0; i < n; i++) acc += grades[base + i] * durationRanks[off + i];
-      out[2 * r + 1] = acc;
+    const both = input.cost && duration && input.duration;
+    if (words && both) pairedSumsBoth(words, (r * n) / 2, n / 2, cost, duration, out, 2 * r);
+    else if (words) {
+      if (input.cost) out[2 * r] = pairedSum(words, (r * n) / 2, n / 2, cost);
+      if (duration && input.duration) out[2 * r + 1] = pairedSum(words, (r * n) / 2, n / 2, duration);
+    } else {
+      if (input.cost) out[2 * r] = plainSum(grades, r * n, n, cost);
+      if (duration && input.duration) out[2 * r + 1] = plainSum(grades, r * n, n, duration);
     }
   }
   return out;
+}
+
+const LITTLE_ENDIAN = new Uint8Array(Uint16Array.of(1).buffer)[0] === 1;
+
+/** Σ grades[from + i]·ranks[i] for i < n. */
+function plainSum(grades: Uint16Array, from: number, n: number, ranks: Float64Array): number {
+  let acc = 0;
+  for (let i = 0; i < n; i++) acc += grades[from + i] * ranks[i];
+  return acc;
+}
+
+/** plainSum of 2·half grades read as `half` words from words[from]. */
+function pairedSum(words: Uint32Array, from: number, half: number, ranks: Float64Array): number {
+  let lo = 0;
+  let hi = 0;
+  for (let j = 0; j < half; j++) {
+    const w = words[from + j];
+    lo += (w & 0xffff) * ranks[2 * j];
+    hi += (w >>> 16) * ranks[2 * j + 1];
+  }
+  return lo + hi;
+}
+
+/** pairedSum against both rankings in one pass: out[at] with `cost`, out[at + 1] with `duration`. */
+function pairedSumsBoth(
+  words: Uint32Array,
+  from: number,
+  half: number,
+  cost: Float64Array,
+  duration: Float64Array,
+  out: Float64Array,
+  at: number,
+): void {
+  let cLo = 0;
+  let cHi = 0;
+  let dLo = 0;
+  let dHi = 0;
+  for (let j = 0; j < half; j++) {
+    const w = words[from + j];
+    const lo = w & 0xffff;
+    const hi = w >>> 16;
+    cLo += lo * cost[2 * j];
+    cHi += hi * cost[2 * j + 1];
+    dLo += lo * duration[2 * j];
+    dHi += hi * duration[2 * j + 1];
+  }
+  out[at] = cLo + cHi;
+  out[at + 1] = dLo + dHi;
 }
 
 /**

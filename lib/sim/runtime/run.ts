@@ -70,6 +70,8 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
   const blocks: BlockSummary[] = [];
   const warnings: string[] = [];
   let pool: TaskPool | null = null;
+  /** The pool's closing, once started. */
+  let closing: Promise<void> | null = null;
   const workerFile = () => requireWorkerFile(options.workerFile ?? defaultWorkerFile());
   const workerData = { model, key: Array.from(key), sampling: settings.sampling };
   try {
@@ -207,10 +209,12 @@ export async function runSimulation(modelJson: unknown, options: RunOptions = {}
         second.push(...passes);
       }
       second = allocationFromBands(run, rounds, second, bands, input);
+      // The workers are done: they stop while this thread rolls the result up.
+      closing = p.close();
     }
     return resultOf(run, blocks, totals, second, { elapsedMs: performance.now() - started, warnings }, early);
   } finally {
-    if (pool) await pool.close();
+    if (pool) await (closing ?? pool.close());
   }
 
   async function guard<T>(work: Promise<T>): Promise<T> {

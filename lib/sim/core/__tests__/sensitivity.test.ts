@@ -11,7 +11,7 @@ import {
   simulateRound,
   simulateSync,
 } from '../engine';
-import { allocateRound, blockSink } from '../run-data';
+import { allocateRound, blockCrossSums, blockSink } from '../run-data';
 import { item, model, normal, spearmanBySorting, uniform } from './helpers';
 
 describe('rank correlation with the total', () => {
@@ -69,5 +69,48 @@ describe('rank correlation with the total', () => {
     });
     expect(result.sensitivity.duration.map((s) => s.id).sort()).toEqual(['A1', 'A2', 'R1']);
     expect(result.sensitivity.cost.map((s) => s.id).sort()).toEqual(['C1', 'C2', 'R1']);
+  });
+});
+
+describe('rank cross sums of a block', () => {
+  // Plumbing: the block's Σ k·R (grades read two per word, one pass for both totals) against the
+  // sum as its definition reads, term by term in order. Every term is a whole grade times a
+  // half-integer rank, so both sums are exact and must agree to the bit, on the extreme grades
+  // too; a run's last block of odd length takes the plain loop.
+  it('equals the plain sum of grade × mid-rank, for even and odd block lengths', () => {
+    const m = model({
+      items: [item('C1', uniform(0, 10)), item('C2', normal(5, 1))],
+      // A risk with a cost and a delay feeds both tornadoes.
+      risks: [{ id: 'R1', probability: 0.3, cost: uniform(5, 15), delay: uniform(2, 4), activity: 'A1' }],
+      activities: [
+        { id: 'A1', duration: uniform(10, 20) },
+        { id: 'A2', duration: uniform(5, 30) },
+      ],
+    });
+    const total = BLOCK_SIZE + 999;
+    const { plan } = prepareRun(m, { iterations: total, seed: 3 });
+    const store = allocateRound(plan, 0, total, false);
+    let state = 12345;
+    const next = () => (state = (Math.imul(state, 1103515245) + 12345) >>> 0);
+    for (let i = 0; i < store.grades.length; i++) store.grades[i] = i % 7 === 0 ? 65535 : next() >>> 16;
+    const costRanks = Float64Array.from({ length: total }, () => (next() % (2 * total)) / 2 + 1);
+    const durationRanks = Float64Array.from({ length: total }, () => (next() % (2 * total)) / 2 + 1);
+    const rows = plan.sensitivity.length;
+    expect(plan.sensitivity.some((s) => s.cost && s.duration)).toBe(true);
+    for (const b of blocksBetween(0, total)) {
+      const n = blockLength(b, total);
+      const { grades } = blockSink(store, b, n);
+      const got = blockCrossSums(plan, store, b, n, costRanks, durationRanks);
+      for (let r = 0; r < rows; r++) {
+        let c = 0;
+        let d = 0;
+        for (let i = 0; i < n; i++) {
+          c += grades[r * n + i] * costRanks[b * BLOCK_SIZE + i];
+          d += grades[r * n + i] * durationRanks[b * BLOCK_SIZE + i];
+        }
+        expect(got[2 * r]).toBe(plan.sensitivity[r].cost ? c : 0);
+        expect(got[2 * r + 1]).toBe(plan.sensitivity[r].duration ? d : 0);
+      }
+    }
   });
 });
