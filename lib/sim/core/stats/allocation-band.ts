@@ -65,19 +65,39 @@ export function bandOf(
   const d = Math.ceil(BAND_HALF_WIDTH * n);
   const lo = sorted[Math.max(0, r - d)];
   const hi = sorted[Math.min(n - 1, r + d)];
-  const { index, costs } = room;
+  // The loops in functions of their own: this one is called once per block and would otherwise
+  // be compiled mid-loop, before it ever returned, and thrown away at its return.
+  const m = bandIndex(cost, n, lo, hi, room.index);
+  if (m < 0) return undefined;
+  gatherBand(inputCost, stride, slots, room.index, m, room.costs);
+  return { lo, hi, m };
+}
+
+/** The iterations with their total in [lo, hi] into index; −1 when they do not fit. */
+function bandIndex(cost: Float64Array, n: number, lo: number, hi: number, index: Int32Array): number {
   const capacity = index.length;
   let m = 0;
   for (let i = 0; i < n; i++) {
     if (cost[i] >= lo && cost[i] <= hi) {
-      if (m === capacity) return undefined;
+      if (m === capacity) return -1;
       index[m++] = i;
     }
   }
+  return m;
+}
+
+/** costs[s·m + j] = inputCost[s·stride + index[j]]. */
+function gatherBand(
+  inputCost: Float64Array,
+  stride: number,
+  slots: number,
+  index: Int32Array,
+  m: number,
+  costs: Float64Array,
+): void {
   for (let s = 0; s < slots; s++) {
     const off = s * stride;
     const at = s * m;
     for (let j = 0; j < m; j++) costs[at + j] = inputCost[off + index[j]];
   }
-  return { lo, hi, m };
 }

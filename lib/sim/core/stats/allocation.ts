@@ -125,17 +125,24 @@ export function allocationFromBand(
   const local = block * BLOCK_SIZE - store.start;
   const { m } = band;
   const { index, costs } = bandRoom(store, block);
-  const inWindow: number[] = [];
+  // Plain loops over typed arrays: most blocks have no iteration in the window, and code
+  // compiled while the inner loop never ran would be thrown away at the first block that has.
+  const inWindow = new Int32Array(m);
+  const { cost } = store;
+  const { lo, hi } = window;
+  let w = 0;
   for (let j = 0; j < m; j++) {
-    const c = store.cost[local + index[j]];
-    if (c >= window.lo && c <= window.hi) inWindow.push(j);
+    const c = cost[local + index[j]];
+    if (c >= lo && c <= hi) inWindow[w++] = j;
   }
+  sums[slots] = w;
+  if (w === 0) return sums;
   for (let s = 0; s < slots; s++) {
+    const at = s * m;
     let acc = 0;
-    for (const j of inWindow) acc += costs[s * m + j];
+    for (let k = 0; k < w; k++) acc += costs[at + inWindow[k]];
     sums[s] = acc;
   }
-  sums[slots] = inWindow.length;
   return sums;
 }
 
