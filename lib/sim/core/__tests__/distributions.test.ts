@@ -102,6 +102,21 @@ describe('triangular', () => {
       expect(rel(d.quantile(p), jStat.triangular.inv(p, 100, 180, 120))).toBeLessThan(1e-12);
     }
   });
+
+  // Plumbing: the batch form (both sides computed, one kept) gives the single form's values to
+  // the bit, on either side of the mode, at it, and for a mode at either end.
+  it('batch and single quantiles agree to the bit', () => {
+    const u = Float64Array.from([...grid, 0.25, 0.25 - 2 ** -53, 0.25 + 2 ** -54]);
+    for (const t of [
+      d,
+      createTriangular({ low: 0, mode: 0, high: 9 }, at),
+      createTriangular({ low: 1, mode: 5, high: 5 }, at),
+    ]) {
+      const out = new Float64Array(u.length);
+      t.quantileInto(u, out, u.length);
+      expect(Array.from(out)).toEqual(Array.from(u, (p) => t.quantile(p)));
+    }
+  });
 });
 
 describe('beta-PERT', () => {
