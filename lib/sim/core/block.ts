@@ -130,9 +130,8 @@ interface Workspace {
   occurred: Uint8Array;
   /** A risk's delay uniforms where it occurs. */
   delayU: Float64Array;
-  /** The iterations where the risk at hand occurs (the first hitCount). */
+  /** The iterations where the risk at hand occurs. */
   hits: Int32Array;
-  hitCount: number;
   perm: Int32Array;
   rng: Sfc32;
   induction: InductionScratch;
@@ -210,7 +209,6 @@ function workspaceFor(plan: Plan, n: number): Workspace {
     occurred: new Uint8Array(stride),
     delayU: column(),
     hits: new Int32Array(stride),
-    hitCount: 0,
     perm: new Int32Array(stride),
     rng: new Sfc32(),
     induction: allocateInduction(plan.maxGroupSize, stride),
@@ -353,8 +351,8 @@ function factorWhere(x: Float64Array, mask: Uint8Array, out: Float64Array, n: nu
 /**
  * Where a block notes, per tornado row, the iterations whose grade falls in the swing's bands
  * (≤ 0.1 and ≥ 0.9): row r's segment of `at` (stride long) holds the low ones from its start,
- * ascending, and the high ones from its end, descending; `low[r]`/`high[r]` count them (−1: the
- * row's grades were not stored in this block).
+ * ascending, and the high ones from its end, descending; `low[r]`/`high[r]` count them (−1 until
+ * the row's grades are stored in the block).
  */
 interface SwingMarks {
   at: Uint16Array;
@@ -475,8 +473,8 @@ function momentsInto(x: Float64Array, n: number, out: Float64Array, at: number):
 }
 
 /**
- * The swing sums of one tornado row from its band marks: the same additions as swingInto, in
- * the same order, without the iterations that would only add zero.
+ * The swing sums of one tornado row (see BlockSummary.swingSums) from its band marks: each
+ * band's iterations added in ascending order.
  */
 function swingFromMarks(
   marks: SwingMarks,
@@ -500,57 +498,6 @@ function swingFromMarks(
   if (duration.length > 0) {
     for (let j = first; j < first + nl; j++) dl += duration[idx[j]];
     for (let j = first + stride - 1; j > first + stride - 1 - nh; j--) dh += duration[idx[j]];
-  }
-  out[at] = nl;
-  out[at + 1] = cl;
-  out[at + 2] = dl;
-  out[at + 3] = nh;
-  out[at + 4] = ch;
-  out[at + 5] = dh;
-}
-
-/** The swing sums of one tornado row (see BlockSummary.swingSums). */
-function swingInto(
-  grades: Uint16Array,
-  off: number,
-  cost: Float64Array,
-  duration: Float64Array,
-  n: number,
-  out: Float64Array,
-  at: number,
-): void {
-  let nl = 0;
-  let cl = 0;
-  let dl = 0;
-  let nh = 0;
-  let ch = 0;
-  let dh = 0;
-  // Without branches (which grade band an iteration falls in is a coin toss): 1 or 0 per band,
-  // and the sums add the total times it; adding 0 leaves a sum unchanged to the bit.
-  if (duration.length > 0) {
-    for (let i = 0; i < n; i++) {
-      const k = grades[off + i];
-      const low = (k - SWING_LOW_MAX - 1) >>> 31;
-      const high = (SWING_HIGH_MIN - 1 - k) >>> 31;
-      const c = cost[i];
-      const d = duration[i];
-      nl += low;
-      cl += low * c;
-      dl += low * d;
-      nh += high;
-      ch += high * c;
-      dh += high * d;
-    }
-  } else {
-    for (let i = 0; i < n; i++) {
-      const k = grades[off + i];
-      const low = (k - SWING_LOW_MAX - 1) >>> 31;
-      const high = (SWING_HIGH_MIN - 1 - k) >>> 31;
-      nl += low;
-      cl += low * cost[i];
-      nh += high;
-      ch += high * cost[i];
-    }
   }
   out[at] = nl;
   out[at + 1] = cl;
@@ -656,6 +603,8 @@ export function simulateBlock(
   if (hasPost) postCost.set(preCost.subarray(0, n));
 
   // 5. Risks: both scenarios from the same uniforms.
+  /** How many of ws.hits the risk at hand occurs in (kept for the other scenario's `again`). */
+  let hitCount = 0;
   const applyRisk = (
     x: RiskImpact,
     u: Float64Array | null,
@@ -679,13 +628,13 @@ export function simulateBlock(
     const { hits, delayTmp } = ws;
     if (again) {
       // Nothing to draw.
-    } else if (u) ws.hitCount = occurrences(u, p, hits, sizes, n);
+    } else if (u) hitCount = occurrences(u, p, hits, sizes, n);
     else {
       for (let i = 0; i < n; i++) hits[i] = i;
       sizes.fill(0.5, 0, n);
-      ws.hitCount = n;
+      hitCount = n;
     }
-    const m = ws.hitCount;
+    const m = hitCount;
     if (x.cost) {
       if (!again) x.cost.quantileInto(sizes, tmp, m);
       addAtHits(cost, tmp, hits, m);
@@ -840,9 +789,10 @@ export function simulateBlock(
   for (let a = 0; a < acts; a++) momentsInto(headDurations[a], n, durationSums, 2 * a);
   const swingSums = new Float64Array(6 * rows);
   for (let r = 0; r < rows; r++) {
-    if (ws.swing.low[r] >= 0)
-      swingFromMarks(ws.swing, r, ws.stride, sink.cost, sink.duration, swingSums, 6 * r);
-    else swingInto(grades, r * n, sink.cost, sink.duration, n, swingSums, 6 * r);
+    // Steps 1–7 draw every tornado input's column, which notes its marks; stale marks would
+    // give another block's swing.
+    if (ws.swing.low[r] < 0) throw new Error(`Tornado input ${plan.sensitivity[r].id} was not drawn.`);
+    swingFromMarks(ws.swing, r, ws.stride, sink.cost, sink.duration, swingSums, 6 * r);
   }
   const pairSums = new Float64Array(plan.correlations.length * 5);
   plan.correlations.forEach((c, k) => {
