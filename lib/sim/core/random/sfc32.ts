@@ -99,30 +99,7 @@ export class Sfc32 {
    * are exact in double precision, and frac never reaches 0 or 1 since U = (k + ½)/2³².
    */
   shuffleWithFractions(perm: Int32Array, frac: Float64Array, n: number): void {
-    startIdentity(perm, n);
-    const s = this.s;
-    let a = s[0];
-    let b = s[1];
-    let c = s[2];
-    let d = s[3];
-    for (let i = n - 1; i >= 0; i--) {
-      const t = (((a + b) | 0) + d) | 0;
-      d = (d + 1) | 0;
-      a = b ^ (b >>> 9);
-      b = (c + (c << 3)) | 0;
-      c = (((c << 21) | (c >>> 11)) + t) | 0;
-      const x = ((t >>> 0) + 0.5) * TWO_POW_M32 * (i + 1);
-      const j = Math.floor(x);
-      const p = perm[i];
-      const q = perm[j];
-      perm[i] = q;
-      perm[j] = p;
-      frac[i] = x - j;
-    }
-    s[0] = a;
-    s[1] = b;
-    s[2] = c;
-    s[3] = d;
+    this.shuffle(perm, frac, n, false);
   }
 
   /**
@@ -130,8 +107,11 @@ export class Sfc32 {
    * shuffleWithFractions (position i is final once the shuffle has passed it).
    */
   latinHypercube(perm: Int32Array, out: Float64Array, n: number): void {
-    // shuffleWithFractions' loop with the column written at once: a position, once passed, is
-    // never read again, so its stratum is used and not stored.
+    this.shuffle(perm, out, n, true);
+  }
+
+  /** The shuffle; out[i] is frac_i, or with `strata` (π(i) + frac_i)/n. */
+  private shuffle(perm: Int32Array, out: Float64Array, n: number, strata: boolean): void {
     const inv = 1 / n;
     startIdentity(perm, n);
     const s = this.s;
@@ -150,7 +130,8 @@ export class Sfc32 {
       const j = x | 0;
       const q = perm[j];
       perm[j] = perm[i];
-      out[i] = (q + (x - j)) * inv;
+      perm[i] = q;
+      out[i] = strata ? (q + (x - j)) * inv : x - j;
     }
     s[0] = a;
     s[1] = b;
