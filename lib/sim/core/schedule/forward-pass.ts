@@ -64,10 +64,7 @@ export function allocateForwardPass(size: number, stride: number): ForwardPassBu
  * successor that finishes no earlier, so the maximum is the same number; at 0 its sign comes
  * from the first activity in the order, which has no predecessor and is never left out.
  *
- * The maxima over predecessors are taken without a branch (the comparison goes either way at
- * random, and a mispredicted branch costs more than the arithmetic): with m = 1 when c > b,
- * else 0, c·m + b·(1 − m) is c or b exactly, as b ≥ +0 and both are finite: the other term is
- * ±0, and adding it leaves a positive number as it is and b = +0 as +0.
+ * The maxima over predecessors are taken without a branch (see larger).
  */
 export function forwardPass(
   net: Network,
@@ -86,6 +83,17 @@ export function forwardPass(
   for (let i = 0; i < n; i++) tolerance[i] = FLOAT_TOLERANCE * Math.max(1, Math.abs(total[i]));
   if (net.mixedLinks) backwardMixed(net, duration, n, buf, total, critical);
   else backwardFinishToStart(net, duration, n, buf, total, critical);
+}
+
+/**
+ * max(c, b) for a bound b ≥ +0 and c finite, without a branch (the comparison goes either way at
+ * random, and a mispredicted branch costs more than the arithmetic): with m = 1 when c > b, else
+ * 0, c·m + b·(1 − m) is c or b exactly, since the other term is ±0, and adding it leaves a
+ * positive number as it is and b = +0 as +0.
+ */
+function larger(c: number, b: number): number {
+  const m = +(c > b);
+  return c * m + b * (1 - m);
 }
 
 /** T = max(T, the activity's finish). */
@@ -166,9 +174,7 @@ function earlyFinishInto(
     for (let i = 0; i < n; i++) {
       const cp = finish[pb + i] + lp;
       const b = cp > 0 ? cp : 0;
-      const c = finish[qb + i] + lq;
-      const m = +(c > b);
-      finish[base + i] = c * m + b * (1 - m) + duration[base + i];
+      finish[base + i] = larger(finish[qb + i] + lq, b) + duration[base + i];
     }
     return;
   }
@@ -178,12 +184,8 @@ function earlyFinishInto(
     for (let i = 0; i < n; i++) {
       const cp = finish[pb + i] + lp;
       const bp = cp > 0 ? cp : 0;
-      const cq = finish[qb + i] + lq;
-      const mq = +(cq > bp);
-      const b = cq * mq + bp * (1 - mq);
-      const c = finish[rb + i] + lr;
-      const m = +(c > b);
-      finish[base + i] = c * m + b * (1 - m) + duration[base + i];
+      const b = larger(finish[qb + i] + lq, bp);
+      finish[base + i] = larger(finish[rb + i] + lr, b) + duration[base + i];
     }
     return;
   }
@@ -195,10 +197,7 @@ function earlyFinishInto(
     const jb = predIndex[j] * stride;
     const lj = predLag[j];
     for (let i = 0; i < n; i++) {
-      const c = finish[jb + i] + lj;
-      const b = finish[base + i];
-      const m = +(c > b);
-      finish[base + i] = c * m + b * (1 - m);
+      finish[base + i] = larger(finish[jb + i] + lj, finish[base + i]);
     }
   }
   for (let i = 0; i < n; i++) finish[base + i] += duration[base + i];
@@ -235,9 +234,7 @@ function forwardMixed(
           let c = finish[pb + i] + lag;
           if (fromStart) c -= duration[pb + i];
           if (onFinish) c -= duration[base + i];
-          const b = finish[base + i];
-          const m = +(c > b);
-          finish[base + i] = c * m + b * (1 - m);
+          finish[base + i] = larger(c, finish[base + i]);
         }
       }
       for (let i = 0; i < n; i++) finish[base + i] += duration[base + i];
