@@ -1,18 +1,14 @@
 import { RateLimiterRes, type RateLimiterAbstract } from 'rate-limiter-flexible';
-import { createLimiter } from '@/lib/limits/rate-limiter';
+import { addressLimits } from '@/lib/limits/rate-limiter';
 
 // Failed sign-ins are counted per e-mail and per client address; either limit
 // blocks further attempts for a while. Successful sign-ins reset the e-mail's count.
 // The counters are shared by every web instance in queue mode (lib/limits/rate-limiter.ts).
-// Kept on globalThis: Next.js may load this module in more than one bundle of one process.
-// Made at first use, so that importing this module opens no connection.
-type Limits = { perEmail: RateLimiterAbstract; perAddress: RateLimiterAbstract };
-const store = globalThis as unknown as { outturnSignInLimits?: Limits };
-const limits = (): Limits =>
-  (store.outturnSignInLimits ??= {
-    perEmail: createLimiter({ keyPrefix: 'signin-email', points: 5, duration: 15 * 60 }),
-    perAddress: createLimiter({ keyPrefix: 'signin-ip', points: 50, duration: 15 * 60 }),
-  });
+const limits = addressLimits(
+  'outturnSignInLimits',
+  { keyPrefix: 'signin-email', points: 5, duration: 15 * 60 },
+  { keyPrefix: 'signin-ip', points: 50, duration: 15 * 60 },
+);
 
 export class SignInLimited extends Error {
   constructor(readonly retryAfterSeconds: number) {

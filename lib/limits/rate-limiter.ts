@@ -41,3 +41,17 @@ export function createLimiter(spec: LimitSpec, store: Redis | null = limitsStore
     insuranceLimiter: new RateLimiterMemory(spec),
   });
 }
+
+/** A limit per e-mail address and one per client address. */
+export type AddressLimits = { perEmail: RateLimiterAbstract; perAddress: RateLimiterAbstract };
+
+/**
+ * The limits of one form, made at first use (importing the module opens no connection) and kept
+ * on globalThis under `name`: Next.js may load a module in more than one bundle of one process,
+ * and every copy must count with the same limiters.
+ */
+export function addressLimits(name: string, perEmail: LimitSpec, perAddress: LimitSpec): () => AddressLimits {
+  const holder = globalThis as unknown as Record<string, AddressLimits | undefined>;
+  return () =>
+    (holder[name] ??= { perEmail: createLimiter(perEmail), perAddress: createLimiter(perAddress) });
+}

@@ -4,8 +4,8 @@ import 'server-only';
 // whether or not the address has an account.
 import crypto from 'node:crypto';
 import { z } from 'zod';
-import { RateLimiterRes, type RateLimiterAbstract } from 'rate-limiter-flexible';
-import { createLimiter } from '@/lib/limits/rate-limiter';
+import { RateLimiterRes } from 'rate-limiter-flexible';
+import { addressLimits } from '@/lib/limits/rate-limiter';
 import { PasswordResetToken, User, sequelize } from '@/models';
 import { badRequest, notFound, tooMany } from '@/lib/errors';
 import { parseOrThrow } from '@/lib/validation/parse';
@@ -19,15 +19,12 @@ export const RESET_LINK_MINUTES = 60;
 export const NEUTRAL_RESET_REPLY =
   'If an Outturn account uses this address, a link to set a new password is on its way. It works once, for one hour.';
 
-// Shared by every web instance in queue mode (lib/limits/rate-limiter.ts). Kept on globalThis:
-// Next.js may load this module in more than one bundle of one process. Made at first use.
-type Limits = { perEmail: RateLimiterAbstract; perAddress: RateLimiterAbstract };
-const store = globalThis as unknown as { outturnResetLimits?: Limits };
-const limits = (): Limits =>
-  (store.outturnResetLimits ??= {
-    perEmail: createLimiter({ keyPrefix: 'reset-email', points: 5, duration: 60 * 60 }),
-    perAddress: createLimiter({ keyPrefix: 'reset-ip', points: 30, duration: 15 * 60 }),
-  });
+// Shared by every web instance in queue mode (lib/limits/rate-limiter.ts).
+const limits = addressLimits(
+  'outturnResetLimits',
+  { keyPrefix: 'reset-email', points: 5, duration: 60 * 60 },
+  { keyPrefix: 'reset-ip', points: 30, duration: 15 * 60 },
+);
 
 const requestSchema = z.object({ email: emailSchema });
 const resetSchema = z.object({ password: passwordSchema });
