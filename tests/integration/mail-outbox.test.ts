@@ -1,6 +1,6 @@
 // The outbox and its sender, called directly: vitest has the test database's settings, and
 // the app server's own sender delivers whatever these tests leave due.
-import net from 'node:net';
+import { closedPort } from './helpers/ports';
 import { afterAll, describe, expect, it } from 'vitest';
 import { uniqueEmail } from './helpers/http';
 import { closeDb, count } from './helpers/db';
@@ -8,14 +8,6 @@ import { waitForMail, mailTo } from '@/scripts/fakes/mail/client';
 import { deliverPending, enqueueMail, MAX_ATTEMPTS } from '@/lib/mail';
 import { createMailTransport } from '@/lib/mail/transport';
 import { OutboundMessage, sequelize } from '@/models';
-
-async function closedPort(): Promise<number> {
-  const server = net.createServer();
-  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-  const { port } = server.address() as net.AddressInfo;
-  await new Promise((resolve) => server.close(resolve));
-  return port;
-}
 
 // Rows due only on a day the app server's clock has not reached, so that only these tests send them.
 const FUTURE = new Date(Date.now() + 3 * 24 * 3600_000);

@@ -2,7 +2,7 @@
 // database and the test run's Redis: the rate limits' shared counters, and the health check
 // when Redis cannot be reached.
 import crypto from 'node:crypto';
-import net from 'node:net';
+import { closedPort } from './helpers/ports';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { Redis } from 'ioredis';
 import { RateLimiterRes, type RateLimiterAbstract } from 'rate-limiter-flexible';
@@ -13,14 +13,6 @@ import { sequelize } from '@/models';
 
 const REDIS = process.env.REDIS_TEST_URL ?? 'redis://127.0.0.1:6400';
 const spec = { keyPrefix: 'ops-test', points: 5, duration: 60 };
-
-async function closedPort(): Promise<number> {
-  const server = net.createServer();
-  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-  const { port } = server.address() as net.AddressInfo;
-  await new Promise((resolve) => server.close(resolve));
-  return port;
-}
 
 /** Consumes a point; the limiter's refusal (a RateLimiterRes) is returned rather than thrown. */
 const hit = (limiter: RateLimiterAbstract, key: string) =>
