@@ -285,18 +285,25 @@ function multiplyInto(acc: Float64Array, x: Float64Array, n: number): void {
   for (let i = 0; i < n; i++) acc[i] *= x[i];
 }
 
+/** Largest double below 1. */
+const BELOW_ONE = 1 - 2 ** -53;
+
+/** The grade (u − q)/p of an occurring draw u > q = 1 − p, kept inside (0, 1). */
+function conditionalGrade(u: number, q: number, p: number): number {
+  const x = (u - q) / p;
+  return x >= 1 ? BELOW_ONE : x > 0 ? x : 2 ** -53;
+}
+
 /**
  * From a risk's (or driver's) uniform u and probability p: mask[i] = 1 when u > 1 − p, and the
  * conditional grade w = (u − (1 − p))/p in (0, 1) there (½ elsewhere, never read).
  */
 function occurrenceGrades(u: Float64Array, p: number, mask: Uint8Array, w: Float64Array, n: number): void {
   const q = 1 - p;
-  const top = 1 - 2 ** -53;
   for (let i = 0; i < n; i++) {
     if (u[i] > q) {
       mask[i] = 1;
-      const x = (u[i] - q) / p;
-      w[i] = x >= 1 ? top : x > 0 ? x : 2 ** -53;
+      w[i] = conditionalGrade(u[i], q, p);
     } else {
       mask[i] = 0;
       w[i] = 0.5;
@@ -310,12 +317,10 @@ function occurrenceGrades(u: Float64Array, p: number, mask: Uint8Array, w: Float
  */
 function occurrences(u: Float64Array, p: number, hits: Int32Array, w: Float64Array, n: number): number {
   const q = 1 - p;
-  const top = 1 - 2 ** -53;
   let m = 0;
   for (let i = 0; i < n; i++) {
     if (u[i] > q) {
-      const x = (u[i] - q) / p;
-      w[m] = x >= 1 ? top : x > 0 ? x : 2 ** -53;
+      w[m] = conditionalGrade(u[i], q, p);
       hits[m++] = i;
     }
   }
